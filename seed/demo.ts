@@ -1,0 +1,18 @@
+import { sql } from 'drizzle-orm';
+import { getDb, write } from '../src/db/client';
+import { teams } from '../src/db/schema';
+import { seedPeople } from './people';
+
+/**
+ * The demo scenario: an invented team, its people, and (as the product grows) its cars, gear sets,
+ * runs and inspections. Every name and number here is made up for the demo.
+ */
+export async function seedDemo(): Promise<{ seeded: boolean; reason?: string }> {
+  const db = await getDb();
+  const row = await db.get<{ n: number }>(sql`SELECT count(*) AS n FROM ${teams}`);
+  if (Number(row?.n ?? 0) > 0) return { seeded: false, reason: 'the database already holds a team' };
+  await write(async (tx) => {
+    await seedPeople(tx);
+  });
+  return { seeded: true };
+}

@@ -1,0 +1,47 @@
+import { z } from 'zod';
+
+/**
+ * The server's environment, validated once at start. A bad value stops the server with a message
+ * that names the variable and what it must look like.
+ */
+const environmentSchema = z.object({
+  DATABASE_URL: z
+    .string()
+    .regex(/^(file:|libsql:\/\/|https?:\/\/|wss?:\/\/)/, 'must start with file:, libsql://, http(s):// or ws(s)://')
+    .default('file:./data/lashline.db'),
+  DATABASE_AUTH_TOKEN: z.string().min(1).optional(),
+  DATA_DIR: z.string().min(1).default('./data'),
+  AUTH_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
+  PUBLIC_URL: z.url('must be a full URL such as http://localhost:4321').optional(),
+  SMTP_HOST: z.string().min(1).optional(),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASS: z.string().optional(),
+  SMTP_SECURE: z.enum(['true', 'false']).default('false'),
+  MAIL_FROM: z.string().default('Lashline <no-reply@lashline.test>'),
+  LASHLINE_DEMO: z.enum(['on', 'off']).default('on'),
+  MAIL_CATCHER: z.enum(['on', 'off']).optional(),
+  NODE_ENV: z.string().optional(),
+});
+
+export type Environment = z.infer<typeof environmentSchema>;
+
+let cached: Environment | undefined;
+
+/** Reads and validates process.env once; throws an error naming each bad variable. */
+export function readEnvironment(): Environment {
+  if (cached) return cached;
+  const parsed = environmentSchema.safeParse(process.env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((issue) => `  ${issue.path.join('.')}: ${issue.message}`);
+    throw new Error(`Lashline cannot start: the environment has bad values.\n${lines.join('\n')}`);
+  }
+  cached = parsed.data;
+  return cached;
+}
+
+/** True when mail goes to the built-in local catcher instead of a real SMTP server. */
+export function usesMailCatcher(env: Environment = readEnvironment()): boolean {
+  if (env.MAIL_CATCHER) return env.MAIL_CATCHER === 'on';
+  return !env.SMTP_HOST;
+}

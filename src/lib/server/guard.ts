@@ -1,0 +1,48 @@
+import { ROLE_LABELS, roleCan, type Permission, type Role } from '../roles';
+import type { PublicUser } from './accounts';
+import { HttpError } from './http';
+
+export interface TeamAccess {
+  user: PublicUser;
+  team: { id: string; name: string; role: Role };
+}
+
+/**
+ * The one guard for the role matrix. Every API route and page calls one of these; the UI hiding a
+ * button is never the only check.
+ */
+export function requireUser(locals: App.Locals): PublicUser {
+  if (!locals.user) throw new HttpError(401, 'Sign in first.');
+  return locals.user;
+}
+
+/** A signed-in person with a current team (any role). */
+export function requireMember(locals: App.Locals): TeamAccess {
+  const user = requireUser(locals);
+  if (!locals.team) throw new HttpError(403, 'Create a team or accept an invitation first.');
+  return { user, team: locals.team };
+}
+
+/** A member whose role grants `permission`; 403 names the role and what it cannot do. */
+export function requirePermission(locals: App.Locals, permission: Permission): TeamAccess {
+  const access = requireMember(locals);
+  if (!roleCan(access.team.role, permission)) {
+    throw new HttpError(403, `A ${ROLE_LABELS[access.team.role].toLowerCase()} cannot do this (${permission}).`);
+  }
+  return access;
+}
+
+export type PageAccess = { ok: true; access: TeamAccess } | { ok: false; redirect?: string; status?: number; message?: string };
+
+/**
+ * The same guard for pages: where to send a visitor who may not see the page.
+ * Signed out → sign-in (and back); no team → create one; role lacking → 403 with a message.
+ */
+export function checkPageAccess(locals: App.Locals, url: URL, permission: Permission = 'team:read'): PageAccess {
+  if (!locals.user) return { ok: false, redirect: `/sign-in?next=${encodeURIComponent(url.pathname + url.search)}` };
+  if (!locals.team) return { ok: false, redirect: '/teams/new' };
+  if (!roleCan(locals.team.role, permission)) {
+    return { ok: false, status: 403, message: `Your role, ${ROLE_LABELS[locals.team.role].toLowerCase()}, cannot open this page.` };
+  }
+  return { ok: true, access: { user: locals.user, team: locals.team } };
+}

@@ -1,0 +1,101 @@
+import type { z } from 'zod';
+import { zodIssuesToFields, zodIssuesToMessage } from '../validation';
+
+/** An error that already knows its HTTP status and the message the client should read. */
+export class HttpError extends Error {
+  constructor(
+    readonly status: number,
+    message: string,
+    readonly fields?: Record<string, string>,
+    readonly headers?: Record<string, string>,
+  ) {
+    super(message);
+  }
+}
+
+export const MAX_JSON_BYTES = 1024 * 1024;
+
+/** A JSON response with the exact status. */
+export function json(body: unknown, status = 200, headers: Record<string, string> = {}): Response {
+  return new Response(JSON.stringify(body), {
+    status,
+    headers: { 'Content-Type': 'application/json; charset=utf-8', 'Cache-Control': 'no-store', ...headers },
+  });
+}
+
+/** The `{ error: { message, fields? } }` body every failing endpoint answers with. */
+export function errorResponse(error: HttpError): Response {
+  const body = { error: { message: error.message, ...(error.fields ? { fields: error.fields } : {}) } };
+  return json(body, error.status, error.headers);
+}
+
+/** Reads the request body as text, refusing more than `maxBytes` with 413 before reading it all. */
+export async function readBodyText(request: Request, maxBytes: number): Promise<string> {
+  const declared = Number(request.headers.get('content-length') ?? '0');
+  if (declared > maxBytes) throw tooLarge(maxBytes);
+  if (!request.body) return '';
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > maxBytes) {
+      await reader.cancel();
+      throw tooLarge(maxBytes);
+    }
+    chunks.push(value);
+  }
+  return Buffer.concat(chunks).toString('utf8');
+}
+
+function tooLarge(maxBytes: number): HttpError {
+  const size = maxBytes >= 1024 * 1024 ? `${maxBytes / (1024 * 1024)} MB` : `${maxBytes / 1024} KB`;
+  return new HttpError(413, `The request body is larger than ${size}; send less.`);
+}
+
+/**
+ * Reads a JSON body and validates it with `schema`: 415 for another content type, 400 for
+ * malformed JSON, 400 naming each bad field, 413 past `maxBytes`.
+ */
+export async function readJson<S extends z.ZodType>(
+  request: Request,
+  schema: S,
+  maxBytes = MAX_JSON_BYTES,
+): Promise<z.infer<S>> {
+  const type = request.headers.get('content-type') ?? '';
+  if (!type.toLowerCase().startsWith('application/json')) {
+    throw new HttpError(415, 'Send the body as JSON with Content-Type: application/json.');
+  }
+  const text = await readBodyText(request, maxBytes);
+  let raw: unknown;
+  try {
+    raw = JSON.parse(text);
+  } catch {
+    throw new HttpError(400, 'The body is not valid JSON; check for a missing quote, comma or brace.');
+  }
+  return parseWith(schema, raw);
+}
+
+/** Validates `raw` with `schema`, throwing a 400 whose message names the first bad field. */
+export function parseWith<S extends z.ZodType>(schema: S, raw: unknown): z.infer<S> {
+  const parsed = schema.safeParse(raw);
+  if (parsed.success) return parsed.data;
+  throw new HttpError(400, zodIssuesToMessage(parsed.error, 'body'), zodIssuesToFields(parsed.error));
+}
+
+/** Wraps an endpoint so that an HttpError becomes its JSON answer and nothing else leaks. */
+export function handle(
+  work: (context: import('astro').APIContext) => Promise<Response>,
+): (context: import('astro').APIContext) => Promise<Response> {
+  return async (context) => {
+    try {
+      return await work(context);
+    } catch (error) {
+      if (error instanceof HttpError) return errorResponse(error);
+      console.error(`[lashline] ${context.request.method} ${context.url.pathname} failed`, error);
+      return errorResponse(new HttpError(500, 'Something went wrong on the server; the change was not saved.'));
+    }
+  };
+}

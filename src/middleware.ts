@@ -1,0 +1,75 @@
+import { defineMiddleware, sequence } from 'astro:middleware';
+import { errorResponse, HttpError, MAX_JSON_BYTES } from './lib/server/http';
+import { applySecurityHeaders } from './lib/security-headers';
+import { loadSession } from './lib/server/session';
+import { ensureStarted } from './lib/server/startup';
+import { runSignInAttempt, signInRetryAfterSeconds } from './lib/server/sign-in-limiter';
+import { logSecurityEvent } from './lib/server/security-log';
+
+const SIGN_IN_CALLBACK = '/api/auth/callback/credentials';
+const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/** Security headers on every answer, errors included. */
+const securityHeaders = defineMiddleware(async (_context, next) => {
+  const response = await next();
+  try {
+    applySecurityHeaders(response.headers);
+    return response;
+  } catch {
+    // Response.redirect() and fetched responses have immutable headers: answer with a copy.
+    const copy = new Response(response.body, { status: response.status, statusText: response.statusText, headers: new Headers(response.headers) });
+    applySecurityHeaders(copy.headers);
+    return copy;
+  }
+});
+
+/** Migrations, the mail catcher and the outbox worker, before the first answer. */
+const startup = defineMiddleware(async (_context, next) => {
+  await ensureStarted();
+  return next();
+});
+
+/**
+ * JSON endpoints that change state refuse a foreign Origin (Astro's own check covers form posts),
+ * and refuse a body over 1 MB before reading it. Upload routes set their own, larger limit.
+ */
+const apiGate = defineMiddleware(async ({ request, url }, next) => {
+  if (!url.pathname.startsWith('/api/') || SAFE_METHODS.has(request.method)) return next();
+  const origin = request.headers.get('origin');
+  if (origin && origin !== url.origin) {
+    logSecurityEvent('denied-foreign-origin', { path: url.pathname, origin });
+    return errorResponse(new HttpError(403, `Requests from ${origin} are not accepted; use Lashline's own pages.`));
+  }
+  const declared = Number(request.headers.get('content-length') ?? '0');
+  const uploads = /\/photos$/.test(url.pathname);
+  if (!uploads && declared > MAX_JSON_BYTES) {
+    return errorResponse(new HttpError(413, 'The request body is larger than 1 MB; send less.'));
+  }
+  return next();
+});
+
+/** Sign-in attempts are limited per account and per client address (429 with Retry-After). */
+const signInLimit = defineMiddleware(async (context, next) => {
+  if (context.url.pathname !== SIGN_IN_CALLBACK || context.request.method !== 'POST') return next();
+  const form = await context.request.clone().formData().catch(() => null);
+  const email = String(form?.get('email') ?? '').trim().toLowerCase();
+  const wait = signInRetryAfterSeconds(email, context.clientAddress);
+  if (wait > 0) {
+    logSecurityEvent('sign-in-limited', { email, clientAddress: context.clientAddress, retryAfterSeconds: wait });
+    const minutes = Math.ceil(wait / 60);
+    return errorResponse(
+      new HttpError(429, `Too many failed sign-ins. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`, undefined, {
+        'Retry-After': String(wait),
+      }),
+    );
+  }
+  return runSignInAttempt(context.clientAddress, next);
+});
+
+/** The person and their role, read from the database on every request. */
+const session = defineMiddleware(async ({ cookies, locals }, next) => {
+  Object.assign(locals, await loadSession(cookies));
+  return next();
+});
+
+export const onRequest = sequence(securityHeaders, startup, apiGate, signInLimit, session);

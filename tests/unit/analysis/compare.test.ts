@@ -1,0 +1,68 @@
+import { describe, expect, it } from 'vitest';
+import { summariseBacklash } from '../../../src/lib/analysis/backlash';
+import { compareInspections, summaryToMeasures } from '../../../src/lib/analysis/compare';
+
+// 0.001 in = 0.0254 mm: NIST SP 811 (2008) App. B
+const THOU = 0.0254;
+
+describe('compareInspections', () => {
+  it('does not flag a change of exactly two graduations, even when subtraction leaves it an ulp above', () => {
+    // 0.1524 − 0.1016 evaluates to 0.05080000000000001 > 0.0508
+    const [change] = compareInspections(
+      { measures: { min: 0.1016 }, resolution: THOU },
+      { measures: { min: 0.1524 }, resolution: THOU },
+    );
+    expect(change).toMatchObject({ measure: 'min', threshold: 2 * THOU, flagged: false });
+    expect(change?.delta).toBeCloseTo(0.0508, 15);
+  });
+
+  it('flags a change of more than two graduations in either direction', () => {
+    const changes = compareInspections(
+      { measures: { min: 0.1016, max: 0.2 }, resolution: THOU },
+      { measures: { min: 0.1778, max: 0.1 }, resolution: THOU },
+    );
+    expect(changes.map((c) => [c.measure, c.flagged])).toEqual([
+      ['min', true],
+      ['max', true],
+    ]);
+  });
+
+  it('uses the coarser of the two resolutions', () => {
+    const [change] = compareInspections(
+      { measures: { min: 0.15 }, resolution: 0.002 },
+      { measures: { min: 0.165 }, resolution: 0.01 },
+    );
+    expect(change).toMatchObject({ threshold: 0.02, flagged: false });
+    const [finer] = compareInspections(
+      { measures: { min: 0.15 }, resolution: 0.002 },
+      { measures: { min: 0.165 }, resolution: 0.002 },
+    );
+    expect(finer?.flagged).toBe(true);
+  });
+
+  it('lists a measure only one inspection has with no delta and no flag', () => {
+    const changes = compareInspections(
+      { measures: { spread: 0.03 }, resolution: 0.01 },
+      { measures: { tir: 0.2, empty: undefined }, resolution: 0.01 },
+    );
+    expect(changes).toEqual([
+      { measure: 'tir', previous: null, current: 0.2, delta: null, threshold: 0.02, flagged: false },
+      { measure: 'spread', previous: 0.03, current: null, delta: null, threshold: 0.02, flagged: false },
+    ]);
+  });
+
+  it('refuses a resolution that is not positive', () => {
+    expect(() => compareInspections({ measures: {}, resolution: 0 }, { measures: {}, resolution: 0.01 })).toThrow(
+      RangeError,
+    );
+  });
+});
+
+describe('summaryToMeasures', () => {
+  it('takes min, max, mean, spread, amplitude and runout from a backlash summary', () => {
+    const measures = summaryToMeasures(summariseBacklash([0.2, 0.15, 0.1, 0.15], { ringTeeth: 41, pinionTeeth: 10 }));
+    expect(Object.keys(measures)).toEqual(['min', 'max', 'mean', 'spread', 'amplitude', 'tir']);
+    expect(measures.amplitude).toBeCloseTo(0.05, 15);
+    expect(measures.tir).toBeGreaterThan(0);
+  });
+});

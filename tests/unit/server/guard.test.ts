@@ -1,0 +1,63 @@
+import { describe, expect, it } from 'vitest';
+import { checkPageAccess, requireMember, requirePermission, requireUser } from '../../../src/lib/server/guard';
+import { HttpError } from '../../../src/lib/server/http';
+import { PERMISSIONS, ROLES, roleCan, type Role } from '../../../src/lib/roles';
+
+const user = { id: 'u1', email: 'a@example.test', name: 'A', lengthUnit: 'in', torqueUnit: 'lbf-in', currentTeamId: 't1' } as const;
+const localsFor = (role: Role | null, signedIn = true): App.Locals => ({
+  user: signedIn ? { ...user } : null,
+  team: role ? { id: 't1', name: 'Team', role } : null,
+});
+
+function statusOf(work: () => unknown): number | 'passed' {
+  try {
+    work();
+    return 'passed';
+  } catch (error) {
+    if (error instanceof HttpError) return error.status;
+    throw error;
+  }
+}
+
+describe('the server-side guard', () => {
+  it('answers 401 to a signed-out visitor on every kind of check', () => {
+    const locals = localsFor(null, false);
+    expect(statusOf(() => requireUser(locals))).toBe(401);
+    expect(statusOf(() => requireMember(locals))).toBe(401);
+    expect(statusOf(() => requirePermission(locals, 'team:read'))).toBe(401);
+  });
+
+  it('answers 403 to a person who has no current team', () => {
+    expect(statusOf(() => requireMember(localsFor(null)))).toBe(403);
+  });
+
+  it('enforces the whole matrix: 403 exactly where the role lacks the permission', () => {
+    for (const role of ROLES) {
+      for (const permission of PERMISSIONS) {
+        const expected = roleCan(role, permission) ? 'passed' : 403;
+        expect(statusOf(() => requirePermission(localsFor(role), permission)), `${role} ${permission}`).toBe(expected);
+      }
+    }
+  });
+
+  it('names the role in the refusal', () => {
+    try {
+      requirePermission(localsFor('viewer'), 'runs:record');
+      expect.unreachable();
+    } catch (error) {
+      expect((error as HttpError).message).toContain('viewer');
+    }
+  });
+
+  it('sends a signed-out page visitor to sign-in and back to the page after', () => {
+    const result = checkPageAccess(localsFor(null, false), new URL('http://x.test/team/members?tab=1'));
+    expect(result).toEqual({ ok: false, redirect: '/sign-in?next=%2Fteam%2Fmembers%3Ftab%3D1' });
+  });
+
+  it('sends a person without a team to make one, and refuses a page the role may not open', () => {
+    expect(checkPageAccess(localsFor(null), new URL('http://x.test/'))).toEqual({ ok: false, redirect: '/teams/new' });
+    const refused = checkPageAccess(localsFor('viewer'), new URL('http://x.test/audit'), 'audit:read');
+    expect(refused.ok).toBe(false);
+    expect(refused.ok === false && refused.status).toBe(403);
+  });
+});
