@@ -2,6 +2,7 @@ import { sql } from 'drizzle-orm';
 import { getDb, write } from '../src/db/client';
 import { teams } from '../src/db/schema';
 import { seedPeople } from './people';
+import { seedRegister } from './register';
 
 /**
  * The demo scenario: an invented team, its people, and (as the product grows) its cars, gear sets,
@@ -12,7 +13,8 @@ export async function seedDemo(): Promise<{ seeded: boolean; reason?: string }> 
   const row = await db.get<{ n: number }>(sql`SELECT count(*) AS n FROM ${teams}`);
   if (Number(row?.n ?? 0) > 0) return { seeded: false, reason: 'the database already holds a team' };
   await write(async (tx) => {
-    await seedPeople(tx);
+    const people = await seedPeople(tx);
+    await seedRegister(tx, people);
   });
   return { seeded: true };
 }

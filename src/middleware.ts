@@ -1,5 +1,5 @@
 import { defineMiddleware, sequence } from 'astro:middleware';
-import { errorResponse, HttpError, MAX_JSON_BYTES } from './lib/server/http';
+import { bodyLimitFor, errorResponse, HttpError } from './lib/server/http';
 import { applySecurityHeaders } from './lib/security-headers';
 import { loadSession } from './lib/server/session';
 import { ensureStarted } from './lib/server/startup';
@@ -31,7 +31,7 @@ const startup = defineMiddleware(async (_context, next) => {
 
 /**
  * JSON endpoints that change state refuse a foreign Origin (Astro's own check covers form posts),
- * and refuse a body over 1 MB before reading it. Upload routes set their own, larger limit.
+ * and refuse a body over its route's limit (1 MB, more for uploads and imports) before reading it.
  */
 const apiGate = defineMiddleware(async ({ request, url }, next) => {
   if (!url.pathname.startsWith('/api/') || SAFE_METHODS.has(request.method)) return next();
@@ -41,9 +41,9 @@ const apiGate = defineMiddleware(async ({ request, url }, next) => {
     return errorResponse(new HttpError(403, `Requests from ${origin} are not accepted; use Lashline's own pages.`));
   }
   const declared = Number(request.headers.get('content-length') ?? '0');
-  const uploads = /\/photos$/.test(url.pathname);
-  if (!uploads && declared > MAX_JSON_BYTES) {
-    return errorResponse(new HttpError(413, 'The request body is larger than 1 MB; send less.'));
+  const limit = bodyLimitFor(url.pathname);
+  if (declared > limit) {
+    return errorResponse(new HttpError(413, `The request body is larger than ${limit / (1024 * 1024)} MB; send less.`));
   }
   return next();
 });

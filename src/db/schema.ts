@@ -1,7 +1,8 @@
 import { sql } from 'drizzle-orm';
-import { index, integer, primaryKey, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 
 import { ROLES } from '../lib/roles';
+import { PART_KINDS, PART_STATUSES } from '../lib/register/kinds';
 
 const createdAt = () =>
   integer('created_at', { mode: 'timestamp_ms' })
@@ -103,3 +104,134 @@ export const auditEvents = sqliteTable(
 export type User = typeof users.$inferSelect;
 export type Team = typeof teams.$inferSelect;
 export type Membership = typeof memberships.$inferSelect;
+
+// ---------------------------------------------------------------------------------------------
+// The parts register and the run log
+
+
+/** Team-wide settings; absent keys fall back to the defaults in src/lib/register/team-settings.ts. */
+export const teamSettings = sqliteTable('team_settings', {
+  teamId: text('team_id')
+    .primaryKey()
+    .references(() => teams.id, { onDelete: 'cascade' }),
+  values: text('values', { mode: 'json' }).notNull(),
+  updatedAt: createdAt(),
+});
+
+export const cars = sqliteTable(
+  'cars',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    carClass: text('car_class'),
+    notes: text('notes'),
+    createdAt: createdAt(),
+  },
+  (table) => [uniqueIndex('cars_team_name_idx').on(table.teamId, table.name)],
+);
+
+export const assemblies = sqliteTable(
+  'assemblies',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    serial: text('serial').notNull(),
+    name: text('name').notNull(),
+    housing: text('housing'),
+    notes: text('notes'),
+    createdAt: createdAt(),
+  },
+  (table) => [uniqueIndex('assemblies_team_serial_idx').on(table.teamId, table.serial)],
+);
+
+export const parts = sqliteTable(
+  'parts',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    kind: text('kind', { enum: PART_KINDS }).notNull(),
+    serial: text('serial').notNull(),
+    status: text('status', { enum: PART_STATUSES }).notNull().default('spare'),
+    // Null when neither the part nor the team's default for its kind sets a limit.
+    lifeLimitRuns: integer('life_limit_runs'),
+    maker: text('maker'),
+    model: text('model'),
+    material: text('material'),
+    notes: text('notes'),
+    // Gear sets only.
+    ringTeeth: integer('ring_teeth'),
+    pinionTeeth: integer('pinion_teeth'),
+    pressureAngleDeg: real('pressure_angle_deg'),
+    createdAt: createdAt(),
+  },
+  (table) => [
+    uniqueIndex('parts_team_kind_serial_idx').on(table.teamId, table.kind, table.serial),
+    index('parts_team_status_idx').on(table.teamId, table.status),
+  ],
+);
+
+/**
+ * The installation history, append-only: a part goes into an assembly (or straight into a car) and
+ * an assembly goes into a car; each install is ended by a later remove of the same subject. `seq`
+ * orders events that share a timestamp.
+ */
+export const installationEvents = sqliteTable(
+  'installation_events',
+  {
+    seq: integer('seq').primaryKey({ autoIncrement: true }),
+    id: text('id').notNull().unique(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    action: text('action', { enum: ['install', 'remove'] }).notNull(),
+    subjectType: text('subject_type', { enum: ['part', 'assembly'] }).notNull(),
+    subjectId: text('subject_id').notNull(),
+    targetType: text('target_type', { enum: ['assembly', 'car'] }).notNull(),
+    targetId: text('target_id').notNull(),
+    at: integer('at', { mode: 'timestamp_ms' }).notNull(),
+    actorId: text('actor_id').references(() => users.id),
+    notes: text('notes'),
+    createdAt: createdAt(),
+  },
+  (table) => [
+    index('installation_subject_idx').on(table.subjectType, table.subjectId, table.seq),
+    index('installation_target_idx').on(table.targetType, table.targetId, table.at),
+    index('installation_team_idx').on(table.teamId, table.at),
+  ],
+);
+
+export const runs = sqliteTable(
+  'runs',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    carId: text('car_id')
+      .notNull()
+      .references(() => cars.id),
+    at: integer('at', { mode: 'timestamp_ms' }).notNull(),
+    event: text('event'),
+    round: text('round'),
+    lane: text('lane'),
+    notes: text('notes'),
+    elapsedSeconds: real('elapsed_seconds'),
+    speedMph: real('speed_mph'),
+    recordedBy: text('recorded_by').references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (table) => [index('runs_car_at_idx').on(table.carId, table.at), index('runs_team_at_idx').on(table.teamId, table.at)],
+);
+
+export type Car = typeof cars.$inferSelect;
+export type Assembly = typeof assemblies.$inferSelect;
+export type Part = typeof parts.$inferSelect;
+export type InstallationEvent = typeof installationEvents.$inferSelect;
+export type Run = typeof runs.$inferSelect;

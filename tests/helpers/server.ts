@@ -11,6 +11,9 @@ import { join, resolve } from 'node:path';
 
 export const PROJECT_ROOT = resolve(import.meta.dirname, '../..');
 
+/** The built server; LASHLINE_DIST points elsewhere (`astro build --outDir …`) so two builds can coexist. */
+export const SERVER_ENTRY = join(resolve(PROJECT_ROOT, process.env.LASHLINE_DIST ?? 'dist'), 'server', 'entry.mjs');
+
 export interface RunningServer {
   baseUrl: string;
   port: number;
@@ -92,7 +95,7 @@ export async function startServer(options: ServerOptions = {}): Promise<RunningS
   let child: ChildProcess;
   const baseUrl = `http://127.0.0.1:${port}`;
   const launch = async (): Promise<void> => {
-    child = spawn(process.execPath, ['dist/server/entry.mjs'], { cwd: PROJECT_ROOT, env, stdio: ['ignore', 'pipe', 'pipe'] });
+    child = spawn(process.execPath, [SERVER_ENTRY], { cwd: PROJECT_ROOT, env, stdio: ['ignore', 'pipe', 'pipe'] });
     child.stdout?.on('data', (chunk) => (log += chunk));
     child.stderr?.on('data', (chunk) => (log += chunk));
     await waitForHealth(baseUrl, child, () => log);

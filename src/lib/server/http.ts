@@ -15,6 +15,13 @@ export class HttpError extends Error {
 
 export const MAX_JSON_BYTES = 1024 * 1024;
 
+/** Body limits above the 1 MB default, by route: photo uploads and CSV imports. */
+export function bodyLimitFor(pathname: string): number {
+  if (/^\/api\/inspections\/[^/]+\/photos$/.test(pathname)) return 16 * 1024 * 1024;
+  if (pathname === '/api/runs/import') return 5 * 1024 * 1024;
+  return MAX_JSON_BYTES;
+}
+
 /** A JSON response with the exact status. */
 export function json(body: unknown, status = 200, headers: Record<string, string> = {}): Response {
   return new Response(JSON.stringify(body), {

@@ -1,0 +1,147 @@
+import { randomUUID } from 'node:crypto';
+import { and, asc, eq } from 'drizzle-orm';
+import type { z } from 'zod';
+import { getDb, write } from '../../../db/client';
+import { installationEvents, parts, type Part } from '../../../db/schema';
+import { ratioToLabel, teethToRatio } from '../../register/gear-ratio';
+import type { PartKind } from '../../register/kinds';
+import type { partCreateSchema, partUpdateSchema } from '../../register/schemas';
+import { defaultLifeLimit } from '../../register/team-settings';
+import type { TeamAccess } from '../guard';
+import { HttpError } from '../http';
+import { recordAudit } from '../audit';
+import { describeTarget, listCurrentInstalls } from './locations';
+import { countRunsForParts } from './run-counts';
+import { readTeamSettings } from './team-settings';
+
+export interface PartView {
+  id: string;
+  kind: PartKind;
+  serial: string;
+  status: Part['status'];
+  lifeLimitRuns: number | null;
+  runsSinceInstall: number;
+  totalRuns: number;
+  /** Runs left to the life limit, counted on the part's whole life; null without a limit. */
+  runsLeft: number | null;
+  maker: string | null;
+  model: string | null;
+  material: string | null;
+  notes: string | null;
+  location: { targetType: 'assembly' | 'car'; targetId: string; label: string; since: string } | null;
+  ringTeeth?: number | null;
+  pinionTeeth?: number | null;
+  ratio?: number | null;
+  ratioLabel?: string | null;
+  pressureAngleDeg?: number | null;
+  createdAt: string;
+}
+
+function toView(part: Part, counts = { totalRuns: 0, runsSinceInstall: 0 }, location: PartView['location'] = null): PartView {
+  const view: PartView = {
+    id: part.id,
+    kind: part.kind,
+    serial: part.serial,
+    status: part.status,
+    lifeLimitRuns: part.lifeLimitRuns,
+    runsSinceInstall: counts.runsSinceInstall,
+    totalRuns: counts.totalRuns,
+    runsLeft: part.lifeLimitRuns === null ? null : part.lifeLimitRuns - counts.totalRuns,
+    maker: part.maker,
+    model: part.model,
+    material: part.material,
+    notes: part.notes,
+    location,
+    createdAt: part.createdAt.toISOString(),
+  };
+  if (part.kind === 'gear-set') {
+    const ratio = part.ringTeeth && part.pinionTeeth ? teethToRatio(part.ringTeeth, part.pinionTeeth) : null;
+    Object.assign(view, {
+      ringTeeth: part.ringTeeth,
+      pinionTeeth: part.pinionTeeth,
+      ratio,
+      ratioLabel: ratio === null ? null : ratioToLabel(ratio),
+      pressureAngleDeg: part.pressureAngleDeg ?? 20,
+    });
+  }
+  return view;
+}
+
+/** Every part of the team (optionally one kind), with derived run counts and where each one is. */
+export async function listParts(teamId: string, kind?: PartKind): Promise<PartView[]> {
+  const db = await getDb();
+  const where = kind ? and(eq(parts.teamId, teamId), eq(parts.kind, kind)) : eq(parts.teamId, teamId);
+  const rows = await db.select().from(parts).where(where).orderBy(asc(parts.kind), asc(parts.serial), asc(parts.id));
+  const [counts, installs] = await Promise.all([countRunsForParts(teamId), listCurrentInstalls(teamId)]);
+  const labels = new Map<string, string>();
+  const views: PartView[] = [];
+  for (const part of rows) {
+    const install = installs.find((i) => i.subjectType === 'part' && i.subjectId === part.id);
+    let location: PartView['location'] = null;
+    if (install) {
+      const key = `${install.targetType}:${install.targetId}`;
+      if (!labels.has(key)) labels.set(key, await describeTarget(db, install.targetType, install.targetId));
+      location = { targetType: install.targetType, targetId: install.targetId, label: labels.get(key)!, since: install.since.toISOString() };
+    }
+    views.push(toView(part, counts.get(part.id), location));
+  }
+  return views;
+}
+
+/** One part of the team; 404 for another team's part or an unknown id. */
+export async function getPart(teamId: string, partId: string): Promise<PartView> {
+  const found = (await listParts(teamId)).find((p) => p.id === partId);
+  if (!found) throw new HttpError(404, 'No such part in this team.');
+  return found;
+}
+
+export async function createPart(access: TeamAccess, input: z.infer<typeof partCreateSchema>): Promise<PartView> {
+  const settings = await readTeamSettings(access.team.id);
+  const lifeLimitRuns = input.lifeLimitRuns === undefined ? defaultLifeLimit(settings, input.kind) : input.lifeLimitRuns;
+  const part = await write(async (tx) => {
+    const clash = await tx.select({ id: parts.id }).from(parts).where(and(eq(parts.teamId, access.team.id), eq(parts.kind, input.kind), eq(parts.serial, input.serial))).get();
+    if (clash) throw new HttpError(409, `serial: the team already has a ${input.kind} with serial ${input.serial}.`, { serial: 'already used' });
+    const [row] = await tx
+      .insert(parts)
+      .values({ ...input, id: randomUUID(), teamId: access.team.id, status: input.status ?? 'spare', lifeLimitRuns })
+      .returning();
+    if (!row) throw new Error('insert returned no row');
+    await recordAudit(tx, { teamId: access.team.id, actorId: access.user.id, action: 'create', recordType: 'part', recordId: row.id, after: row });
+    return row;
+  });
+  return toView(part);
+}
+
+export async function updatePart(access: TeamAccess, partId: string, changes: z.infer<typeof partUpdateSchema>): Promise<PartView> {
+  await write(async (tx) => {
+    const before = await tx.select().from(parts).where(and(eq(parts.id, partId), eq(parts.teamId, access.team.id))).get();
+    if (!before) throw new HttpError(404, 'No such part in this team.');
+    if (before.kind !== 'gear-set' && (changes.ringTeeth !== undefined || changes.pinionTeeth !== undefined)) {
+      throw new HttpError(400, 'ringTeeth: only a gear set has tooth counts.', { ringTeeth: 'not a gear set' });
+    }
+    const ring = changes.ringTeeth ?? before.ringTeeth;
+    const pinion = changes.pinionTeeth ?? before.pinionTeeth;
+    if (before.kind === 'gear-set' && ring !== null && pinion !== null && ring <= pinion) {
+      throw new HttpError(400, 'ringTeeth: the ring gear has more teeth than the pinion.', { ringTeeth: 'not more than pinion' });
+    }
+    if (changes.serial && changes.serial !== before.serial) {
+      const clash = await tx.select({ id: parts.id }).from(parts).where(and(eq(parts.teamId, access.team.id), eq(parts.kind, before.kind), eq(parts.serial, changes.serial))).get();
+      if (clash) throw new HttpError(409, `serial: the team already has a ${before.kind} with serial ${changes.serial}.`, { serial: 'already used' });
+    }
+    const [after] = await tx.update(parts).set(changes).where(eq(parts.id, partId)).returning();
+    await recordAudit(tx, { teamId: access.team.id, actorId: access.user.id, action: 'update', recordType: 'part', recordId: partId, before, after });
+  });
+  return getPart(access.team.id, partId);
+}
+
+/** Deletes a part that was never installed; one with a history is retired or scrapped instead (409). */
+export async function deletePart(access: TeamAccess, partId: string): Promise<void> {
+  await write(async (tx) => {
+    const before = await tx.select().from(parts).where(and(eq(parts.id, partId), eq(parts.teamId, access.team.id))).get();
+    if (!before) throw new HttpError(404, 'No such part in this team.');
+    const history = await tx.select({ id: installationEvents.id }).from(installationEvents).where(and(eq(installationEvents.subjectType, 'part'), eq(installationEvents.subjectId, partId))).limit(1).get();
+    if (history) throw new HttpError(409, 'This part has an installation history; set its status to retired or scrapped instead of deleting it.');
+    await tx.delete(parts).where(eq(parts.id, partId));
+    await recordAudit(tx, { teamId: access.team.id, actorId: access.user.id, action: 'delete', recordType: 'part', recordId: partId, before });
+  });
+}

@@ -1,0 +1,3 @@
+import { partItemRoutes } from '../../../lib/server/register/part-routes';
+
+export const { GET, PATCH, DELETE } = partItemRoutes();

@@ -1,0 +1,20 @@
+import { runUpdateSchema } from '../../../lib/register/schemas';
+import { requireMember, requirePermission } from '../../../lib/server/guard';
+import { handle, json, readJson } from '../../../lib/server/http';
+import { deleteRun, getRun, updateRun } from '../../../lib/server/register/runs';
+
+export const GET = handle(async ({ locals, params }) => {
+  const { team } = requireMember(locals);
+  return json(await getRun(team.id, params.id ?? ''));
+});
+
+/** Crew chief or owner; every count the run touched follows. */
+export const PATCH = handle(async ({ locals, params, request }) => {
+  const access = requirePermission(locals, 'runs:edit');
+  return json(await updateRun(access, params.id ?? '', await readJson(request, runUpdateSchema)));
+});
+
+export const DELETE = handle(async ({ locals, params }) => {
+  await deleteRun(requirePermission(locals, 'runs:edit'), params.id ?? '');
+  return new Response(null, { status: 204 });
+});
