@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ApiClient, TEST_PASSWORD, signedInClient, uniqueEmail } from '../helpers/api-client';
 import { startServer, type RunningServer } from '../helpers/server';
 import { SmtpFake } from '../helpers/smtp-fake';
+import { joinByInvitation } from '../helpers/team';
 
 let server: RunningServer;
 let smtp: SmtpFake;
@@ -25,14 +26,7 @@ async function inviteAndCatchToken(owner: ApiClient, email: string, role: string
   return token;
 }
 
-async function joinAs(owner: ApiClient, role: string) {
-  const email = uniqueEmail(role);
-  const token = await inviteAndCatchToken(owner, email, role);
-  const person = await signedInClient(server.baseUrl, { email });
-  const accepted = await person.client.post('/api/invitations/accept', { token });
-  expect(accepted.status).toBe(200);
-  return person;
-}
+const joinAs = (owner: ApiClient, role: string) => joinByInvitation(server.baseUrl, smtp, owner, role);
 
 describe('teams, roles and invitations', () => {
   it('makes the creator the owner and the team current', async () => {
