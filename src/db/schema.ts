@@ -169,6 +169,8 @@ export const parts = sqliteTable(
     ringTeeth: integer('ring_teeth'),
     pinionTeeth: integer('pinion_teeth'),
     pressureAngleDeg: real('pressure_angle_deg'),
+    // The tolerance profile the set is judged by; null means the team's default profile.
+    toleranceProfileId: text('tolerance_profile_id'),
     createdAt: createdAt(),
   },
   (table) => [
@@ -235,3 +237,94 @@ export type Assembly = typeof assemblies.$inferSelect;
 export type Part = typeof parts.$inferSelect;
 export type InstallationEvent = typeof installationEvents.$inferSelect;
 export type Run = typeof runs.$inferSelect;
+
+// ---------------------------------------------------------------------------------------------
+// Tolerance profiles and inspections
+
+/**
+ * Tolerance profiles, versioned: editing a profile adds a version, and an inspection keeps the
+ * version it was judged by. `values` is a ToleranceProfile in canonical units (mm, N·m).
+ */
+export const toleranceProfileVersions = sqliteTable(
+  'tolerance_profile_versions',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    profileId: text('profile_id').notNull(),
+    version: integer('version').notNull(),
+    name: text('name').notNull(),
+    values: text('values', { mode: 'json' }).notNull(),
+    createdBy: text('created_by').references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (table) => [uniqueIndex('profile_version_idx').on(table.profileId, table.version), index('profile_team_idx').on(table.teamId)],
+);
+
+export const INSPECTION_STATUSES = ['draft', 'submitted'] as const;
+
+/**
+ * One teardown inspection of a gear set. `data` holds every measurement in canonical units (mm,
+ * N·m) with the entry unit and the resolution beside it (src/lib/inspection/record.ts).
+ */
+export const inspections = sqliteTable(
+  'inspections',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    gearSetId: text('gear_set_id')
+      .notNull()
+      .references(() => parts.id),
+    assemblyId: text('assembly_id').references(() => assemblies.id),
+    status: text('status', { enum: INSPECTION_STATUSES }).notNull().default('draft'),
+    inspectedAt: integer('inspected_at', { mode: 'timestamp_ms' }).notNull(),
+    runsAtInspection: integer('runs_at_inspection').notNull(),
+    data: text('data', { mode: 'json' }).notNull(),
+    profileVersionId: text('profile_version_id').references(() => toleranceProfileVersions.id),
+    technicianId: text('technician_id').references(() => users.id),
+    createdBy: text('created_by')
+      .notNull()
+      .references(() => users.id),
+    idempotencyKey: text('idempotency_key'),
+    submittedAt: integer('submitted_at', { mode: 'timestamp_ms' }),
+    submittedBy: text('submitted_by').references(() => users.id),
+    revision: integer('revision').notNull().default(1),
+    createdAt: createdAt(),
+    updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
+  },
+  (table) => [
+    index('inspections_gear_set_idx').on(table.gearSetId, table.inspectedAt),
+    index('inspections_team_idx').on(table.teamId, table.inspectedAt),
+    uniqueIndex('inspections_idempotency_idx').on(table.teamId, table.idempotencyKey),
+  ],
+);
+
+export const inspectionPhotos = sqliteTable(
+  'inspection_photos',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    inspectionId: text('inspection_id')
+      .notNull()
+      .references(() => inspections.id, { onDelete: 'cascade' }),
+    side: text('side', { enum: ['drive', 'coast'] }).notNull(),
+    storageKey: text('storage_key').notNull(),
+    thumbnailKey: text('thumbnail_key').notNull(),
+    contentType: text('content_type').notNull(),
+    width: integer('width').notNull(),
+    height: integer('height').notNull(),
+    bytes: integer('bytes').notNull(),
+    createdBy: text('created_by').references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (table) => [index('photos_inspection_idx').on(table.inspectionId)],
+);
+
+export type ToleranceProfileVersion = typeof toleranceProfileVersions.$inferSelect;
+export type Inspection = typeof inspections.$inferSelect;
+export type InspectionPhoto = typeof inspectionPhotos.$inferSelect;
