@@ -3,6 +3,7 @@ import { getDb, write } from '../src/db/client';
 import { teams } from '../src/db/schema';
 import { seedPeople } from './people';
 import { seedRegister } from './register';
+import { seedInspections } from './inspections';
 
 /**
  * The demo scenario: an invented team, its people, and (as the product grows) its cars, gear sets,
@@ -12,9 +13,11 @@ export async function seedDemo(): Promise<{ seeded: boolean; reason?: string }> 
   const db = await getDb();
   const row = await db.get<{ n: number }>(sql`SELECT count(*) AS n FROM ${teams}`);
   if (Number(row?.n ?? 0) > 0) return { seeded: false, reason: 'the database already holds a team' };
-  await write(async (tx) => {
+  const { people, register } = await write(async (tx) => {
     const people = await seedPeople(tx);
-    await seedRegister(tx, people);
+    return { people, register: await seedRegister(tx, people) };
   });
+  // Inspections read the committed run log to know how many runs each set had at its teardown.
+  await seedInspections(people, register);
   return { seeded: true };
 }
