@@ -328,3 +328,100 @@ export const inspectionPhotos = sqliteTable(
 export type ToleranceProfileVersion = typeof toleranceProfileVersions.$inferSelect;
 export type Inspection = typeof inspections.$inferSelect;
 export type InspectionPhoto = typeof inspectionPhotos.$inferSelect;
+
+// ---------------------------------------------------------------------------------------------
+// Reviews, decisions and notices
+
+export const REVIEW_DECISIONS = ['keep', 'reshim', 'retire'] as const;
+
+/**
+ * A review of a gear set. `snapshot` freezes the evidence when the review opens (analysis,
+ * verdicts, trend, recommendation, photos), so the decision reads later exactly as it was made.
+ */
+export const reviews = sqliteTable(
+  'reviews',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    gearSetId: text('gear_set_id')
+      .notNull()
+      .references(() => parts.id),
+    status: text('status', { enum: ['open', 'decided'] }).notNull().default('open'),
+    snapshot: text('snapshot', { mode: 'json' }).notNull(),
+    openedBy: text('opened_by')
+      .notNull()
+      .references(() => users.id),
+    statusBefore: text('status_before', { enum: PART_STATUSES }).notNull(),
+    decision: text('decision', { enum: REVIEW_DECISIONS }),
+    reason: text('reason'),
+    notes: text('notes'),
+    reinspectAfterRuns: integer('reinspect_after_runs'),
+    /** The set's total runs at which the re-inspection falls due. */
+    reinspectAtRuns: integer('reinspect_at_runs'),
+    runsAtDecision: integer('runs_at_decision'),
+    decidedBy: text('decided_by').references(() => users.id),
+    decidedAt: integer('decided_at', { mode: 'timestamp_ms' }),
+    reminderQueuedAt: integer('reminder_queued_at', { mode: 'timestamp_ms' }),
+    createdAt: createdAt(),
+  },
+  (table) => [index('reviews_team_idx').on(table.teamId, table.status), index('reviews_gear_set_idx').on(table.gearSetId)],
+);
+
+export const reviewComments = sqliteTable(
+  'review_comments',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    reviewId: text('review_id')
+      .notNull()
+      .references(() => reviews.id, { onDelete: 'cascade' }),
+    authorId: text('author_id')
+      .notNull()
+      .references(() => users.id),
+    body: text('body').notNull(),
+    mentions: text('mentions', { mode: 'json' }).notNull(),
+    createdAt: createdAt(),
+  },
+  (table) => [index('review_comments_review_idx').on(table.reviewId)],
+);
+
+export const NOTICE_KINDS = ['review-opened', 'decision-made', 'mention', 'near-limit', 'life-reached', 'reinspect-due'] as const;
+
+/** Which notices a person wants from a team; a missing row means all of them. */
+export const noticePreferences = sqliteTable(
+  'notice_preferences',
+  {
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    muted: text('muted', { mode: 'json' }).notNull(),
+    updatedAt: createdAt(),
+  },
+  (table) => [primaryKey({ columns: [table.userId, table.teamId] })],
+);
+
+/** Thresholds already announced for a part, so each one is announced once, not once per later run. */
+export const partNotices = sqliteTable(
+  'part_notices',
+  {
+    partId: text('part_id')
+      .notNull()
+      .references(() => parts.id, { onDelete: 'cascade' }),
+    threshold: text('threshold').notNull(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    createdAt: createdAt(),
+  },
+  (table) => [primaryKey({ columns: [table.partId, table.threshold] })],
+);
+
+export type Review = typeof reviews.$inferSelect;
+export type ReviewComment = typeof reviewComments.$inferSelect;

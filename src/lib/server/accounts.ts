@@ -7,6 +7,9 @@ import { HttpError } from './http';
 import { getDecoyHash, hashPassword, verifyPassword } from './password';
 import { recordAudit } from './audit';
 
+/** The password hash of an account a team import made: it matches no password until claimed. */
+export const IMPORTED_ACCOUNT_HASH = 'imported-account:no-password';
+
 export interface PublicUser {
   id: string;
   email: string;
@@ -26,7 +29,13 @@ export function userToPublic(user: User): PublicUser {
 export async function createAccount(input: SignUpInput): Promise<User> {
   const passwordHash = await hashPassword(input.password);
   return write(async (tx) => {
-    const existing = await tx.select({ id: users.id }).from(users).where(eq(users.email, input.email)).get();
+    const existing = await tx.select({ id: users.id, passwordHash: users.passwordHash }).from(users).where(eq(users.email, input.email)).get();
+    // An account made by a team import has no password yet; signing up with its e-mail claims it.
+    if (existing?.passwordHash === IMPORTED_ACCOUNT_HASH) {
+      const [claimed] = await tx.update(users).set({ passwordHash, name: input.name }).where(eq(users.id, existing.id)).returning();
+      await recordAudit(tx, { teamId: null, actorId: existing.id, action: 'claim', recordType: 'account', recordId: existing.id });
+      return claimed!;
+    }
     if (existing) throw new HttpError(409, 'An account with this e-mail already exists; sign in instead.', { email: 'already registered' });
     const [user] = await tx
       .insert(users)

@@ -2,6 +2,8 @@ import { runUpdateSchema } from '../../../lib/register/schemas';
 import { requireMember, requirePermission } from '../../../lib/server/guard';
 import { handle, json, readJson } from '../../../lib/server/http';
 import { deleteRun, getRun, updateRun } from '../../../lib/server/register/runs';
+import { resolveBaseUrl } from '../../../lib/server/base-url';
+import { afterRunsChanged } from '../../../lib/server/notices/after-runs';
 
 export const GET = handle(async ({ locals, params }) => {
   const { team } = requireMember(locals);
@@ -9,9 +11,11 @@ export const GET = handle(async ({ locals, params }) => {
 });
 
 /** Crew chief or owner; every count the run touched follows. */
-export const PATCH = handle(async ({ locals, params, request }) => {
+export const PATCH = handle(async ({ locals, params, request, url }) => {
   const access = requirePermission(locals, 'runs:edit');
-  return json(await updateRun(access, params.id ?? '', await readJson(request, runUpdateSchema)));
+  const run = await updateRun(access, params.id ?? '', await readJson(request, runUpdateSchema));
+  await afterRunsChanged(access.team.id, resolveBaseUrl(url));
+  return json(run);
 });
 
 export const DELETE = handle(async ({ locals, params }) => {

@@ -2,6 +2,8 @@ import { z } from 'zod';
 import { requirePermission } from '../../../lib/server/guard';
 import { handle, json, parseWith, readBodyText } from '../../../lib/server/http';
 import { importRuns } from '../../../lib/server/register/runs';
+import { resolveBaseUrl } from '../../../lib/server/base-url';
+import { afterRunsChanged } from '../../../lib/server/notices/after-runs';
 
 const MAX_IMPORT_BYTES = 5 * 1024 * 1024;
 
@@ -21,6 +23,7 @@ export const POST = handle(async ({ locals, request, url }) => {
   if (type.startsWith('text/csv')) {
     const dryRun = url.searchParams.get('dryRun') === '1';
     const result = await importRuns(access, { csv: text }, dryRun);
+    if (!dryRun) await afterRunsChanged(access.team.id, resolveBaseUrl(url));
     return json(result, dryRun ? 200 : 201);
   }
   let raw: unknown;
@@ -31,5 +34,6 @@ export const POST = handle(async ({ locals, request, url }) => {
   }
   const body = parseWith(recordsBodySchema, raw);
   const result = await importRuns(access, { records: body.records }, body.dryRun ?? false);
+  if (!body.dryRun) await afterRunsChanged(access.team.id, resolveBaseUrl(url));
   return json(result, body.dryRun ? 200 : 201);
 });

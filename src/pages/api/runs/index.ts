@@ -5,6 +5,8 @@ import { requireMember, requirePermission } from '../../../lib/server/guard';
 import { handle, json, parseWith, readJson } from '../../../lib/server/http';
 import { readListQuery } from '../../../lib/server/list-query';
 import { createRun, listRuns } from '../../../lib/server/register/runs';
+import { resolveBaseUrl } from '../../../lib/server/base-url';
+import { afterRunsChanged } from '../../../lib/server/notices/after-runs';
 
 export const GET = handle(async ({ locals, url }) => {
   const { team } = requireMember(locals);
@@ -14,7 +16,9 @@ export const GET = handle(async ({ locals, url }) => {
 });
 
 /** `{ carId, at, event?, round?, lane?, notes?, elapsedSeconds?, speedMph? }` → 201. */
-export const POST = handle(async ({ locals, request }) => {
+export const POST = handle(async ({ locals, request, url }) => {
   const access = requirePermission(locals, 'runs:record');
-  return json(await createRun(access, await readJson(request, runCreateSchema)), 201);
+  const run = await createRun(access, await readJson(request, runCreateSchema));
+  await afterRunsChanged(access.team.id, resolveBaseUrl(url));
+  return json(run, 201);
 });
