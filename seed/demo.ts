@@ -4,6 +4,7 @@ import { teams } from '../src/db/schema';
 import { seedPeople } from './people';
 import { seedRegister } from './register';
 import { seedInspections } from './inspections';
+import { seedReviews } from './reviews';
 
 /**
  * The demo scenario: an invented team, its people, and (as the product grows) its cars, gear sets,
@@ -19,5 +20,6 @@ export async function seedDemo(): Promise<{ seeded: boolean; reason?: string }> 
   });
   // Inspections read the committed run log to know how many runs each set had at its teardown.
   await seedInspections(people, register);
+  await seedReviews(people, register);
   return { seeded: true };
 }

@@ -43,7 +43,8 @@ export async function seedRegister(tx: Transaction, people: SeededPeople): Promi
   const gearSetIds: Record<string, string> = {
     'GS-4101': await gear('GS-4101', 'in-service', 40, 9, 'Went into RE-01 in May after GS-4103 came out.'),
     'GS-4102': await gear('GS-4102', 'in-service', 41, 10, 'Blackwater set all season.'),
-    'GS-4103': await gear('GS-4103', 'retired', 40, 9, 'Retired early after spalling on the drive side.'),
+    // Retired by the demo review in seed/reviews.ts.
+    'GS-4103': await gear('GS-4103', 'spare', 40, 9, 'Retired early after spalling on the drive side.'),
     'GS-4104': await gear('GS-4104', 'spare', 41, 10, 'New, on the shelf.'),
     'GS-4105': await gear('GS-4105', 'spare', 43, 10, 'Short-track ratio, never run.'),
     'GS-4106': await gear('GS-4106', 'in-service', 41, 10, 'Lives in the spare rear end; ran one event in Blackwater.'),
