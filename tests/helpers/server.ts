@@ -90,6 +90,8 @@ export async function startServer(options: ServerOptions = {}): Promise<RunningS
     SMTP_PORT: '9',
     ...options.env,
   };
+  // An empty value in options.env removes the variable (e.g. SMTP_HOST: '' to use the built-in mail catcher).
+  for (const [name, value] of Object.entries(env)) if (value === '') delete env[name];
   await runToEnd(process.execPath, ['--import', 'tsx', 'scripts/prepare.ts'], env);
   let log = '';
   let child: ChildProcess;

@@ -1,6 +1,7 @@
 // What to do with a gear set: keep, watch, re-shim (set up again) or retire, with every reason listed.
 // Precedence retire > re-shim > watch > keep: the strongest reason sets the action, none is dropped.
 
+import { measureToLabel } from './measure-labels';
 import type { PatternGuidance } from './contact-pattern';
 import type { Verdict } from './judge';
 import type { TrendProjection } from './trend';
@@ -49,6 +50,8 @@ const OUT_OF_BAND: Readonly<Record<string, string>> = {
     'Backlash at the loosest point is outside the band: reset it with the carrier shims, and check the variation between points.',
   spread:
     'Variation between points is over the limit. It points to burrs, a distorted case flange, uneven bolting or debris (GM 1996): take the carrier down, clean and check before setting up again; shims alone will not even it out.',
+  'runout-measured':
+    'Measured back-face runout is over the limit. Shimming moves the whole gear and cannot cure runout: check the ring gear seats flat, its bolts, and the case flange runout (Ford 1997); a bent case or gear is replaced.',
   runout:
     'Estimated ring-gear runout is over the limit. Shimming moves the whole gear and cannot cure runout: check the ring gear seats flat, its bolts, and the case flange runout (Ford 1997); a bent case or gear is replaced.',
 };
@@ -98,14 +101,14 @@ function collectReasons(input: RecommendationInput): RecommendationReason[] {
   }
   for (const { measure, verdict } of input.verdicts ?? []) {
     if (verdict === 'out-of-band') {
-      const message = OUT_OF_BAND[measure] ?? `${measure} is outside its band: set it up again to the maker's figures.`;
+      const message = OUT_OF_BAND[measure] ?? `${measureToLabel(measure)} is outside its band: set it up again to the maker's figures.`;
       add(`${measure}-out-of-band`, 're-shim', 'critical', message);
     } else if (verdict === 'near-limit') {
       add(
         `${measure}-near-limit`,
         'watch',
         'warning',
-        `${measure} is near its limit: check it again at the next inspection.`,
+        `${measureToLabel(measure)} is near its limit: check it again at the next inspection.`,
       );
     }
   }
@@ -115,7 +118,7 @@ function collectReasons(input: RecommendationInput): RecommendationReason[] {
     if (runsLeft === null || runsLeft > interval) continue;
     // A backlash heading out of its band is corrected with shims now rather than found out of band later.
     const action: RecommendedAction = isBacklash(measure) ? 're-shim' : 'watch';
-    const when = alreadyPast ? 'The trend line is already past' : `At this rate ${measure} reaches`;
+    const when = alreadyPast ? `The ${measureToLabel(measure).toLowerCase()} trend line is already past` : `At this rate the ${measureToLabel(measure).toLowerCase()} reaches`;
     add(
       `${measure}-limit-before-next-service`,
       action,

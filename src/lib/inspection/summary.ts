@@ -48,7 +48,7 @@ export function summariseInspection(data: InspectionData, profile: ToleranceProf
   const near = profile.nearShare;
   if (data.runoutMm.backFace !== null) {
     const value = len(data.runoutMm.backFace);
-    verdicts.push({ measure: 'runout', value, ...judgeRange(value, { max: len(profile.runoutMax) }, near), unit });
+    verdicts.push({ measure: 'runout-measured' as MeasureVerdict['measure'], value, ...judgeRange(value, { max: len(profile.runoutMax) }, near), unit });
   }
   if (data.preload.pinionNm !== null) {
     const band = data.preload.bearings === 'new' ? profile.pinionPreloadNew : profile.pinionPreloadUsed;

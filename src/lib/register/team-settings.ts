@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { PartKind } from './kinds';
+import { DEFAULT_RETIREMENT_REASONS } from '../reviews/schemas';
 
 /**
  * Team-wide defaults. Life limits: no published intervals exist (TRADE.md "Life in runs"); the two
@@ -40,6 +41,8 @@ export const teamSettingsSchema = z.object({
   serviceIntervalRuns: z.number().int().min(1).max(10_000),
   /** How many ring-gear positions a new inspection asks for. */
   backlashPositions: z.number().int().min(3).max(24),
+  /** The reasons offered when a set is retired; free text is always allowed too. */
+  retirementReasons: z.array(z.string().trim().min(1).max(200)).max(40),
 });
 
 export type TeamSettings = z.infer<typeof teamSettingsSchema>;
@@ -49,6 +52,7 @@ export const DEFAULT_TEAM_SETTINGS: TeamSettings = {
   nearShare: 0.1,
   serviceIntervalRuns: 8,
   backlashPositions: 4,
+  retirementReasons: [...DEFAULT_RETIREMENT_REASONS],
 };
 
 /** The stored settings over the defaults; unknown or bad stored values fall back to the default. */
