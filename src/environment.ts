@@ -21,7 +21,17 @@ const environmentSchema = z.object({
   MAIL_FROM: z.string().default('Lashline <no-reply@lashline.test>'),
   LASHLINE_DEMO: z.enum(['on', 'off']).default('on'),
   MAIL_CATCHER: z.enum(['on', 'off']).optional(),
+  // Photos go to an S3-compatible bucket when S3_BUCKET is set, else to DATA_DIR/photos.
+  S3_BUCKET: z.string().min(1).optional(),
+  S3_ENDPOINT: z.url('must be a full URL such as http://127.0.0.1:9000').optional(),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+  S3_FORCE_PATH_STYLE: z.enum(['true', 'false']).default('true'),
   NODE_ENV: z.string().optional(),
+}).refine((env) => !env.S3_ACCESS_KEY_ID === !env.S3_SECRET_ACCESS_KEY, {
+  path: ['S3_SECRET_ACCESS_KEY'],
+  message: 'set S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY together, or neither (the SDK then finds credentials itself)',
 });
 
 export type Environment = z.infer<typeof environmentSchema>;

@@ -43,7 +43,7 @@ const apiGate = defineMiddleware(async ({ request, url }, next) => {
   const declared = Number(request.headers.get('content-length') ?? '0');
   const limit = bodyLimitFor(url.pathname);
   if (declared > limit) {
-    return errorResponse(new HttpError(413, `The request body is larger than ${limit / (1024 * 1024)} MB; send less.`));
+    return errorResponse(new HttpError(413, `The request body is larger than ${Math.floor(limit / (1024 * 1024))} MB; send less.`));
   }
   return next();
 });

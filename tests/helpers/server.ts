@@ -13,6 +13,8 @@ export const PROJECT_ROOT = resolve(import.meta.dirname, '../..');
 
 /** The built server; LASHLINE_DIST points elsewhere (`astro build --outDir …`) so two builds can coexist. */
 export const SERVER_ENTRY = join(resolve(PROJECT_ROOT, process.env.LASHLINE_DIST ?? 'dist'), 'server', 'entry.mjs');
+/** What `npm start` serves with: the built app behind the security-header wrapper. */
+const SERVE_SCRIPT = join(PROJECT_ROOT, 'scripts', 'serve.ts');
 
 export interface RunningServer {
   baseUrl: string;
@@ -82,6 +84,7 @@ export async function startServer(options: ServerOptions = {}): Promise<RunningS
     ASTRO_TELEMETRY_DISABLED: '1',
     DATABASE_URL: databaseUrl,
     DATA_DIR: dataDir,
+    LASHLINE_DIST: resolve(PROJECT_ROOT, process.env.LASHLINE_DIST ?? 'dist'),
     HOST: '127.0.0.1',
     PORT: String(port),
     LASHLINE_DEMO: options.demo ? 'on' : 'off',
@@ -97,7 +100,7 @@ export async function startServer(options: ServerOptions = {}): Promise<RunningS
   let child: ChildProcess;
   const baseUrl = `http://127.0.0.1:${port}`;
   const launch = async (): Promise<void> => {
-    child = spawn(process.execPath, [SERVER_ENTRY], { cwd: PROJECT_ROOT, env, stdio: ['ignore', 'pipe', 'pipe'] });
+    child = spawn(process.execPath, ['--import', 'tsx', SERVE_SCRIPT], { cwd: PROJECT_ROOT, env, stdio: ['ignore', 'pipe', 'pipe'] });
     child.stdout?.on('data', (chunk) => (log += chunk));
     child.stderr?.on('data', (chunk) => (log += chunk));
     await waitForHealth(baseUrl, child, () => log);

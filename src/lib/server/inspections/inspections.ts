@@ -12,6 +12,7 @@ import { HttpError } from '../http';
 import { recordAudit } from '../audit';
 import { requireChangeableInspection, requireTeamInspection } from './access';
 import { getProfileVersion, profileForGearSet } from './profiles';
+import { photoKeysOfInspection, removeObjects } from '../photos';
 
 export interface InspectionView extends ReturnType<typeof dataToEntry> {
   id: string;
@@ -159,10 +160,14 @@ export async function submitInspection(access: TeamAccess, inspectionId: string)
 export async function deleteDraft(access: TeamAccess, inspectionId: string): Promise<void> {
   const row = await requireChangeableInspection(access, inspectionId);
   if (row.status === 'submitted') throw new HttpError(409, 'A submitted inspection is kept; edit it instead.');
-  await write(async (tx) => {
+  const photoKeys = await write(async (tx) => {
+    const keys = await photoKeysOfInspection(tx, row.id);
     await tx.delete(inspections).where(eq(inspections.id, row.id));
     await recordAudit(tx, { teamId: access.team.id, actorId: access.user.id, action: 'delete', recordType: 'inspection', recordId: row.id, before: rowToDraftInput(row) });
+    return keys;
   });
+  // The rows went with the draft (cascade); the stored images go once that has committed.
+  await removeObjects(photoKeys);
 }
 
 /** A gear set's inspections, oldest first. */

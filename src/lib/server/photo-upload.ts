@@ -1,0 +1,61 @@
+import { MAX_PHOTO_BYTES, MULTIPART_OVERHEAD_BYTES, photoFieldsSchema, type PhotoSide } from '../photos/upload-rules';
+import { HttpError, parseWith } from './http';
+
+export interface PhotoUpload {
+  bytes: Uint8Array;
+  side: PhotoSide;
+}
+
+const MAX_BODY_BYTES = MAX_PHOTO_BYTES + MULTIPART_OVERHEAD_BYTES;
+const LIMIT_MB = MAX_PHOTO_BYTES / (1024 * 1024);
+
+/**
+ * Reads the multipart/form-data of a photo upload (`file`, `side`): 415 for another content type;
+ * 413 when the declared Content-Length or the bytes actually streamed pass the limit (the count
+ * stops reading there, so a chunked body without a length cannot get round it), or the file alone
+ * does; 400 naming `file` or `side`. Only then does Node's own parser (undici) read the form.
+ */
+export async function readPhotoUpload(request: Request): Promise<PhotoUpload> {
+  const type = request.headers.get('content-type') ?? '';
+  if (!/^multipart\/form-data\s*;/i.test(type)) {
+    throw new HttpError(415, 'Send the photo as multipart/form-data, with the image in the field file and drive or coast in side.');
+  }
+  if (Number(request.headers.get('content-length') ?? '0') > MAX_BODY_BYTES) throw tooLarge();
+  const body = await readAtMost(request, MAX_BODY_BYTES);
+  let form: FormData;
+  try {
+    form = await new Response(body, { headers: { 'content-type': type } }).formData();
+  } catch {
+    throw new HttpError(400, 'The body is not valid multipart/form-data; send it the way a browser form does.');
+  }
+  const file = form.get('file');
+  if (file === null || typeof file === 'string') throw new HttpError(400, 'file: attach the photo as a file in the field file.', { file: 'missing' });
+  if (file.size === 0) throw new HttpError(400, 'file: the file is empty.', { file: 'empty' });
+  if (file.size > MAX_PHOTO_BYTES) throw tooLarge();
+  const { side } = parseWith(photoFieldsSchema, { side: form.get('side') ?? undefined });
+  return { bytes: new Uint8Array(await file.arrayBuffer()), side };
+}
+
+async function readAtMost(request: Request, maxBytes: number): Promise<Uint8Array<ArrayBuffer>> {
+  if (!request.body) return new Uint8Array();
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > maxBytes) {
+      await reader.cancel();
+      // The rest of the body stays unread, so the client must not reuse the connection.
+      throw tooLarge({ Connection: 'close' });
+    }
+    chunks.push(value);
+  }
+  const all = Buffer.concat(chunks);
+  return new Uint8Array(all.buffer as ArrayBuffer, all.byteOffset, all.byteLength);
+}
+
+function tooLarge(headers?: Record<string, string>): HttpError {
+  return new HttpError(413, `file: a photo may be at most ${LIMIT_MB} MB; send a smaller one.`, { file: `larger than ${LIMIT_MB} MB` }, headers);
+}
