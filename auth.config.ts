@@ -1,3 +1,4 @@
+import { CredentialsSignin } from '@auth/core/errors';
 import Credentials from '@auth/core/providers/credentials';
 import type { FullAuthConfig } from 'auth-astro/src/config';
 import { signInSchema } from './src/lib/account-schemas';
@@ -5,6 +6,12 @@ import { verifyCredentials } from './src/lib/server/accounts';
 import { resolveAuthSecret } from './src/lib/server/auth-secret';
 import { recordSignInOutcome } from './src/lib/server/sign-in-limiter';
 import { logSecurityEvent } from './src/lib/server/security-log';
+import { checkSecondFactor } from './src/lib/server/second-factor';
+
+/** The password was right and a second factor is on: the sign-in page asks for the code. */
+class SecondFactorNeeded extends CredentialsSignin {
+  code = 'second-factor';
+}
 
 // auth-astro reads import.meta.env, fixed at build time; the secret and host trust are given here
 // so they are read when the server starts.
@@ -25,12 +32,21 @@ const config: FullAuthConfig = {
   },
   providers: [
     Credentials({
-      credentials: { email: { label: 'E-mail' }, password: { label: 'Password', type: 'password' } },
+      credentials: { email: { label: 'E-mail' }, password: { label: 'Password', type: 'password' }, code: { label: 'Code' } },
       async authorize(raw) {
         const parsed = signInSchema.safeParse(raw);
         if (!parsed.success) return null;
         const { email, password } = parsed.data;
         const user = await verifyCredentials(email, password);
+        if (user?.totpEnabledAt) {
+          const code = typeof raw.code === 'string' ? raw.code.trim() : '';
+          const passed = code !== '' && (await checkSecondFactor(user, code));
+          if (!passed) {
+            recordSignInOutcome(email, false);
+            logSecurityEvent('sign-in-failed', { email, userId: user.id, reason: code ? 'wrong second-factor code' : 'second-factor code needed' });
+            throw new SecondFactorNeeded();
+          }
+        }
         recordSignInOutcome(email, Boolean(user));
         logSecurityEvent(user ? 'sign-in' : 'sign-in-failed', { email, userId: user?.id });
         if (!user) return null;

@@ -15,7 +15,7 @@ export async function seedReviews(people: SeededPeople, register: SeededRegister
   const accessOf = (role: 'crew-chief' | 'technician'): TeamAccess => {
     const account = DEMO_ACCOUNTS.find((a) => a.role === role)!;
     return {
-      user: { id: people.userIds[role], email: account.email, name: account.name, lengthUnit: 'in', torqueUnit: 'lbf-in', currentTeamId: people.teamId },
+      user: { id: people.userIds[role], email: account.email, name: account.name, lengthUnit: 'in', torqueUnit: 'lbf-in', currentTeamId: people.teamId, secondFactor: false },
       team: { id: people.teamId, name: DEMO_TEAM_NAME, role },
     };
   };

@@ -19,12 +19,20 @@ export const users = sqliteTable('users', {
   currentTeamId: text('current_team_id'),
   // Bumped whenever every other session of this person must end (password change, sign-out everywhere).
   sessionVersion: integer('session_version').notNull().default(1),
+  // Second factor (TOTP): the secret encrypted with a key derived from the session secret; recovery
+  // codes kept only as hashes. A pending secret waits for its first code before it counts.
+  totpSecret: text('totp_secret'),
+  totpPendingSecret: text('totp_pending_secret'),
+  totpEnabledAt: integer('totp_enabled_at', { mode: 'timestamp_ms' }),
+  recoveryCodeHashes: text('recovery_code_hashes', { mode: 'json' }).$type<string[]>(),
   createdAt: createdAt(),
 });
 
 export const teams = sqliteTable('teams', {
   id: text('id').primaryKey(),
   name: text('name').notNull(),
+  /** Owners and crew chiefs of this team must use a second factor (set by an owner). */
+  requireSecondFactor: integer('require_second_factor', { mode: 'boolean' }).notNull().default(false),
   createdAt: createdAt(),
 });
 

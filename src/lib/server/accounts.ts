@@ -17,12 +17,13 @@ export interface PublicUser {
   lengthUnit: User['lengthUnit'];
   torqueUnit: User['torqueUnit'];
   currentTeamId: string | null;
+  secondFactor: boolean;
 }
 
 /** The fields of a person that may leave the server. */
 export function userToPublic(user: User): PublicUser {
   const { id, email, name, lengthUnit, torqueUnit, currentTeamId } = user;
-  return { id, email, name, lengthUnit, torqueUnit, currentTeamId };
+  return { id, email, name, lengthUnit, torqueUnit, currentTeamId, secondFactor: Boolean(user.totpEnabledAt) };
 }
 
 /** Creates an account; 409 when the e-mail already has one. */

@@ -3,7 +3,7 @@ import { checkPageAccess, requireMember, requirePermission, requireUser } from '
 import { HttpError } from '../../../src/lib/server/http';
 import { PERMISSIONS, ROLES, roleCan, type Role } from '../../../src/lib/roles';
 
-const user = { id: 'u1', email: 'a@example.test', name: 'A', lengthUnit: 'in', torqueUnit: 'lbf-in', currentTeamId: 't1' } as const;
+const user = { id: 'u1', email: 'a@example.test', name: 'A', lengthUnit: 'in', torqueUnit: 'lbf-in', currentTeamId: 't1', secondFactor: false } as const;
 const localsFor = (role: Role | null, signedIn = true): App.Locals => ({
   user: signedIn ? { ...user } : null,
   team: role ? { id: 't1', name: 'Team', role } : null,

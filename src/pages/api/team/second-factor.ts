@@ -1,0 +1,18 @@
+import { requireSecondFactorSchema } from '../../../lib/account-security-schemas';
+import { readTeamSecondFactorRule, setTeamSecondFactorRule } from '../../../lib/server/account-security';
+import { requireMember, requirePermission } from '../../../lib/server/guard';
+import { handle, json, readJson } from '../../../lib/server/http';
+
+/** Whether the team asks its owners and crew chiefs for a second factor. */
+export const GET = handle(async ({ locals }) => {
+  const { team } = requireMember(locals);
+  return json({ required: await readTeamSecondFactorRule(team.id) });
+});
+
+/** `{ required }` (owner). */
+export const PUT = handle(async ({ locals, request }) => {
+  const { team, user } = requirePermission(locals, 'team:settings');
+  const { required } = await readJson(request, requireSecondFactorSchema);
+  await setTeamSecondFactorRule(team.id, user.id, required);
+  return json({ required });
+});

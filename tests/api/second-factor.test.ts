@@ -1,0 +1,116 @@
+import { Secret, TOTP } from 'otpauth';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { ApiClient, TEST_PASSWORD, signedInClient } from '../helpers/api-client';
+import { startServer, type RunningServer } from '../helpers/server';
+import { SmtpFake } from '../helpers/smtp-fake';
+import { joinByInvitation } from '../helpers/team';
+
+let server: RunningServer;
+let smtp: SmtpFake;
+beforeAll(async () => {
+  smtp = await SmtpFake.create();
+  await smtp.start();
+  server = await startServer({ env: { SMTP_PORT: String(smtp.port) } });
+});
+afterAll(async () => {
+  await server?.stop();
+  await smtp?.stop();
+});
+
+/** The code an authenticator app would show now (RFC 6238, through otpauth). */
+const codeFor = (secret: string, offset = 0) => new TOTP({ secret: Secret.fromBase32(secret), algorithm: 'SHA1', digits: 6, period: 30 }).generate({ timestamp: Date.now() + offset });
+
+async function signInWithCode(email: string, code: string | null): Promise<ApiClient> {
+  const client = new ApiClient(server.baseUrl);
+  const csrf = await client.get('/api/auth/csrf');
+  await client.request('/api/auth/callback/credentials', {
+    method: 'POST',
+    headers: { 'content-type': 'application/x-www-form-urlencoded' },
+    body: new URLSearchParams({ email, password: TEST_PASSWORD, csrfToken: csrf.body.csrfToken, ...(code === null ? {} : { code }) }),
+  });
+  return client;
+}
+
+describe('the second factor', () => {
+  it('is turned on with a code from the app and then asked for at every sign-in', async () => {
+    const { client, email } = await signedInClient(server.baseUrl, { team: 'Two Factor Crew' });
+    const setup = await client.post('/api/account/second-factor');
+    expect(setup.status).toBe(201);
+    expect(setup.body.uri).toMatch(/^otpauth:\/\/totp\/Lashline:/);
+    expect((await client.post('/api/account/second-factor/confirm', { code: '000000' })).status).toBe(400);
+    const confirmed = await client.post('/api/account/second-factor/confirm', { code: codeFor(setup.body.secret) });
+    expect(confirmed.status).toBe(200);
+    expect(confirmed.body.recoveryCodes).toHaveLength(10);
+    expect((await client.get('/api/account')).body.secondFactor).toBe(true);
+
+    expect((await signInWithCode(email, null)).hasSessionCookie()).toBe(false);
+    expect((await signInWithCode(email, '123456')).hasSessionCookie()).toBe(false);
+    expect((await signInWithCode(email, codeFor(setup.body.secret))).hasSessionCookie()).toBe(true);
+
+    // A recovery code works once.
+    const recovery = confirmed.body.recoveryCodes[0];
+    expect((await signInWithCode(email, recovery)).hasSessionCookie()).toBe(true);
+    expect((await signInWithCode(email, recovery)).hasSessionCookie()).toBe(false);
+  });
+
+  it('says the code is needed on the sign-in page, and is for owners and crew chiefs only', async () => {
+    const owner = await signedInClient(server.baseUrl, { team: 'Roles Crew' });
+    const tech = await joinByInvitation(server.baseUrl, smtp, owner.client, 'technician');
+    expect((await tech.client.post('/api/account/second-factor')).status).toBe(403);
+    const setup = (await owner.client.post('/api/account/second-factor')).body;
+    await owner.client.post('/api/account/second-factor/confirm', { code: codeFor(setup.secret) });
+    const client = new ApiClient(server.baseUrl);
+    const csrf = await client.get('/api/auth/csrf');
+    const answer = await client.request('/api/auth/callback/credentials', { method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ email: owner.email, password: TEST_PASSWORD, csrfToken: csrf.body.csrfToken }) });
+    expect(answer.headers.get('location')).toContain('code=second-factor');
+  });
+
+  it('can be turned off with the password and a code, ending the sessions', async () => {
+    const { client, email } = await signedInClient(server.baseUrl, { team: 'Off Crew' });
+    const setup = (await client.post('/api/account/second-factor')).body;
+    await client.post('/api/account/second-factor/confirm', { code: codeFor(setup.secret) });
+    expect((await client.post('/api/account/second-factor/disable', { password: 'wrong password!', code: codeFor(setup.secret) })).status).toBe(400);
+    expect((await client.post('/api/account/second-factor/disable', { password: TEST_PASSWORD, code: codeFor(setup.secret) })).status).toBe(200);
+    expect((await client.get('/api/account')).status).toBe(401);
+    expect((await signInWithCode(email, null)).hasSessionCookie()).toBe(true);
+  });
+});
+
+describe('sessions end when they should', () => {
+  it('signs out everywhere: every session of the person ends', async () => {
+    const { client, email } = await signedInClient(server.baseUrl, { team: 'Everywhere Crew' });
+    const other = await signInWithCode(email, null);
+    expect((await other.get('/api/account')).status).toBe(200);
+    expect((await client.post('/api/account/sessions/revoke')).status).toBe(200);
+    expect((await other.get('/api/account')).status).toBe(401);
+    expect((await client.get('/api/account')).status).toBe(401);
+  });
+
+  it('ends a removed member’s sessions', async () => {
+    const owner = await signedInClient(server.baseUrl, { team: 'Removal Crew' });
+    const member = await joinByInvitation(server.baseUrl, smtp, owner.client, 'viewer');
+    expect((await member.client.get('/api/account')).status).toBe(200);
+    await owner.client.delete(`/api/members/${member.userId}`);
+    expect((await member.client.get('/api/account')).status).toBe(401);
+  });
+
+  it('logs sign-ins, failed sign-ins and denied requests with who, what and when, and no secret', async () => {
+    const { client, email } = await signedInClient(server.baseUrl, { team: 'Log Crew' });
+    await signInWithCode(email, null);
+    const failed = new ApiClient(server.baseUrl);
+    await failed.signIn(email, 'not the password at all');
+    await client.post('/api/account/second-factor/confirm', { code: '111111' });
+    await new ApiClient(server.baseUrl).get('/api/members');
+    await new Promise((r) => setTimeout(r, 200));
+    const lines = server.output().split('\n').filter((line) => line.startsWith('[lashline:security]')).map((line) => JSON.parse(line.slice('[lashline:security] '.length)));
+    const mine = lines.filter((l) => l.email === email);
+    expect(mine.some((l) => l.event === 'sign-in' && l.userId)).toBe(true);
+    expect(mine.some((l) => l.event === 'sign-in-failed')).toBe(true);
+    expect(lines.some((l) => l.event === 'denied' && l.status === 401 && l.path === '/api/members')).toBe(true);
+    for (const l of lines) expect(l.at).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{3}Z$/);
+    const raw = server.output();
+    expect(raw).not.toContain(TEST_PASSWORD);
+    expect(raw).not.toContain('not the password at all');
+    expect(raw).not.toMatch(/authjs\.session-token=/);
+  });
+});
