@@ -14,7 +14,7 @@ const isMissing = (error: unknown) =>
   error instanceof S3ServiceException && (error.name === 'NoSuchKey' || error.name === 'NotFound' || error.$metadata.httpStatusCode === 404);
 
 /**
- * Objects in an S3-compatible bucket (AWS S3, MinIO, Garage, R2, …). Without keys in the
+ * Objects in an S3-compatible bucket (any store that speaks the S3 API). Without keys in the
  * environment the SDK's own chain (profile, instance role) supplies credentials.
  */
 export function createS3Storage(settings: S3Settings): ObjectStorage {
