@@ -8,14 +8,17 @@ beforeAll(async () => {
   server = await startServer();
   member = (await signedInClient(server.baseUrl, { team: 'Analysis Team' })).client;
 });
-afterAll(() => { console.log(server.output()); return server?.stop(); });
+afterAll(() => server?.stop());
 
 const DEG = Math.PI / 180;
 const LIMIT = 64 * 1024;
 
 /** Readings m + a·cos θ + b·sin θ at θk = 2πk/N, position 1 at 0°. */
 function buildReadings(n: number, m: number, a: number, b: number): number[] {
-  return Array.from({ length: n }, (_, k) => m + a * Math.cos((2 * Math.PI * k) / n) + b * Math.sin((2 * Math.PI * k) / n));
+  return Array.from(
+    { length: n },
+    (_, k) => m + a * Math.cos((2 * Math.PI * k) / n) + b * Math.sin((2 * Math.PI * k) / n),
+  );
 }
 
 /** Agreement to `digits` significant digits of the certified value. */
@@ -29,11 +32,14 @@ async function postRaw(path: string, raw: string | ReadableStream<Uint8Array>, t
   const init: RequestInit & { duplex?: 'half' } = { method: 'POST', headers: { 'content-type': type }, body: raw };
   if (typeof raw !== 'string') init.duplex = 'half';
   const response = await member.request(path, init);
-  return { status: response.status, body: await response.json() };
+  return { status: response.status, body: await response.json(), headers: response.headers };
 }
 
 // m = 0.20 mm, a = 0.03, b = 0.04 → C = 0.05, φ = atan2(0.04, 0.03) = 53.13°.
-const M = 0.2, A = 0.03, B = 0.04, C = 0.05;
+const M = 0.2,
+  A = 0.03,
+  B = 0.04,
+  C = 0.05;
 const PHI_DEG = Math.atan2(B, A) / DEG;
 const EIGHT = buildReadings(8, M, A, B);
 
@@ -61,7 +67,12 @@ describe('POST /api/analysis/backlash', () => {
   });
 
   it('estimates runout from 41:10 teeth with k ≈ 0.707', async () => {
-    const { status, body } = await member.post('/api/analysis/backlash', { unit: 'mm', readings: EIGHT, ringTeeth: 41, pinionTeeth: 10 });
+    const { status, body } = await member.post('/api/analysis/backlash', {
+      unit: 'mm',
+      readings: EIGHT,
+      ringTeeth: 41,
+      pinionTeeth: 10,
+    });
     expect(status).toBe(200);
     // TRADE.md, bevel/hypoid extension (D): k = 2·sin δ2·tan αn; 41:10 teeth, δ2 = 76.29°, αn = 20° give k ≈ 0.707
     expect(body.runoutEstimate.k).toBeCloseTo(0.707, 3);
@@ -69,15 +80,31 @@ describe('POST /api/analysis/backlash', () => {
     // TRADE.md (D): lash peak-to-peak 2C ≈ k·Ra, so Ra = 2C / k
     const k = 2 * Math.sin(Math.atan2(41, 10)) * Math.tan(20 * DEG);
     expect(body.runoutEstimate.tir).toBeCloseTo((2 * C) / k, 12);
-    const steeper = await member.post('/api/analysis/backlash', { unit: 'mm', readings: EIGHT, ringTeeth: 41, pinionTeeth: 10, pressureAngleDeg: 25 });
+    const steeper = await member.post('/api/analysis/backlash', {
+      unit: 'mm',
+      readings: EIGHT,
+      ringTeeth: 41,
+      pinionTeeth: 10,
+      pressureAngleDeg: 25,
+    });
     expect(steeper.body.runoutEstimate.k).toBeCloseTo(2 * Math.sin(Math.atan2(41, 10)) * Math.tan(25 * DEG), 12);
   });
 
   it("answers in the request's unit: the same readings in inches give the figures in inches", async () => {
     // NIST SP 811 (2008), Appendix B: 1 in = 25.4 mm exactly
     const inches = EIGHT.map((r) => r / 25.4);
-    const { status, body } = await member.post('/api/analysis/backlash', { unit: 'in', readings: inches, ringTeeth: 41, pinionTeeth: 10 });
-    const mm = await member.post('/api/analysis/backlash', { unit: 'mm', readings: EIGHT, ringTeeth: 41, pinionTeeth: 10 });
+    const { status, body } = await member.post('/api/analysis/backlash', {
+      unit: 'in',
+      readings: inches,
+      ringTeeth: 41,
+      pinionTeeth: 10,
+    });
+    const mm = await member.post('/api/analysis/backlash', {
+      unit: 'mm',
+      readings: EIGHT,
+      ringTeeth: 41,
+      pinionTeeth: 10,
+    });
     expect(status).toBe(200);
     expect(body.unit).toBe('in');
     expect(body.mean).toBeCloseTo(M / 25.4, 15);
@@ -108,7 +135,11 @@ describe('POST /api/analysis/backlash', () => {
     expect(body.verdicts[0]).toMatchObject({ value: Math.min(...EIGHT), limit: 'min', limitValue: 0.13 });
     expect(body.verdicts[1]).toMatchObject({ value: Math.max(...EIGHT), limit: 'max', limitValue: 0.23 });
     // Four points 90° apart: TRADE.md (S: Honda S2000 service manual, rear differential)
-    const good = await member.post('/api/analysis/backlash', { unit: 'mm', readings: [0.19, 0.18, 0.17, 0.18], profile });
+    const good = await member.post('/api/analysis/backlash', {
+      unit: 'mm',
+      readings: [0.19, 0.18, 0.17, 0.18],
+      profile,
+    });
     expect(good.body.verdicts.map((v: { verdict: string }) => v.verdict)).toEqual(['in-band', 'in-band', 'in-band']);
   });
 });
@@ -138,7 +169,11 @@ describe('POST /api/analysis/trend', () => {
   });
 
   it('projects where a rising line meets the max', async () => {
-    const points = [{ runs: 0, value: 0.15 }, { runs: 10, value: 0.16 }, { runs: 20, value: 0.17 }];
+    const points = [
+      { runs: 0, value: 0.15 },
+      { runs: 10, value: 0.16 },
+      { runs: 20, value: 0.17 },
+    ];
     const { status, body } = await member.post('/api/analysis/trend', { points, limit: { max: 0.23 } });
     expect(status).toBe(200);
     expect(body.slope).toBeCloseTo(0.001, 14);
@@ -148,7 +183,10 @@ describe('POST /api/analysis/trend', () => {
   });
 
   it('gives no projection for 2 points, and says why', async () => {
-    const points = [{ runs: 0, value: 0.15 }, { runs: 10, value: 0.16 }];
+    const points = [
+      { runs: 0, value: 0.15 },
+      { runs: 10, value: 0.16 },
+    ];
     const { status, body } = await member.post('/api/analysis/trend', { points, limit: { max: 0.23 } });
     expect(status).toBe(200);
     expect(body.slope).toBeCloseTo(0.001, 14);
@@ -186,13 +224,23 @@ const TREND = '/api/analysis/trend';
 const readingsWith = (third: unknown) => ({ unit: 'mm', readings: [0.15, 0.16, third, 0.17] });
 
 const BAD: BadCase[] = [
-  { name: 'a reading of null (what JSON.stringify makes of NaN)', path: BACKLASH, body: readingsWith(NaN), field: 'readings.2' },
+  {
+    name: 'a reading of null (what JSON.stringify makes of NaN)',
+    path: BACKLASH,
+    body: readingsWith(NaN),
+    field: 'readings.2',
+  },
   { name: 'a reading as a string', path: BACKLASH, body: readingsWith('0.16'), field: 'readings.2' },
   { name: 'the string "NaN"', path: BACKLASH, body: readingsWith('NaN'), field: 'readings.2' },
   { name: 'a negative reading', path: BACKLASH, body: readingsWith(-0.01), field: 'readings.2' },
   { name: 'two readings', path: BACKLASH, body: { unit: 'mm', readings: [0.15, 0.16] }, field: 'readings' },
   { name: '25 readings', path: BACKLASH, body: { unit: 'mm', readings: Array(25).fill(0.15) }, field: 'readings' },
-  { name: 'readings that are not a list', path: BACKLASH, body: { unit: 'mm', readings: '0.15,0.16,0.17' }, field: 'readings' },
+  {
+    name: 'readings that are not a list',
+    path: BACKLASH,
+    body: { unit: 'mm', readings: '0.15,0.16,0.17' },
+    field: 'readings',
+  },
   { name: 'an unknown unit', path: BACKLASH, body: { unit: 'thou', readings: [0.15, 0.16, 0.17] }, field: 'unit' },
   {
     name: 'profile min above max',
@@ -200,21 +248,61 @@ const BAD: BadCase[] = [
     body: { unit: 'mm', readings: [0.15, 0.16, 0.17], profile: { min: 0.23, max: 0.13, maxSpread: 0.05 } },
     field: 'profile.min',
   },
-  { name: 'a fractional ring tooth count', path: BACKLASH, body: { unit: 'mm', readings: [0.15, 0.16, 0.17], ringTeeth: 41.5, pinionTeeth: 10 }, field: 'ringTeeth' },
-  { name: 'a fractional pinion tooth count', path: BACKLASH, body: { unit: 'mm', readings: [0.15, 0.16, 0.17], ringTeeth: 41, pinionTeeth: 9.5 }, field: 'pinionTeeth' },
-  { name: 'one tooth count without the other', path: BACKLASH, body: { unit: 'mm', readings: [0.15, 0.16, 0.17], ringTeeth: 41 }, field: 'pinionTeeth' },
-  { name: 'a misspelt field', path: BACKLASH, body: { unit: 'mm', readings: [0.15, 0.16, 0.17], pressureAngle: 20 }, field: 'pressureAngle' },
-  { name: 'a fractional run count', path: TREND, body: { points: [{ runs: 1.5, value: 0.2 }] }, field: 'points.0.runs' },
+  {
+    name: 'a fractional ring tooth count',
+    path: BACKLASH,
+    body: { unit: 'mm', readings: [0.15, 0.16, 0.17], ringTeeth: 41.5, pinionTeeth: 10 },
+    field: 'ringTeeth',
+  },
+  {
+    name: 'a fractional pinion tooth count',
+    path: BACKLASH,
+    body: { unit: 'mm', readings: [0.15, 0.16, 0.17], ringTeeth: 41, pinionTeeth: 9.5 },
+    field: 'pinionTeeth',
+  },
+  {
+    name: 'one tooth count without the other',
+    path: BACKLASH,
+    body: { unit: 'mm', readings: [0.15, 0.16, 0.17], ringTeeth: 41 },
+    field: 'pinionTeeth',
+  },
+  {
+    name: 'a misspelt field',
+    path: BACKLASH,
+    body: { unit: 'mm', readings: [0.15, 0.16, 0.17], pressureAngle: 20 },
+    field: 'pressureAngle',
+  },
+  {
+    name: 'a fractional run count',
+    path: TREND,
+    body: { points: [{ runs: 1.5, value: 0.2 }] },
+    field: 'points.0.runs',
+  },
   { name: 'a negative run count', path: TREND, body: { points: [{ runs: -1, value: 0.2 }] }, field: 'points.0.runs' },
   { name: 'a value as a string', path: TREND, body: { points: [{ runs: 1, value: '0.2' }] }, field: 'points.0.value' },
   { name: 'no points', path: TREND, body: { points: [] }, field: 'points' },
-  { name: 'limit min above max', path: TREND, body: { points: [{ runs: 1, value: 0.2 }], limit: { min: 0.3, max: 0.1 } }, field: 'limit.min' },
+  {
+    name: 'limit min above max',
+    path: TREND,
+    body: { points: [{ runs: 1, value: 0.2 }], limit: { min: 0.3, max: 0.1 } },
+    field: 'limit.min',
+  },
 ];
 
 // Bodies only a hand can write: JSON.parse turns 1e999 into Infinity, and a bare NaN is not JSON at all.
 const RAW_BAD = [
-  { name: 'a reading of 1e999 (Infinity)', path: BACKLASH, raw: '{"unit":"mm","readings":[0.15,0.16,1e999,0.17]}', field: 'readings.2' },
-  { name: 'a value of -1e999 (−Infinity)', path: TREND, raw: '{"points":[{"runs":1,"value":-1e999}]}', field: 'points.0.value' },
+  {
+    name: 'a reading of 1e999 (Infinity)',
+    path: BACKLASH,
+    raw: '{"unit":"mm","readings":[0.15,0.16,1e999,0.17]}',
+    field: 'readings.2',
+  },
+  {
+    name: 'a value of -1e999 (−Infinity)',
+    path: TREND,
+    raw: '{"points":[{"runs":1,"value":-1e999}]}',
+    field: 'points.0.value',
+  },
   { name: 'a limit of 1e999', path: TREND, raw: '{"points":[{"runs":1,"value":0.2}],"limit":1e999}', field: 'limit' },
 ];
 
@@ -251,7 +339,8 @@ describe('bad input to the analysis endpoints', () => {
     });
 
     it(`POST ${path} takes a body of exactly 64 KB and refuses one byte more with 413`, async () => {
-      const valid = path === BACKLASH ? { unit: 'mm', readings: [0.15, 0.16, 0.17] } : { points: [{ runs: 1, value: 0.2 }] };
+      const valid =
+        path === BACKLASH ? { unit: 'mm', readings: [0.15, 0.16, 0.17] } : { points: [{ runs: 1, value: 0.2 }] };
       const text = JSON.stringify(valid);
       const padded = (bytes: number) => text.slice(0, -1) + ' '.repeat(bytes - text.length) + '}';
       expect((await postRaw(path, padded(LIMIT))).status).toBe(200);
@@ -263,7 +352,11 @@ describe('bad input to the analysis endpoints', () => {
 
   it('refuses a streamed body over 64 KB that declares no length', async () => {
     const encode = (text: string) => new TextEncoder().encode(text);
-    const parts = [encode('{"unit":"mm","readings":[0.15,0.16,0.17]'), ...Array(5).fill(encode(' '.repeat(16 * 1024))), encode('}')];
+    const parts = [
+      encode('{"unit":"mm","readings":[0.15,0.16,0.17]'),
+      ...Array(5).fill(encode(' '.repeat(16 * 1024))),
+      encode('}'),
+    ];
     const stream = new ReadableStream<Uint8Array>({
       pull(controller) {
         const next = parts.shift();
@@ -271,9 +364,13 @@ describe('bad input to the analysis endpoints', () => {
         else controller.close();
       },
     });
-    const { status, body } = await postRaw(BACKLASH, stream);
+    const { status, body, headers } = await postRaw(BACKLASH, stream);
     expect(status).toBe(413);
     expect(body.error.message).toMatch(/64 KB/);
+    // The rest of the body is left unread, so the connection must not be reused: without this the next
+    // request on it hung for 5 s and was reset.
+    expect(headers.get('connection')).toBe('close');
+    expect((await member.get('/api/analysis/tightening-sequence?bolts=4')).status).toBe(200);
   });
 
   for (const [query, message] of [

@@ -1,5 +1,6 @@
 import type { z } from 'zod';
 import { zodIssuesToFields, zodIssuesToMessage } from '../validation';
+import { logSecurityEvent } from './security-log';
 
 /** An error that already knows its HTTP status and the message the client should read. */
 export class HttpError extends Error {
@@ -17,8 +18,10 @@ export const MAX_JSON_BYTES = 1024 * 1024;
 
 /** Body limits above the 1 MB default, by route: photo uploads and CSV imports. */
 export function bodyLimitFor(pathname: string): number {
+  // A wide gate here; the photo route itself refuses past 15 MB with a message naming the file.
   if (/^\/api\/inspections\/[^/]+\/photos$/.test(pathname)) return 16 * 1024 * 1024;
   if (pathname === '/api/runs/import') return 5 * 1024 * 1024;
+  if (pathname === '/api/imports/team') return 64 * 1024 * 1024;
   return MAX_JSON_BYTES;
 }
 
@@ -49,17 +52,19 @@ export async function readBodyText(request: Request, maxBytes: number): Promise<
     if (done) break;
     size += value.byteLength;
     if (size > maxBytes) {
+      // Cancelling leaves the rest of a chunked body unread and the connection unusable (the next request on
+      // it hangs, then resets), so tell the client not to reuse it.
       await reader.cancel();
-      throw tooLarge(maxBytes);
+      throw tooLarge(maxBytes, { Connection: 'close' });
     }
     chunks.push(value);
   }
   return Buffer.concat(chunks).toString('utf8');
 }
 
-function tooLarge(maxBytes: number): HttpError {
+function tooLarge(maxBytes: number, headers?: Record<string, string>): HttpError {
   const size = maxBytes >= 1024 * 1024 ? `${maxBytes / (1024 * 1024)} MB` : `${maxBytes / 1024} KB`;
-  return new HttpError(413, `The request body is larger than ${size}; send less.`);
+  return new HttpError(413, `The request body is larger than ${size}; send less.`, undefined, headers);
 }
 
 /**
@@ -100,7 +105,12 @@ export function handle(
     try {
       return await work(context);
     } catch (error) {
-      if (error instanceof HttpError) return errorResponse(error);
+      if (error instanceof HttpError) {
+        if (error.status === 401 || error.status === 403) {
+          logSecurityEvent('denied', { status: error.status, method: context.request.method, path: context.url.pathname, userId: context.locals.user?.id ?? null, role: context.locals.team?.role ?? null });
+        }
+        return errorResponse(error);
+      }
       console.error(`[lashline] ${context.request.method} ${context.url.pathname} failed`, error);
       return errorResponse(new HttpError(500, 'Something went wrong on the server; the change was not saved.'));
     }

@@ -1,7 +1,7 @@
 import { decode } from '@auth/core/jwt';
 import type { AstroCookies } from 'astro';
-import { and, eq } from 'drizzle-orm';
-import { getDb } from '../../db/client';
+import { and, eq, sql } from 'drizzle-orm';
+import { getDb, type Database } from '../../db/client';
 import { memberships, teams, users } from '../../db/schema';
 import { userToPublic } from './accounts';
 import { resolveAuthSecret } from './auth-secret';
@@ -9,6 +9,55 @@ import { resolveAuthSecret } from './auth-secret';
 export const SESSION_COOKIES = ['__Secure-authjs.session-token', 'authjs.session-token'] as const;
 
 let secret: string | undefined;
+
+interface SessionClaims {
+  sub: string;
+  sv: number | undefined;
+  /** Expiry, seconds since the epoch, as Auth.js sets it. */
+  exp: number;
+}
+
+// Decoding a cookie costs an HKDF derivation plus AES-CBC and HMAC through WebCrypto, which was most of the
+// time of a signed-in API call (bench/analysis-throughput.mjs). The same cookie value always decodes to the
+// same claims, so the claims of recent cookies are kept until their own expiry. Only decoded, unexpired
+// tokens are kept, so a flood of made-up cookies adds nothing. The person, the session version and the role
+// are still read from the database on every request (docs/decisions/005-cache-decoded-session-cookies.md).
+const DECODED = new Map<string, SessionClaims>();
+const MAX_DECODED = 1000;
+
+async function decodeClaims(name: string, value: string): Promise<SessionClaims | null> {
+  const key = `${name}=${value}`;
+  const cached = DECODED.get(key);
+  if (cached && cached.exp * 1000 > Date.now()) return cached;
+  if (cached) DECODED.delete(key);
+  secret ??= resolveAuthSecret();
+  let token: { sub?: string; sv?: number; exp?: number } | null;
+  try {
+    token = (await decode({ token: value, secret, salt: name })) as typeof token;
+  } catch {
+    return null;
+  }
+  if (!token?.sub) return null;
+  const claims = { sub: token.sub, sv: token.sv, exp: token.exp ?? 0 };
+  if (claims.exp * 1000 > Date.now()) {
+    if (DECODED.size >= MAX_DECODED) DECODED.delete(DECODED.keys().next().value as string);
+    DECODED.set(key, claims);
+  }
+  return claims;
+}
+
+// One statement for the person and their role in the current team, built once per connection.
+const PREPARED = new WeakMap<Database, ReturnType<typeof prepareSessionQuery>>();
+
+function prepareSessionQuery(db: Database) {
+  return db
+    .select({ user: users, teamId: teams.id, teamName: teams.name, role: memberships.role })
+    .from(users)
+    .leftJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.teamId, users.currentTeamId)))
+    .leftJoin(teams, eq(teams.id, memberships.teamId))
+    .where(eq(users.id, sql.placeholder('id')))
+    .prepare();
+}
 
 /**
  * Reads the Auth.js session cookie and loads the person and their current team's role from the
@@ -19,23 +68,13 @@ export async function loadSession(cookies: AstroCookies): Promise<Pick<App.Local
   const none = { user: null, team: null };
   const cookie = SESSION_COOKIES.map((name) => ({ name, value: cookies.get(name)?.value })).find((c) => c.value);
   if (!cookie?.value) return none;
-  secret ??= resolveAuthSecret();
-  let token: { sub?: string; sv?: number } | null;
-  try {
-    token = (await decode({ token: cookie.value, secret, salt: cookie.name })) as typeof token;
-  } catch {
-    return none;
-  }
-  if (!token?.sub) return none;
+  const claims = await decodeClaims(cookie.name, cookie.value);
+  if (!claims) return none;
   const db = await getDb();
-  const user = await db.select().from(users).where(eq(users.id, token.sub)).get();
-  if (!user || token.sv !== user.sessionVersion) return none;
-  if (!user.currentTeamId) return { user: userToPublic(user), team: null };
-  const team = await db
-    .select({ id: teams.id, name: teams.name, role: memberships.role })
-    .from(memberships)
-    .innerJoin(teams, eq(teams.id, memberships.teamId))
-    .where(and(eq(memberships.teamId, user.currentTeamId), eq(memberships.userId, user.id)))
-    .get();
-  return { user: userToPublic(user), team: team ?? null };
+  let query = PREPARED.get(db);
+  if (!query) PREPARED.set(db, (query = prepareSessionQuery(db)));
+  const row = await query.get({ id: claims.sub });
+  if (!row || claims.sv !== row.user.sessionVersion) return none;
+  const team = row.teamId && row.teamName && row.role ? { id: row.teamId, name: row.teamName, role: row.role } : null;
+  return { user: userToPublic(row.user), team };
 }
