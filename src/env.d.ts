@@ -5,7 +5,7 @@ declare namespace App {
     /** The signed-in person, read from the database on this request; null when signed out. */
     user: import('./lib/server/accounts').PublicUser | null;
     /** The person's current team and their role in it, read fresh on this request. */
-    team: { id: string; name: string; role: import('./lib/roles').Role } | null;
+    team: { id: string; name: string; role: import('./lib/roles').Role; secondFactorMissing?: boolean } | null;
   }
 }
 

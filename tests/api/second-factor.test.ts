@@ -76,6 +76,26 @@ describe('the second factor', () => {
   });
 });
 
+describe('a team that requires a second factor', () => {
+  it('holds back its crew chiefs without one, until they turn it on; technicians are not asked', async () => {
+    const owner = await signedInClient(server.baseUrl, { team: 'Strict Crew' });
+    const chief = await joinByInvitation(server.baseUrl, smtp, owner.client, 'crew-chief');
+    const tech = await joinByInvitation(server.baseUrl, smtp, owner.client, 'technician');
+    expect((await owner.client.put('/api/team/second-factor', { required: true })).status).toBe(409);
+    const ownerSetup = (await owner.client.post('/api/account/second-factor')).body;
+    await owner.client.post('/api/account/second-factor/confirm', { code: codeFor(ownerSetup.secret) });
+    expect((await owner.client.put('/api/team/second-factor', { required: true })).status).toBe(200);
+    expect((await owner.client.get('/api/parts')).status).toBe(200);
+    expect((await tech.client.get('/api/parts')).status).toBe(200);
+    const held = await chief.client.get('/api/parts');
+    expect(held.status).toBe(403);
+    expect(held.body.error.message).toContain('second factor');
+    const setup = (await chief.client.post('/api/account/second-factor')).body;
+    await chief.client.post('/api/account/second-factor/confirm', { code: codeFor(setup.secret) });
+    expect((await chief.client.get('/api/parts')).status).toBe(200);
+  });
+});
+
 describe('sessions end when they should', () => {
   it('signs out everywhere: every session of the person ends', async () => {
     const { client, email } = await signedInClient(server.baseUrl, { team: 'Everywhere Crew' });

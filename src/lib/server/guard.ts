@@ -20,6 +20,7 @@ export function requireUser(locals: App.Locals): PublicUser {
 export function requireMember(locals: App.Locals): TeamAccess {
   const user = requireUser(locals);
   if (!locals.team) throw new HttpError(403, 'Create a team or accept an invitation first.');
+  if (locals.team.secondFactorMissing) throw new HttpError(403, 'This team asks its owners and crew chiefs for a second factor: turn it on from your account page first.');
   return { user, team: locals.team };
 }
 
@@ -41,6 +42,7 @@ export type PageAccess = { ok: true; access: TeamAccess } | { ok: false; redirec
 export function checkPageAccess(locals: App.Locals, url: URL, permission: Permission = 'team:read'): PageAccess {
   if (!locals.user) return { ok: false, redirect: `/sign-in?next=${encodeURIComponent(url.pathname + url.search)}` };
   if (!locals.team) return { ok: false, redirect: '/teams/new' };
+  if (locals.team.secondFactorMissing) return { ok: false, redirect: '/account?secondFactor=required' };
   if (!roleCan(locals.team.role, permission)) {
     return { ok: false, status: 403, message: `Your role, ${ROLE_LABELS[locals.team.role].toLowerCase()}, cannot open this page.` };
   }

@@ -51,7 +51,7 @@ const PREPARED = new WeakMap<Database, ReturnType<typeof prepareSessionQuery>>()
 
 function prepareSessionQuery(db: Database) {
   return db
-    .select({ user: users, teamId: teams.id, teamName: teams.name, role: memberships.role })
+    .select({ user: users, teamId: teams.id, teamName: teams.name, role: memberships.role, requireSecondFactor: teams.requireSecondFactor })
     .from(users)
     .leftJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.teamId, users.currentTeamId)))
     .leftJoin(teams, eq(teams.id, memberships.teamId))
@@ -75,6 +75,8 @@ export async function loadSession(cookies: AstroCookies): Promise<Pick<App.Local
   if (!query) PREPARED.set(db, (query = prepareSessionQuery(db)));
   const row = await query.get({ id: claims.sub });
   if (!row || claims.sv !== row.user.sessionVersion) return none;
-  const team = row.teamId && row.teamName && row.role ? { id: row.teamId, name: row.teamName, role: row.role } : null;
+  // A team that requires a second factor holds back its owners and crew chiefs until they turn one on.
+  const held = Boolean(row.requireSecondFactor) && (row.role === 'owner' || row.role === 'crew-chief') && !row.user.totpEnabledAt;
+  const team = row.teamId && row.teamName && row.role ? { id: row.teamId, name: row.teamName, role: row.role, ...(held ? { secondFactorMissing: true } : {}) } : null;
   return { user: userToPublic(row.user), team };
 }

@@ -61,3 +61,16 @@ describe('the server-side guard', () => {
     expect(refused.ok === false && refused.status).toBe(403);
   });
 });
+
+describe('a team that requires a second factor', () => {
+  const held: App.Locals = { user: { ...user }, team: { id: 't1', name: 'Team', role: 'owner', secondFactorMissing: true } };
+
+  it('holds back an owner without one from every team route with 403', () => {
+    expect(statusOf(() => requireMember(held))).toBe(403);
+    expect(statusOf(() => requirePermission(held, 'team:read'))).toBe(403);
+  });
+
+  it('sends them to the account page to turn it on', () => {
+    expect(checkPageAccess(held, new URL('http://x.test/'))).toEqual({ ok: false, redirect: '/account?secondFactor=required' });
+  });
+});
