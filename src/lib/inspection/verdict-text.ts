@@ -1,0 +1,67 @@
+import type { Verdict } from '../analysis/judge';
+import { DEFAULT_PROFILE, type SourceNote, type ToleranceProfile } from '../analysis/tolerance';
+import { torqueUnitToLabel, type TorqueUnit } from '../units';
+
+/**
+ * Words, marks and sources for verdicts, shared by the sheet (React) and the detail page (.astro).
+ * A verdict is always a word and a mark; colour only repeats it.
+ */
+export const VERDICT_TEXT: Readonly<Record<Verdict, { word: string; mark: string; tone: string }>> = {
+  'in-band': { word: 'In band', mark: '✓', tone: 'text-steady' },
+  'near-limit': { word: 'Near a limit', mark: '▲', tone: 'text-amber' },
+  'out-of-band': { word: 'Out of band', mark: '✕', tone: 'text-alarm' },
+};
+
+const MEASURE_LABELS: Readonly<Record<string, string>> = {
+  'backlash-min-point': 'Backlash at the tightest point',
+  'backlash-max-point': 'Backlash at the loosest point',
+  spread: 'Spread (max − min)',
+  runout: 'Runout estimated from the lash',
+  'runout-measured': 'Back-face runout (measured)',
+  'pinion-preload-new': 'Pinion turning torque, new bearings',
+  'pinion-preload-used': 'Pinion turning torque, used bearings',
+  'hub-left': 'Left hub: effort unchanged to full nut torque',
+  'hub-right': 'Right hub: effort unchanged to full nut torque',
+};
+
+/** @example measureToLabel('spread') // 'Spread (max − min)' */
+export function measureToLabel(measure: string): string {
+  return MEASURE_LABELS[measure] ?? measure;
+}
+
+const MEASURE_FIELDS: Readonly<Record<string, keyof ToleranceProfile>> = {
+  'backlash-min-point': 'backlashMin',
+  'backlash-max-point': 'backlashMax',
+  spread: 'maxSpread',
+  runout: 'runoutMax',
+  'runout-measured': 'runoutMax',
+  'pinion-preload-new': 'pinionPreloadNew',
+  'pinion-preload-used': 'pinionPreloadUsed',
+  'hub-left': 'hubPreloadCheck',
+  'hub-right': 'hubPreloadCheck',
+};
+
+/** The profile field a measure is judged against. */
+export function measureToProfileField(measure: string): keyof ToleranceProfile | undefined {
+  return MEASURE_FIELDS[measure];
+}
+
+/**
+ * Where the band came from: the published default's source when the profile still holds the default
+ * figure, otherwise the team's own figure (the profile names no other source for it).
+ * @example bandToSourceText(DEFAULT_PROFILE, 'maxSpread', sources) // 'S: GM light-truck service manual … — variation …'
+ */
+export function bandToSourceText(values: ToleranceProfile, field: keyof ToleranceProfile, sources: Readonly<Partial<Record<keyof ToleranceProfile, SourceNote>>>, profileName?: string): string {
+  const same = JSON.stringify(values[field]) === JSON.stringify(DEFAULT_PROFILE[field]);
+  const note = sources[field];
+  if (same && note) return `${note.key}: ${note.source}${note.note ? ` — ${note.note}` : ''}`;
+  return `The team’s own figure${profileName ? ` (profile “${profileName}”)` : ''}`;
+}
+
+/**
+ * A torque for display: one decimal, with its unit label.
+ * @example formatTorque(2.7, 'N-m') // '2.7 N·m'
+ */
+export function formatTorque(value: number, unit: TorqueUnit): string {
+  return `${value.toFixed(1)} ${torqueUnitToLabel(unit)}`;
+}
