@@ -3,7 +3,7 @@ import node from '@astrojs/node';
 import react from '@astrojs/react';
 import tailwindcss from '@tailwindcss/vite';
 import auth from 'auth-astro';
-import { CSP_DIRECTIVES } from './src/lib/security-headers.ts';
+import { CSP_DIRECTIVES } from './src/lib/security-headers.mjs';
 
 // Astro builds request URLs from the Host header only for hosts listed here; without them every
 // URL reads http://localhost and the origin check refuses each form post. ALLOWED_HOSTS adds more
@@ -15,7 +15,8 @@ const extraHosts = (process.env.ALLOWED_HOSTS ?? '')
 
 export default defineConfig({
   output: 'server',
-  adapter: node({ mode: 'standalone' }),
+  // Middleware mode: scripts/serve.mjs wraps the handler with the security headers and the static files.
+  adapter: node({ mode: 'middleware' }),
   integrations: [react(), auth()],
   server: { host: process.env.HOST ?? 'localhost', port: Number(process.env.PORT ?? 4321) },
   security: {

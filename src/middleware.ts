@@ -1,6 +1,6 @@
 import { defineMiddleware, sequence } from 'astro:middleware';
 import { bodyLimitFor, errorResponse, HttpError } from './lib/server/http';
-import { applySecurityHeaders } from './lib/security-headers';
+import { applySecurityHeaders } from './lib/security-headers.mjs';
 import { loadSession } from './lib/server/session';
 import { ensureStarted } from './lib/server/startup';
 import { runSignInAttempt, signInRetryAfterSeconds } from './lib/server/sign-in-limiter';

@@ -1,3 +1,6 @@
+// Plain JavaScript so that the serving wrapper (scripts/serve.mjs) reads it without a TypeScript
+// loader on every request's path; the TypeScript code imports it with the types below.
+
 /**
  * Security headers for every response. Pages get their Content-Security-Policy from Astro (with
  * hashes of its own inline scripts); everything else gets the strict one below.
@@ -11,11 +14,12 @@ export const CSP_DIRECTIVES = [
   "base-uri 'self'",
   "form-action 'self'",
   "frame-ancestors 'none'",
-] as const;
+];
 
 export const API_CSP = "default-src 'none'; frame-ancestors 'none'";
 
-export const BASE_SECURITY_HEADERS: Readonly<Record<string, string>> = {
+/** @type {Readonly<Record<string, string>>} */
+export const BASE_SECURITY_HEADERS = {
   'X-Content-Type-Options': 'nosniff',
   // Not no-referrer: under it browsers send "Origin: null" with form posts, which the origin check refuses.
   'Referrer-Policy': 'same-origin',
@@ -25,8 +29,12 @@ export const BASE_SECURITY_HEADERS: Readonly<Record<string, string>> = {
   'Permissions-Policy': 'camera=(self), geolocation=(), microphone=()',
 };
 
-/** Adds the security headers to `headers` in place; a CSP already set by Astro is kept. */
-export function applySecurityHeaders(headers: Headers): void {
+/**
+ * Adds the security headers to `headers` in place; a CSP already set by Astro is kept.
+ * @param {Headers} headers
+ * @returns {void}
+ */
+export function applySecurityHeaders(headers) {
   for (const [name, value] of Object.entries(BASE_SECURITY_HEADERS)) headers.set(name, value);
   const csp = headers.get('content-security-policy');
   if (!csp) headers.set('Content-Security-Policy', API_CSP);

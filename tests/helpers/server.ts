@@ -14,7 +14,7 @@ export const PROJECT_ROOT = resolve(import.meta.dirname, '../..');
 /** The built server; LASHLINE_DIST points elsewhere (`astro build --outDir …`) so two builds can coexist. */
 export const SERVER_ENTRY = join(resolve(PROJECT_ROOT, process.env.LASHLINE_DIST ?? 'dist'), 'server', 'entry.mjs');
 /** What `npm start` serves with: the built app behind the security-header wrapper. */
-const SERVE_SCRIPT = join(PROJECT_ROOT, 'scripts', 'serve.ts');
+const SERVE_SCRIPT = join(PROJECT_ROOT, 'scripts', 'serve.mjs');
 
 export interface RunningServer {
   baseUrl: string;
@@ -22,8 +22,12 @@ export interface RunningServer {
   dataDir: string;
   databaseUrl: string;
   output: () => string;
+  /** The server process's id (the current one, after a restart), e.g. to read /proc/<pid>/status. */
+  pid: () => number | undefined;
   stop: () => Promise<void>;
+  /** SIGKILL, as a crash or the OOM killer would: no shutdown code runs. */
   kill: () => Promise<void>;
+  /** Stops the server (if still running) and starts it again on the same port, folder and database; after kill(), a restart from a crash. */
   restart: () => Promise<void>;
 }
 
@@ -100,7 +104,7 @@ export async function startServer(options: ServerOptions = {}): Promise<RunningS
   let child: ChildProcess;
   const baseUrl = `http://127.0.0.1:${port}`;
   const launch = async (): Promise<void> => {
-    child = spawn(process.execPath, ['--import', 'tsx', SERVE_SCRIPT], { cwd: PROJECT_ROOT, env, stdio: ['ignore', 'pipe', 'pipe'] });
+    child = spawn(process.execPath, [SERVE_SCRIPT], { cwd: PROJECT_ROOT, env, stdio: ['ignore', 'pipe', 'pipe'] });
     child.stdout?.on('data', (chunk) => (log += chunk));
     child.stderr?.on('data', (chunk) => (log += chunk));
     await waitForHealth(baseUrl, child, () => log);
@@ -118,6 +122,7 @@ export async function startServer(options: ServerOptions = {}): Promise<RunningS
     dataDir,
     databaseUrl,
     output: () => log,
+    pid: () => child.pid,
     kill: () => end('SIGKILL'),
     restart: async () => {
       await end('SIGTERM');
