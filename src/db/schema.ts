@@ -235,9 +235,15 @@ export const runs = sqliteTable(
     elapsedSeconds: real('elapsed_seconds'),
     speedMph: real('speed_mph'),
     recordedBy: text('recorded_by').references(() => users.id),
+    // A retried "log run" over a poor connection carries the same key and is stored once.
+    idempotencyKey: text('idempotency_key'),
     createdAt: createdAt(),
   },
-  (table) => [index('runs_car_at_idx').on(table.carId, table.at), index('runs_team_at_idx').on(table.teamId, table.at)],
+  (table) => [
+    index('runs_car_at_idx').on(table.carId, table.at),
+    index('runs_team_at_idx').on(table.teamId, table.at),
+    uniqueIndex('runs_idempotency_idx').on(table.teamId, table.idempotencyKey),
+  ],
 );
 
 export type Car = typeof cars.$inferSelect;

@@ -103,6 +103,22 @@ describe('run counts derived from the installation history and the run log', () 
     expect((await tech.post('/api/installations', { action: 'install', assemblyId: other, carId: car, at: at(2) })).status).toBe(409);
   });
 
+  it('stores a run sent twice with the same Idempotency-Key once, and charges it once', async () => {
+    const { chief, tech } = team;
+    const car = await created(chief, '/api/cars', { name: 'Retry car' });
+    const rear = await created(chief, '/api/assemblies', { serial: 'RT-1', name: 'Retry rear end' });
+    const gear = await created(chief, '/api/gear-sets', { serial: 'G-RETRY', ringTeeth: 41, pinionTeeth: 10 });
+    await created(tech, '/api/installations', { action: 'install', assemblyId: rear, carId: car, at: at(1) });
+    await created(tech, '/api/installations', { action: 'install', partId: gear, assemblyId: rear, at: at(1) });
+    const send = () => tech.request('/api/runs', { method: 'POST', headers: { 'content-type': 'application/json', 'idempotency-key': 'run-retry-1' }, body: JSON.stringify({ carId: car, at: at(2) }) });
+    const first = await send();
+    const again = await send();
+    expect(first.status).toBe(201);
+    expect(again.status).toBe(200);
+    expect((await again.json()).id).toBe((await first.json()).id);
+    expect(await counts(tech, gear)).toEqual([1, 1]);
+  });
+
   it('answers the ratio computed from the tooth counts', async () => {
     const id = await created(team.chief, '/api/gear-sets', { serial: 'G-RATIO', ringTeeth: 41, pinionTeeth: 10 });
     const gear = (await team.viewer.get(`/api/gear-sets/${id}`)).body;

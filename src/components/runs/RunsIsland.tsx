@@ -2,6 +2,7 @@ import { lazy, Suspense, useState } from 'react';
 import type { RunView } from '../../lib/server/register/runs';
 import { callApi, type Page } from '../shared/api';
 import { LogRunForm, type RunCar } from './LogRunForm';
+import { runKey } from './run-form';
 import { RecentRuns } from './RecentRuns';
 
 // Papaparse, zod and the shared run check load only when someone opens the import.
@@ -43,7 +44,7 @@ export default function RunsIsland({ teamId, cars, initialPage, canRecord, canEd
       {canRecord && (
         <section aria-labelledby="log-heading" className="card">
           <h2 id="log-heading" className="mb-3">Log a run</h2>
-          <LogRunForm cars={cars} lastEvent={lastEvent} draftKey={`lashline:run-draft:${teamId}`} send={(body) => callApi<RunView>('/api/runs', { method: 'POST', body })} onSaved={upsert} />
+          <LogRunForm cars={cars} lastEvent={lastEvent} draftKey={`lashline:run-draft:${teamId}`} send={(body) => callApi<RunView>('/api/runs', { method: 'POST', body, headers: { 'Idempotency-Key': runKey(body) } })} onSaved={upsert} />
         </section>
       )}
 

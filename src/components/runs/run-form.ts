@@ -77,3 +77,21 @@ export function checkBeforeSending(values: RunFormValues): Record<string, string
   if (values.atEdited && !localInputToIso(values.at)) fields.at = 'Enter the date and time of the run, or tap Now.';
   return fields;
 }
+
+/**
+ * The Idempotency-Key of a run being logged: the same body gives the same key, so a resend after a
+ * lost answer is stored once (a car never makes two passes in the same second with the same details).
+ * @example runKey({ carId: 'c1', at: '2026-05-03T14:20:00Z' }) // 'run-…'
+ */
+export function runKey(body: unknown): string {
+  const text = JSON.stringify(body);
+  // FNV-1a, twice with different seeds: enough to tell one team's runs apart, no crypto needed.
+  let a = 0x811c9dc5;
+  let b = 0x01000193 ^ 0x5bd1e995;
+  for (let i = 0; i < text.length; i += 1) {
+    const c = text.charCodeAt(i);
+    a = Math.imul(a ^ c, 0x01000193) >>> 0;
+    b = Math.imul(b ^ c, 0x5bd1e995) >>> 0;
+  }
+  return `run-${a.toString(36)}-${b.toString(36)}-${text.length}`;
+}

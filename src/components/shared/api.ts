@@ -34,7 +34,7 @@ function bodyToProblem(status: number, body: unknown): Problem {
 }
 
 /** Calls the API with JSON; never throws. */
-export async function callApi<T>(path: string, options: { method?: string; body?: unknown; timeoutMs?: number } = {}): Promise<Answer<T>> {
+export async function callApi<T>(path: string, options: { method?: string; body?: unknown; timeoutMs?: number; headers?: Record<string, string> } = {}): Promise<Answer<T>> {
   const method = options.method ?? 'GET';
   const controller = new AbortController();
   const timer = setTimeout(() => controller.abort(), options.timeoutMs ?? TIMEOUT_MS);
@@ -42,7 +42,7 @@ export async function callApi<T>(path: string, options: { method?: string; body?
     const response = await fetch(path, {
       method,
       credentials: 'same-origin',
-      headers: options.body === undefined ? { Accept: 'application/json' } : { Accept: 'application/json', 'Content-Type': 'application/json' },
+      headers: { Accept: 'application/json', ...(options.body === undefined ? {} : { 'Content-Type': 'application/json' }), ...options.headers },
       body: options.body === undefined ? undefined : JSON.stringify(options.body),
       signal: controller.signal,
     });

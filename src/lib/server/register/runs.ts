@@ -26,6 +26,7 @@ export interface RunView {
 
 export function runToView(run: Run): RunView {
   const { id, carId, event, round, lane, notes, elapsedSeconds, speedMph, recordedBy } = run;
+  // The idempotency key stays on the server.
   return { id, carId, at: run.at.toISOString(), event, round, lane, notes, elapsedSeconds, speedMph, recordedBy, createdAt: run.createdAt.toISOString() };
 }
 
@@ -54,16 +55,24 @@ function runValues(input: RunInput) {
 }
 
 /** Logs a run: every part in that car at that moment is charged with it (see run-counts.ts). */
-export async function createRun(access: TeamAccess, input: RunInput, now = new Date()): Promise<RunView> {
+export async function createRun(access: TeamAccess, input: RunInput, now = new Date(), idempotencyKey: string | null = null): Promise<RunView & { repeated?: true }> {
   requireNotAhead(input.at, now);
   await requireCar(access.team.id, input.carId);
+  let repeated = false;
   const run = await write(async (tx) => {
-    const [row] = await tx.insert(runs).values({ ...runValues(input), id: randomUUID(), teamId: access.team.id, recordedBy: access.user.id }).returning();
+    if (idempotencyKey) {
+      const earlier = await tx.select().from(runs).where(and(eq(runs.teamId, access.team.id), eq(runs.idempotencyKey, idempotencyKey))).get();
+      if (earlier) {
+        repeated = true;
+        return earlier;
+      }
+    }
+    const [row] = await tx.insert(runs).values({ ...runValues(input), id: randomUUID(), teamId: access.team.id, recordedBy: access.user.id, idempotencyKey }).returning();
     if (!row) throw new Error('insert returned no row');
     await recordAudit(tx, { teamId: access.team.id, actorId: access.user.id, action: 'create', recordType: 'run', recordId: row.id, after: runToView(row) });
     return row;
   });
-  return runToView(run);
+  return repeated ? { ...runToView(run), repeated: true } : runToView(run);
 }
 
 /** The team's runs, newest first, optionally for one car. */
@@ -83,6 +92,8 @@ export async function getRun(teamId: string, runId: string): Promise<RunView> {
 
 /** Edits a run (crew chief); every count it touched follows, since counts are derived. */
 export async function updateRun(access: TeamAccess, runId: string, changes: z.infer<typeof runUpdateSchema>, now = new Date()): Promise<RunView> {
+  // `{}` is a valid PATCH, and Drizzle refuses an UPDATE with nothing to SET: answer the run as it is.
+  if (Object.values(changes).every((value) => value === undefined)) return getRun(access.team.id, runId);
   if (changes.at) requireNotAhead(changes.at, now);
   if (changes.carId) await requireCar(access.team.id, changes.carId);
   return write(async (tx) => {

@@ -7,6 +7,7 @@ import { readListQuery } from '../../../lib/server/list-query';
 import { createRun, listRuns } from '../../../lib/server/register/runs';
 import { resolveBaseUrl } from '../../../lib/server/base-url';
 import { afterRunsChanged } from '../../../lib/server/notices/after-runs';
+import { readIdempotencyKey } from '../../../lib/server/idempotency';
 
 export const GET = handle(async ({ locals, url }) => {
   const { team } = requireMember(locals);
@@ -15,10 +16,12 @@ export const GET = handle(async ({ locals, url }) => {
   return json(toPage(await listRuns(team.id, { ...query, carId }), query.offset, query.limit));
 });
 
-/** `{ carId, at, event?, round?, lane?, notes?, elapsedSeconds?, speedMph? }` → 201. */
+/** `{ carId, at, event?, round?, lane?, notes?, elapsedSeconds?, speedMph? }` → 201; with `Idempotency-Key` a repeat answers the same run (200). */
 export const POST = handle(async ({ locals, request, url }) => {
   const access = requirePermission(locals, 'runs:record');
-  const run = await createRun(access, await readJson(request, runCreateSchema));
+  const key = readIdempotencyKey(request, false);
+  const { repeated, ...run } = await createRun(access, await readJson(request, runCreateSchema), new Date(), key);
+  if (repeated) return json(run, 200);
   await afterRunsChanged(access.team.id, resolveBaseUrl(url));
   return json(run, 201);
 });
