@@ -1,0 +1,40 @@
+import { describe, expect, it } from 'vitest';
+import { coarsestResolution, deltaToText, isoToDayText, lengthToText, stepTicks, valueDomain } from '../../../src/lib/charts/format';
+
+describe('chart number formats', () => {
+  it('writes lengths with the digits the indicator resolves', () => {
+    expect(lengthToText(0.008749, 'in', '0.001in')).toBe('0.009');
+    expect(lengthToText(0.008749, 'in', '0.0005in')).toBe('0.0087');
+    expect(lengthToText(0.2222, 'mm', '0.01mm')).toBe('0.22');
+    // 0.001 in is 0.0254 mm: one digit more than the leading place (units.ts rule).
+    expect(lengthToText(0.2222, 'mm', '0.001in')).toBe('0.222');
+  });
+
+  it('signs a change with a plus or a true minus, and none for nothing', () => {
+    expect(deltaToText(0.001, 'in', '0.001in')).toBe('+0.001');
+    expect(deltaToText(-0.001, 'in', '0.001in')).toBe('−0.001');
+    expect(deltaToText(0.0002, 'in', '0.001in')).toBe('0.000');
+  });
+
+  it('picks the coarser indicator', () => {
+    expect(coarsestResolution(['0.0005in', '0.001in'], 'in')).toBe('0.001in');
+    expect(coarsestResolution(['0.002mm', '0.0001in'], 'mm')).toBe('0.0001in');
+    expect(coarsestResolution([], 'mm')).toBe('0.01mm');
+  });
+
+  it('puts ticks on whole graduations', () => {
+    expect(stepTicks(0.004, 0.01, 0.001)).toEqual([0.004, 0.005, 0.006, 0.007, 0.008, 0.009, 0.01]);
+    expect(stepTicks(0, 60, 1, 7, [1, 2, 5])).toEqual([0, 10, 20, 30, 40, 50, 60]);
+    expect(stepTicks(0, 0.02, 0.001, 5)).toEqual([0, 0.005, 0.01, 0.015, 0.02]);
+  });
+
+  it('pads a domain to whole graduations and never below zero', () => {
+    expect(valueDomain([0.0065, 0.009], 0.001)).toEqual([0.005, 0.01]);
+    expect(valueDomain([0, 0.001], 0.001)).toEqual([0, 0.002]);
+    expect(valueDomain([], 0.001)).toEqual([0, 0.004]);
+  });
+
+  it('writes a day in UTC', () => {
+    expect(isoToDayText('2026-10-26T23:30:00.000Z')).toBe('26 Oct 2026');
+  });
+});
