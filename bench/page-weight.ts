@@ -106,6 +106,13 @@ async function main(): Promise<void> {
       [`gear set ${set.serial}`, `/gear-sets/${set.id}`, TARGETS.chart],
       ...(latest ? ([['inspection', `/inspections/${latest.id}`, TARGETS.chart]] as [string, string, number][]) : []),
       ['compare', `/gear-sets/${set.id}/compare`, TARGETS.chart],
+      ['parts', '/parts', TARGETS.plain],
+      [`part ${set.serial}`, `/parts/${set.id}`, TARGETS.plain],
+      ['cars', '/cars', TARGETS.plain],
+      ['runs', '/runs', TARGETS.plain],
+      ['reviews', '/reviews', TARGETS.plain],
+      // The sheet draws a polar chart of the readings as they are typed.
+      ['inspection sheet', `/inspections/new?gearSetId=${set.id}`, TARGETS.chart],
     ];
     let over = 0;
     console.log('JavaScript shipped per page (gzip)\n');
