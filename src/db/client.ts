@@ -8,10 +8,12 @@ import * as schema from './schema';
 /**
  * The one module that knows where the database lives (DATABASE_URL, DATABASE_AUTH_TOKEN).
  *
- * On an embedded file it turns on WAL and a busy timeout. The libSQL client opens a fresh
- * connection after every transaction and never carries PRAGMAs over, so every write goes through
- * `write()`: one queue in this process (no two write transactions ever race for the lock), and the
- * PRAGMAs are applied again to the connection the client opens next.
+ * On an embedded file it turns on WAL and a busy timeout, and keeps two connections: one for reads,
+ * and one that only `write()` uses, one transaction at a time (a queue in this process, so no two
+ * write transactions ever race for the lock). The libSQL client's own `transaction()` hands its
+ * connection to the transaction, never closes it, and opens a fresh one without the PRAGMAs: a file
+ * descriptor pair and a connection opened per write. `write()` runs BEGIN IMMEDIATE … COMMIT on its
+ * own connection instead, which keeps its PRAGMAs for good.
  */
 
 export type Database = LibSQLDatabase<typeof schema>;
@@ -26,7 +28,14 @@ interface Connection {
   url: string;
 }
 
+interface Writer {
+  client: Client;
+  db: Database;
+}
+
 let connection: Connection | undefined;
+let opening: Promise<Connection> | undefined;
+let writer: Writer | undefined;
 let writeQueue: Promise<unknown> = Promise.resolve();
 
 /** Turns a `file:` URL with a relative path into one with an absolute path, creating its folder. */
@@ -43,9 +52,16 @@ async function configureEmbeddedConnection(client: Client): Promise<void> {
   await client.execute('PRAGMA foreign_keys = ON');
 }
 
-/** Opens (once) and returns the database connection for this process. */
-export async function openDatabase(): Promise<Connection> {
-  if (connection) return connection;
+/** Opens (once, however many callers ask at the same moment) and returns the database connection for this process. */
+export function openDatabase(): Promise<Connection> {
+  opening ??= connect().catch((error: unknown) => {
+    opening = undefined;
+    throw error;
+  });
+  return opening;
+}
+
+async function connect(): Promise<Connection> {
   const env = readEnvironment();
   const embedded = env.DATABASE_URL.startsWith('file:');
   const url = embedded ? fileUrlToAbsolute(env.DATABASE_URL) : env.DATABASE_URL;
@@ -63,26 +79,72 @@ export async function getDb(): Promise<Database> {
   return (await openDatabase()).db;
 }
 
+async function openWriter(url: string): Promise<Writer> {
+  if (writer) return writer;
+  const client = createClient({ url });
+  await configureEmbeddedConnection(client);
+  writer = { client, db: drizzle(client, { schema }) };
+  return writer;
+}
+
+/** Whether `error`, or an error it wraps (Drizzle wraps failed queries), is SQLite's SQLITE_BUSY. */
+function isBusyError(error: unknown): boolean {
+  for (let current = error, depth = 0; current instanceof Error && depth < 5; current = current.cause, depth += 1) {
+    if (String((current as { code?: unknown }).code ?? '').startsWith('SQLITE_BUSY')) return true;
+  }
+  return false;
+}
+
+/** Closes the writer connection; the next write opens a fresh one. */
+function dropWriter(client: Client): void {
+  if (writer?.client === client) writer = undefined;
+  client.close();
+}
+
+/** One transaction on the writer connection; only ever called from the queue in `write()`. */
+async function runOnWriter<T>(url: string, work: (tx: Transaction) => Promise<T>): Promise<T> {
+  const { client, db } = await openWriter(url);
+  try {
+    await client.execute('BEGIN IMMEDIATE');
+  } catch (error) {
+    // The client never resets a statement that failed with SQLITE_BUSY (a BEGIN IMMEDIATE that
+    // waited out the busy timeout), and the connection then refuses every later COMMIT ("SQL
+    // statements in progress"): the next write opens a fresh one.
+    if (isBusyError(error)) dropWriter(client);
+    throw error;
+  }
+  try {
+    // The writer's own handle, inside BEGIN … COMMIT: the same query builder a Drizzle transaction offers.
+    const result = await work(db as unknown as Transaction);
+    await client.execute('COMMIT');
+    return result;
+  } catch (error) {
+    // Some errors (a full disk) have already rolled the transaction back; then ROLLBACK has nothing to do.
+    await client.execute('ROLLBACK').catch(() => undefined);
+    if (isBusyError(error)) dropWriter(client);
+    throw error;
+  }
+}
+
 /**
  * Runs `work` in one write transaction, after every earlier write of this process has ended.
  * The transaction always ends: committed when `work` resolves, rolled back when it throws.
  */
 export function write<T>(work: (tx: Transaction) => Promise<T>): Promise<T> {
   const run = async (): Promise<T> => {
-    const { client, db, embedded } = await openDatabase();
-    try {
-      return await db.transaction(work);
-    } finally {
-      if (embedded) await configureEmbeddedConnection(client);
-    }
+    const { db, embedded, url } = await openDatabase();
+    return embedded ? runOnWriter(url, work) : db.transaction(work);
   };
   const result = writeQueue.then(run, run);
   writeQueue = result.catch(() => undefined);
   return result;
 }
 
-/** Closes the connection (tests and command-line scripts). */
+/** Closes the connections (tests and command-line scripts). */
 export function closeDatabase(): void {
   connection?.client.close();
+  writer?.client.close();
   connection = undefined;
+  opening = undefined;
+  writer = undefined;
 }

@@ -69,6 +69,12 @@ export async function updateAccountSettings(
   userId: string,
   changes: Partial<Pick<User, 'name' | 'lengthUnit' | 'torqueUnit'>>,
 ): Promise<User> {
+  // An empty change (`{}` is a valid body) has nothing to set, and Drizzle refuses an UPDATE without a SET.
+  if (Object.values(changes).every((value) => value === undefined)) {
+    const user = await findUserById(userId);
+    if (!user) throw new HttpError(404, 'No such account.');
+    return user;
+  }
   return write(async (tx) => {
     const [user] = await tx.update(users).set(changes).where(eq(users.id, userId)).returning();
     if (!user) throw new HttpError(404, 'No such account.');

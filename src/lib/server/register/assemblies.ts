@@ -67,6 +67,8 @@ export async function createAssembly(access: TeamAccess, input: z.infer<typeof a
 }
 
 export async function updateAssembly(access: TeamAccess, id: string, changes: z.infer<typeof assemblyUpdateSchema>): Promise<AssemblyView> {
+  // `{}` is a valid PATCH, and Drizzle refuses an UPDATE with nothing to SET: answer the assembly as it is.
+  if (Object.values(changes).every((value) => value === undefined)) return getAssembly(access.team.id, id);
   if (changes.serial) await refuseDuplicateSerial(access.team.id, changes.serial, id);
   await write(async (tx) => {
     const before = await tx.select().from(assemblies).where(and(eq(assemblies.id, id), eq(assemblies.teamId, access.team.id))).get();

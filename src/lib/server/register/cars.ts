@@ -57,6 +57,8 @@ export async function createCar(access: TeamAccess, input: z.infer<typeof carCre
 }
 
 export async function updateCar(access: TeamAccess, carId: string, changes: z.infer<typeof carUpdateSchema>): Promise<CarView> {
+  // `{}` is a valid PATCH, and Drizzle refuses an UPDATE with nothing to SET: answer the car as it is.
+  if (Object.values(changes).every((value) => value === undefined)) return getCar(access.team.id, carId);
   if (changes.name) await refuseDuplicateName(access.team.id, changes.name, carId);
   await write(async (tx) => {
     const before = await tx.select().from(cars).where(and(eq(cars.id, carId), eq(cars.teamId, access.team.id))).get();

@@ -113,6 +113,8 @@ export async function createPart(access: TeamAccess, input: z.infer<typeof partC
 }
 
 export async function updatePart(access: TeamAccess, partId: string, changes: z.infer<typeof partUpdateSchema>): Promise<PartView> {
+  // `{}` is a valid PATCH, and Drizzle refuses an UPDATE with nothing to SET: answer the part as it is.
+  if (Object.values(changes).every((value) => value === undefined)) return getPart(access.team.id, partId);
   await write(async (tx) => {
     const before = await tx.select().from(parts).where(and(eq(parts.id, partId), eq(parts.teamId, access.team.id))).get();
     if (!before) throw new HttpError(404, 'No such part in this team.');
