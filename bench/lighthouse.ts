@@ -21,7 +21,7 @@ try {
   const sets = (await viewer.get('/api/gear-sets')).body.items as { id: string; serial: string }[];
   const set = sets.find((s) => s.serial === 'GS-4101')!;
   const inspections = (await viewer.get(`/api/inspections?gearSetId=${set.id}`)).body.items as { id: string }[];
-  const pages = [
+  const pages: [string, string][] = [
     ['board', '/'],
     ['gear set GS-4101', `/gear-sets/${set.id}`],
     ['inspection', `/inspections/${inspections.at(-1)!.id}`],
