@@ -12,22 +12,8 @@ export const VERDICT_TEXT: Readonly<Record<Verdict, { word: string; mark: string
   'out-of-band': { word: 'Out of band', mark: '✕', tone: 'text-alarm' },
 };
 
-const MEASURE_LABELS: Readonly<Record<string, string>> = {
-  'backlash-min-point': 'Backlash at the tightest point',
-  'backlash-max-point': 'Backlash at the loosest point',
-  spread: 'Spread (max − min)',
-  runout: 'Runout estimated from the lash',
-  'runout-measured': 'Back-face runout (measured)',
-  'pinion-preload-new': 'Pinion turning torque, new bearings',
-  'pinion-preload-used': 'Pinion turning torque, used bearings',
-  'hub-left': 'Left hub: effort unchanged to full nut torque',
-  'hub-right': 'Right hub: effort unchanged to full nut torque',
-};
-
-/** @example measureToLabel('spread') // 'Spread (max − min)' */
-export function measureToLabel(measure: string): string {
-  return MEASURE_LABELS[measure] ?? measure;
-}
+// One list of measure names for the whole product, kept beside the engine that judges them.
+export { measureToLabel } from '../analysis/measure-labels';
 
 const MEASURE_FIELDS: Readonly<Record<string, keyof ToleranceProfile>> = {
   'backlash-min-point': 'backlashMin',
