@@ -3,7 +3,7 @@ import { join } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ApiClient } from '../helpers/api-client';
-import { launchBrowser } from '../helpers/browser';
+import { launchBrowser, signInOnPage } from '../helpers/browser';
 import { PROJECT_ROOT, startServer, type RunningServer } from '../helpers/server';
 
 let server: RunningServer;
@@ -34,11 +34,7 @@ async function signIn(): Promise<Page> {
     if (message.type() === 'error') problems.push(message.text());
   });
   page.on('pageerror', (error) => problems.push(error.message));
-  await page.goto(`${server.baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill('chief@lashline.test');
-  await page.getByLabel('Password').fill('lashline-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(`${server.baseUrl}/`);
+  await signInOnPage(page, server.baseUrl, 'chief@lashline.test');
   return page;
 }
 

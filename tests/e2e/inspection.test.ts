@@ -1,7 +1,7 @@
 import sharp from 'sharp';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser } from '../helpers/browser';
+import { launchBrowser, signInOnPage } from '../helpers/browser';
 import { startServer, type RunningServer } from '../helpers/server';
 
 let server: RunningServer;
@@ -17,11 +17,7 @@ afterAll(async () => {
 
 async function signIn(context: BrowserContext, email: string): Promise<Page> {
   const page = await context.newPage();
-  await page.goto(`${server.baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('lashline-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(`${server.baseUrl}/`);
+  await signInOnPage(page, server.baseUrl, email);
   return page;
 }
 

@@ -1,6 +1,6 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser } from '../helpers/browser';
+import { launchBrowser, signInOnPage } from '../helpers/browser';
 import { startServer, type RunningServer } from '../helpers/server';
 
 let server: RunningServer;
@@ -23,11 +23,7 @@ async function signInAs(email: string): Promise<Page> {
     if (message.type() === 'error') consoleErrors.push(`${page.url()}: ${message.text()}`);
   });
   page.on('pageerror', (error) => consoleErrors.push(`${page.url()}: ${error.message}`));
-  await page.goto(`${server.baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('lashline-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(`${server.baseUrl}/`);
+  await signInOnPage(page, server.baseUrl, email);
   return page;
 }
 

@@ -1,6 +1,6 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser } from '../helpers/browser';
+import { launchBrowser, signInOnPage } from '../helpers/browser';
 import { findFreePort, startServer, type RunningServer } from '../helpers/server';
 
 let server: RunningServer;
@@ -18,11 +18,7 @@ afterAll(async () => {
 describe('a crew chief decides a review in the browser', () => {
   it('reads the evidence, retires the set, and the team gets the decision by mail', async () => {
     const page = await browser.newPage();
-    await page.goto(`${server.baseUrl}/sign-in`);
-    await page.getByLabel('E-mail').fill('chief@lashline.test');
-    await page.getByLabel('Password').fill('lashline-demo');
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(`${server.baseUrl}/`);
+    await signInOnPage(page, server.baseUrl, 'chief@lashline.test');
 
     await page.goto(`${server.baseUrl}/reviews`);
     await page.getByTestId('open-review').getByRole('link', { name: /GS-4102/ }).click();

@@ -1,4 +1,4 @@
-import { chromium, type Browser } from 'playwright-core';
+import { chromium, type Browser, type Page } from 'playwright-core';
 
 export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 
@@ -18,4 +18,13 @@ export function launchBrowser(): Promise<Browser> {
       '--disable-dev-shm-usage',
     ],
   });
+}
+
+/** Signs in through the sign-in page, as a person would, and waits for the board. */
+export async function signInOnPage(page: Page, baseUrl: string, email: string, password = 'lashline-demo'): Promise<void> {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL(`${baseUrl}/`);
 }

@@ -10,6 +10,18 @@ function point(i: ChartInspection, series: 'main' | 'second', value: number, val
   return { id: `${i.id}:${series}`, series, runs: i.runs, value, range: null, href: `/inspections/${i.id}`, dayText, valueText, rangeText: null, text: `Inspection of ${dayText} at run ${i.runs}: ${what} ${valueText}.` };
 }
 
+/** The axes and the life-limit line every measure chart shares. */
+function axesOf(life: GearSetChartInput['life'], x: { domain: [number, number]; ticks: number[] }, yDomain: [number, number], step: number, resolution: Parameters<typeof decimalsFor>[0], unit: Parameters<typeof decimalsFor>[1]) {
+  return {
+    lifeLimit: life.lifeLimitRuns === null ? null : { runs: life.lifeLimitRuns, label: `life ${life.lifeLimitRuns}` },
+    xDomain: x.domain,
+    xTicks: x.ticks,
+    yDomain,
+    yTicks: stepTicks(yDomain[0], yDomain[1], step, 6),
+    yDecimals: decimalsFor(resolution, unit),
+  };
+}
+
 function emptyOr(points: TrendChartPoint[], empty: string, otherwise: string): { state: TrendChartShape['state']; message: string } {
   if (points.length === 0) return { state: 'empty', message: empty };
   return { state: points.length < 3 ? 'sparse' : 'ready', message: otherwise };
@@ -46,12 +58,7 @@ export function shapeSpreadTrend(input: GearSetChartInput): TrendChartShape {
     limitLines: [{ value: limit, label: `limit ${format(limit)} ${unit}` }],
     fit,
     projection: shaped?.line ?? null,
-    lifeLimit: life.lifeLimitRuns === null ? null : { runs: life.lifeLimitRuns, label: `life ${life.lifeLimitRuns}` },
-    xDomain: x.domain,
-    xTicks: x.ticks,
-    yDomain,
-    yTicks: stepTicks(yDomain[0], yDomain[1], step, 6),
-    yDecimals: decimalsFor(resolution, unit),
+    ...axesOf(life, x, yDomain, step, resolution, unit),
     columns: { value: 'Spread', range: null },
     ...words,
     summary: last ? `Spread over ${countToText(points.length, 'inspection')}, latest ${last.valueText} at run ${last.runs}, against a limit of ${format(limit)} ${unit}. ${words.message}` : words.message,
@@ -95,12 +102,7 @@ export function shapeRunoutTrend(input: GearSetChartInput): TrendChartShape {
     limitLines: [{ value: limit, label: `limit ${format(limit)} ${unit}` }],
     fit: null,
     projection: null,
-    lifeLimit: life.lifeLimitRuns === null ? null : { runs: life.lifeLimitRuns, label: `life ${life.lifeLimitRuns}` },
-    xDomain: x.domain,
-    xTicks: x.ticks,
-    yDomain,
-    yTicks: stepTicks(yDomain[0], yDomain[1], step, 6),
-    yDecimals: decimalsFor(resolution, unit),
+    ...axesOf(life, x, yDomain, step, resolution, unit),
     columns: { value: 'Runout', range: null },
     ...words,
     summary: words.message,

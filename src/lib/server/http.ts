@@ -39,11 +39,16 @@ export function errorResponse(error: HttpError): Response {
   return json(body, error.status, error.headers);
 }
 
-/** Reads the request body as text, refusing more than `maxBytes` with 413 before reading it all. */
-export async function readBodyText(request: Request, maxBytes: number): Promise<string> {
+/**
+ * Reads the request body, refusing past `maxBytes` with the error `tooBig` makes: before reading when
+ * the declared length is over, and while streaming otherwise. A body cut off part-way leaves the rest
+ * unread and the connection unusable (the next request on it hangs, then resets), so that answer tells
+ * the client not to reuse it.
+ */
+export async function readBodyBytes(request: Request, maxBytes: number, tooBig: (headers?: Record<string, string>) => HttpError = (headers) => tooLarge(maxBytes, headers)): Promise<Buffer> {
   const declared = Number(request.headers.get('content-length') ?? '0');
-  if (declared > maxBytes) throw tooLarge(maxBytes);
-  if (!request.body) return '';
+  if (declared > maxBytes) throw tooBig();
+  if (!request.body) return Buffer.alloc(0);
   const reader = request.body.getReader();
   const chunks: Uint8Array[] = [];
   let size = 0;
@@ -52,14 +57,17 @@ export async function readBodyText(request: Request, maxBytes: number): Promise<
     if (done) break;
     size += value.byteLength;
     if (size > maxBytes) {
-      // Cancelling leaves the rest of a chunked body unread and the connection unusable (the next request on
-      // it hangs, then resets), so tell the client not to reuse it.
       await reader.cancel();
-      throw tooLarge(maxBytes, { Connection: 'close' });
+      throw tooBig({ Connection: 'close' });
     }
     chunks.push(value);
   }
-  return Buffer.concat(chunks).toString('utf8');
+  return Buffer.concat(chunks);
+}
+
+/** Reads the request body as text, refusing more than `maxBytes` with 413 before reading it all. */
+export async function readBodyText(request: Request, maxBytes: number): Promise<string> {
+  return (await readBodyBytes(request, maxBytes)).toString('utf8');
 }
 
 function tooLarge(maxBytes: number, headers?: Record<string, string>): HttpError {

@@ -1,5 +1,5 @@
 import { MAX_PHOTO_BYTES, MULTIPART_OVERHEAD_BYTES, photoFieldsSchema, type PhotoSide } from '../photos/upload-rules';
-import { HttpError, parseWith } from './http';
+import { HttpError, parseWith, readBodyBytes } from './http';
 
 export interface PhotoUpload {
   bytes: Uint8Array;
@@ -20,11 +20,10 @@ export async function readPhotoUpload(request: Request): Promise<PhotoUpload> {
   if (!/^multipart\/form-data\s*;/i.test(type)) {
     throw new HttpError(415, 'Send the photo as multipart/form-data, with the image in the field file and drive or coast in side.');
   }
-  if (Number(request.headers.get('content-length') ?? '0') > MAX_BODY_BYTES) throw tooLarge();
-  const body = await readAtMost(request, MAX_BODY_BYTES);
+  const body = await readBodyBytes(request, MAX_BODY_BYTES, tooLarge);
   let form: FormData;
   try {
-    form = await new Response(body, { headers: { 'content-type': type } }).formData();
+    form = await new Response(new Uint8Array(body.buffer as ArrayBuffer, body.byteOffset, body.byteLength), { headers: { 'content-type': type } }).formData();
   } catch {
     throw new HttpError(400, 'The body is not valid multipart/form-data; send it the way a browser form does.');
   }
@@ -34,26 +33,6 @@ export async function readPhotoUpload(request: Request): Promise<PhotoUpload> {
   if (file.size > MAX_PHOTO_BYTES) throw tooLarge();
   const { side } = parseWith(photoFieldsSchema, { side: form.get('side') ?? undefined });
   return { bytes: new Uint8Array(await file.arrayBuffer()), side };
-}
-
-async function readAtMost(request: Request, maxBytes: number): Promise<Uint8Array<ArrayBuffer>> {
-  if (!request.body) return new Uint8Array();
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let size = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    size += value.byteLength;
-    if (size > maxBytes) {
-      await reader.cancel();
-      // The rest of the body stays unread, so the client must not reuse the connection.
-      throw tooLarge({ Connection: 'close' });
-    }
-    chunks.push(value);
-  }
-  const all = Buffer.concat(chunks);
-  return new Uint8Array(all.buffer as ArrayBuffer, all.byteOffset, all.byteLength);
 }
 
 function tooLarge(headers?: Record<string, string>): HttpError {
