@@ -18,7 +18,8 @@ export default defineConfig({
           include: ['tests/api/**/*.test.ts'],
           environment: 'node',
           testTimeout: 30_000,
-          hookTimeout: 60_000,
+          // Setting up a team of four over SMTP and a fresh server takes longer on a busy 2-core machine.
+          hookTimeout: 120_000,
         },
       },
       {
