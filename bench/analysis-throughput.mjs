@@ -9,6 +9,9 @@
 //   mkdir -p /tmp/mine && ln -sfn "$PWD/node_modules" /tmp/mine/node_modules
 //   npx astro build --outDir /tmp/mine/dist && LASHLINE_DIST=/tmp/mine/dist node --import tsx bench/analysis-throughput.mjs
 //
+// The served path is the fast lane (src/fast-lane.ts); the same request through Astro's whole pipeline
+// (LASHLINE_FAST_LANE=off) is measured too, for comparison only.
+//
 // BENCH_SECONDS (default 10) and BENCH_CONNECTIONS (default 20) change the run; BENCH_CPU_PROF=folder writes a
 // CPU profile of the server there (bench/cpu-profile.mjs). The baseline runs in a child process (this file
 // with --baseline), like the real server, so neither shares an event loop with the load generator.
@@ -154,7 +157,7 @@ async function load(baseUrl, extraHeaders, seconds) {
 }
 
 /** Checks the answer once, so a fast run of 401s or 400s cannot pass for throughput. */
-async function checkAnswer(baseUrl, extraHeaders) {
+async function checkAnswer(baseUrl, extraHeaders, lane) {
   const response = await fetch(`${baseUrl}${PATH}`, {
     method: 'POST',
     headers: { 'content-type': 'application/json', origin: baseUrl, ...extraHeaders },
@@ -164,10 +167,13 @@ async function checkAnswer(baseUrl, extraHeaders) {
   if (response.status !== 200 || body.count !== 8 || !body.runoutEstimate) {
     throw new Error(`${baseUrl}${PATH} answered ${response.status} ${JSON.stringify(body)}`);
   }
+  if (lane !== undefined && response.headers.get('server-timing') !== lane) {
+    throw new Error(`${baseUrl}${PATH} was not answered by the expected path (Server-Timing: ${response.headers.get('server-timing')})`);
+  }
 }
 
-async function measure(label, baseUrl, extraHeaders, pid) {
-  await checkAnswer(baseUrl, extraHeaders);
+async function measure(label, baseUrl, extraHeaders, pid, lane) {
+  await checkAnswer(baseUrl, extraHeaders, lane);
   await load(baseUrl, extraHeaders, WARM_UP_SECONDS);
   const cpuBefore = readCpuSeconds(pid);
   const result = await load(baseUrl, extraHeaders, SECONDS);
@@ -194,12 +200,13 @@ async function main() {
   console.log(`server: ${SERVER_ENTRY}`);
   const server = await startServer({ env: profileEnv() });
   const baseline = await startBaseline();
+  const throughAstro = await startServer({ env: { LASHLINE_FAST_LANE: 'off' } });
   try {
-    const { client } = await signedInClient(server.baseUrl, { team: 'Bench Team' });
-    const cookie = client.cookieHeader();
-    const pid = typeof server.pid === 'function' ? server.pid() : findServerPid();
-    const lashline = await measure('Lashline (signed in)', server.baseUrl, { cookie }, pid);
+    const signIn = async (running) => ({ cookie: (await signedInClient(running.baseUrl, { team: 'Bench Team' })).client.cookieHeader() });
+    const pidOf = (running) => (typeof running.pid === 'function' ? running.pid() : findServerPid());
+    const lashline = await measure('Lashline (signed in)', server.baseUrl, await signIn(server), pidOf(server), 'fast-lane');
     const bare = await measure('bare node:http', baseline.baseUrl, {}, baseline.pid);
+    const astro = await measure('via Astro, for contrast', throughAstro.baseUrl, await signIn(throughAstro), pidOf(throughAstro), null);
     const ratio = lashline.rps / bare.rps;
     console.log(`ratio Lashline / bare: ${ratio.toFixed(3)} (target ≥ 0.25)`);
     const cpuRatio = bare.cpuMs / lashline.cpuMs;
@@ -207,11 +214,15 @@ async function main() {
       `ratio by server CPU per request, bare / Lashline: ${cpuRatio.toFixed(3)} (steadier on a shared machine)`,
     );
     console.log(
+      `the same request through Astro's pipeline (LASHLINE_FAST_LANE=off): ${(astro.rps / bare.rps).toFixed(3)} of bare by req/s, ` +
+        `${(bare.cpuMs / astro.cpuMs).toFixed(3)} by CPU`,
+    );
+    console.log(
       `target ≥ 1000 req/s: ${lashline.rps >= 1000 ? 'met' : 'MISSED'}; target ≥ 1/4 of bare: ${ratio >= 0.25 ? 'met' : 'MISSED'}`,
     );
   } finally {
     baseline.stop();
-    await server.stop();
+    await Promise.all([server.stop(), throughAstro.stop()]);
   }
 }
 

@@ -68,7 +68,7 @@ const signInLimit = defineMiddleware(async (context, next) => {
 
 /** The person and their role, read from the database on every request. */
 const session = defineMiddleware(async ({ cookies, locals }, next) => {
-  Object.assign(locals, await loadSession(cookies));
+  Object.assign(locals, await loadSession((name) => cookies.get(name)?.value));
   return next();
 });
 

@@ -25,18 +25,22 @@ export function bodyLimitFor(pathname: string): number {
   return MAX_JSON_BYTES;
 }
 
+/** The headers of every JSON answer. */
+export const JSON_HEADERS: Readonly<Record<string, string>> = { 'Content-Type': 'application/json; charset=utf-8', 'Cache-Control': 'no-store' };
+
 /** A JSON response with the exact status. */
 export function json(body: unknown, status = 200, headers: Record<string, string> = {}): Response {
-  return new Response(JSON.stringify(body), {
-    status,
-    headers: { 'Content-Type': 'application/json; charset=utf-8', 'Cache-Control': 'no-store', ...headers },
-  });
+  return new Response(JSON.stringify(body), { status, headers: { ...JSON_HEADERS, ...headers } });
 }
 
 /** The `{ error: { message, fields? } }` body every failing endpoint answers with. */
+export function errorToBody(error: HttpError): { error: { message: string; fields?: Record<string, string> } } {
+  return { error: { message: error.message, ...(error.fields ? { fields: error.fields } : {}) } };
+}
+
+/** The JSON answer for an HttpError, with its status and headers. */
 export function errorResponse(error: HttpError): Response {
-  const body = { error: { message: error.message, ...(error.fields ? { fields: error.fields } : {}) } };
-  return json(body, error.status, error.headers);
+  return json(errorToBody(error), error.status, error.headers);
 }
 
 /**
@@ -70,7 +74,8 @@ export async function readBodyText(request: Request, maxBytes: number): Promise<
   return (await readBodyBytes(request, maxBytes)).toString('utf8');
 }
 
-function tooLarge(maxBytes: number, headers?: Record<string, string>): HttpError {
+/** The 413 for a body past `maxBytes`, with the limit in words. */
+export function tooLarge(maxBytes: number, headers?: Record<string, string>): HttpError {
   const size = maxBytes >= 1024 * 1024 ? `${maxBytes / (1024 * 1024)} MB` : `${maxBytes / 1024} KB`;
   return new HttpError(413, `The request body is larger than ${size}; send less.`, undefined, headers);
 }
@@ -84,11 +89,19 @@ export async function readJson<S extends z.ZodType>(
   schema: S,
   maxBytes = MAX_JSON_BYTES,
 ): Promise<z.infer<S>> {
-  const type = request.headers.get('content-type') ?? '';
-  if (!type.toLowerCase().startsWith('application/json')) {
+  if (!isJsonContentType(request.headers.get('content-type'))) {
     throw new HttpError(415, 'Send the body as JSON with Content-Type: application/json.');
   }
-  const text = await readBodyText(request, maxBytes);
+  return parseJsonWith(schema, await readBodyText(request, maxBytes));
+}
+
+/** Whether a Content-Type header names JSON, the only body type `readJson` accepts. */
+export function isJsonContentType(type: string | null | undefined): boolean {
+  return (type ?? '').toLowerCase().startsWith('application/json');
+}
+
+/** Parses JSON text and validates it with `schema`: 400 for malformed JSON, 400 naming each bad field. */
+export function parseJsonWith<S extends z.ZodType>(schema: S, text: string): z.infer<S> {
   let raw: unknown;
   try {
     raw = JSON.parse(text);
@@ -105,6 +118,18 @@ export function parseWith<S extends z.ZodType>(schema: S, raw: unknown): z.infer
   throw new HttpError(400, zodIssuesToMessage(parsed.error, 'body'), zodIssuesToFields(parsed.error));
 }
 
+/** Logs a 401 or 403 answer as a security event (who was refused what); other statuses are not logged. */
+export function logIfDenied(error: HttpError, request: { method: string; path: string }, locals: Pick<App.Locals, 'user' | 'team'>): void {
+  if (error.status !== 401 && error.status !== 403) return;
+  logSecurityEvent('denied', { status: error.status, ...request, userId: locals.user?.id ?? null, role: locals.team?.role ?? null });
+}
+
+/** The answer to an unexpected error: logged in full here, a plain 500 for the client. */
+export function logServerFailure(method: string, path: string, error: unknown): HttpError {
+  console.error(`[lashline] ${method} ${path} failed`, error);
+  return new HttpError(500, 'Something went wrong on the server; the change was not saved.');
+}
+
 /** Wraps an endpoint so that an HttpError becomes its JSON answer and nothing else leaks. */
 export function handle(
   work: (context: import('astro').APIContext) => Promise<Response>,
@@ -114,13 +139,10 @@ export function handle(
       return await work(context);
     } catch (error) {
       if (error instanceof HttpError) {
-        if (error.status === 401 || error.status === 403) {
-          logSecurityEvent('denied', { status: error.status, method: context.request.method, path: context.url.pathname, userId: context.locals.user?.id ?? null, role: context.locals.team?.role ?? null });
-        }
+        logIfDenied(error, { method: context.request.method, path: context.url.pathname }, context.locals);
         return errorResponse(error);
       }
-      console.error(`[lashline] ${context.request.method} ${context.url.pathname} failed`, error);
-      return errorResponse(new HttpError(500, 'Something went wrong on the server; the change was not saved.'));
+      return errorResponse(logServerFailure(context.request.method, context.url.pathname, error));
     }
   };
 }

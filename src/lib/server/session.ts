@@ -1,7 +1,6 @@
 import { decode } from '@auth/core/jwt';
-import type { AstroCookies } from 'astro';
 import { and, eq, sql } from 'drizzle-orm';
-import { getDb, type Database } from '../../db/client';
+import { countEndedWrites, getDb, isEmbeddedDatabase, type Database } from '../../db/client';
 import { memberships, teams, users } from '../../db/schema';
 import { userToPublic } from './accounts';
 import { resolveAuthSecret } from './auth-secret';
@@ -59,21 +58,50 @@ function prepareSessionQuery(db: Database) {
     .prepare();
 }
 
-/**
- * Reads the Auth.js session cookie and loads the person and their current team's role from the
- * database, so a removed or demoted member loses access on their very next request, and a session
- * whose version is behind the person's (password changed, signed out everywhere) is refused.
- */
-export async function loadSession(cookies: AstroCookies): Promise<Pick<App.Locals, 'user' | 'team'>> {
-  const none = { user: null, team: null };
-  const cookie = SESSION_COOKIES.map((name) => ({ name, value: cookies.get(name)?.value })).find((c) => c.value);
-  if (!cookie?.value) return none;
-  const claims = await decodeClaims(cookie.name, cookie.value);
-  if (!claims) return none;
+type SessionRow = NonNullable<Awaited<ReturnType<ReturnType<typeof prepareSessionQuery>['get']>>>;
+
+// The person and role, as last read, per person. An entry is used only while no write of this process
+// has ended since it was read (every change to people, teams and roles is a write through `write()`), and
+// for at most a second, which bounds what another process writing the same file could leave unseen. On a
+// libSQL server other instances write too, so nothing is kept there
+// (docs/decisions/007-calculations-beside-astro.md).
+const ROWS = new Map<string, { row: SessionRow | undefined; writes: number; readAt: number }>();
+const MAX_ROW_AGE_MS = 1000;
+const MAX_ROWS = 1000;
+
+async function readSessionRow(userId: string): Promise<SessionRow | undefined> {
+  const now = Date.now();
+  const writes = countEndedWrites();
+  const kept = ROWS.get(userId);
+  if (kept && kept.writes === writes && now - kept.readAt < MAX_ROW_AGE_MS) return kept.row;
   const db = await getDb();
   let query = PREPARED.get(db);
   if (!query) PREPARED.set(db, (query = prepareSessionQuery(db)));
-  const row = await query.get({ id: claims.sub });
+  const row = await query.get({ id: userId });
+  if (await isEmbeddedDatabase()) {
+    if (ROWS.size >= MAX_ROWS && !ROWS.has(userId)) ROWS.delete(ROWS.keys().next().value as string);
+    // `writes` as it was before the query: a write that ended meanwhile makes this entry stale at once.
+    ROWS.set(userId, { row, writes, readAt: now });
+  }
+  return row;
+}
+
+/** The session as the rest of the server sees it: the person and their current team, or nulls. */
+export type SessionLocals = Pick<App.Locals, 'user' | 'team'>;
+
+/**
+ * Reads the Auth.js session cookie (through `readCookie`, so pages and the fast lane share it) and
+ * loads the person and their current team's role, so a removed or demoted member loses access on
+ * their very next request, and a session whose version is behind the person's (password changed,
+ * signed out everywhere) is refused.
+ */
+export async function loadSession(readCookie: (name: string) => string | undefined): Promise<SessionLocals> {
+  const none = { user: null, team: null };
+  const cookie = SESSION_COOKIES.map((name) => ({ name, value: readCookie(name) })).find((c) => c.value);
+  if (!cookie?.value) return none;
+  const claims = await decodeClaims(cookie.name, cookie.value);
+  if (!claims) return none;
+  const row = await readSessionRow(claims.sub);
   if (!row || claims.sv !== row.user.sessionVersion) return none;
   // A team that requires a second factor holds back its owners and crew chiefs until they turn one on.
   const held = Boolean(row.requireSecondFactor) && (row.role === 'owner' || row.role === 'crew-chief') && !row.user.totpEnabledAt;

@@ -1,11 +1,4 @@
-import { tighteningSequence } from '../../../lib/analysis';
-import { tighteningQuerySchema } from '../../../lib/analysis/schemas';
-import { requireMember } from '../../../lib/server/guard';
-import { handle, json, parseWith } from '../../../lib/server/http';
+import { CALCULATIONS, calculationEndpoint } from '../../../lib/server/calculations';
 
 /** `?bolts=N` (3–36) → `{ bolts, sequence }`, the cross order for bolts numbered clockwise from 1. */
-export const GET = handle(async ({ url, locals }) => {
-  requireMember(locals);
-  const { bolts } = parseWith(tighteningQuerySchema, Object.fromEntries(url.searchParams));
-  return json(tighteningSequence(bolts));
-});
+export const GET = calculationEndpoint(CALCULATIONS.tighteningSequence);
