@@ -6,19 +6,18 @@ import { mmToLength } from '../../units';
 import { HttpError } from '../http';
 import { getPart } from '../register/parts';
 import { readTeamSettings } from '../register/team-settings';
-import { listInspectionRows } from './inspections';
+import { listSubmittedForAnalysis } from './inspections';
 import { listProfileVersions, profileForGearSet } from './profiles';
 
 /** The analysis of a stored gear set: each submitted inspection judged by the profile version it kept. */
 export async function analyseStoredGearSet(teamId: string, gearSetId: string, units: ReaderUnits): Promise<GearSetAnalysis & { gearSetId: string; unit: string; torqueUnit: string; profile: { name: string; version: number } }> {
   const set = await getPart(teamId, gearSetId);
   if (set.kind !== 'gear-set') throw new HttpError(404, 'No such gear set in this team.');
-  const [rows, profile, settings] = await Promise.all([listInspectionRows(teamId, gearSetId), profileForGearSet(teamId, gearSetId), readTeamSettings(teamId)]);
+  const [rows, profile, settings] = await Promise.all([listSubmittedForAnalysis(teamId, gearSetId), profileForGearSet(teamId, gearSetId), readTeamSettings(teamId)]);
   const versions = new Map((await listProfileVersions(teamId, profile.profileId)).map((v) => [v.versionId, v.values]));
   const geometry = { ringTeeth: set.ringTeeth ?? null, pinionTeeth: set.pinionTeeth ?? null, pressureAngleDeg: set.pressureAngleDeg ?? null };
   const inspections = [];
   for (const row of rows) {
-    if (row.status !== 'submitted') continue;
     // An inspection judged by a version of another profile (the set changed profile) falls back to the current one.
     const values: ToleranceProfile = (row.profileVersionId && versions.get(row.profileVersionId)) || profile.values;
     const data = row.data as InspectionData;
