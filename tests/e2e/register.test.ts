@@ -33,6 +33,26 @@ async function open(page: Page, path: string): Promise<void> {
   await page.waitForSelector('astro-island:not([ssr])', { state: 'attached' });
 }
 
+/**
+ * Opens the parts page, which the server renders whole: only roles that may add parts get an island
+ * (the add form), so this waits for the table instead.
+ */
+async function openParts(page: Page, query = ''): Promise<void> {
+  await page.goto(`${server.baseUrl}/parts${query}`);
+  await page.getByRole('region', { name: 'Parts', exact: true }).waitFor();
+}
+
+/** The serials of the rows shown, in order, and one column's cells as text. */
+async function readColumn(page: Page, column: string): Promise<{ serial: string; text: string }[]> {
+  return page.getByTestId('part-row').evaluateAll(
+    (rows, id) => rows.map((row) => ({ serial: (row as HTMLElement).dataset.serial ?? '', text: row.querySelector(`td[data-column="${id}"]`)?.textContent?.trim() ?? '' })),
+    column,
+  );
+}
+
+/** The search part of the page's URL as an object. */
+const queryOf = (page: Page) => Object.fromEntries(new URL(page.url()).searchParams);
+
 type Counts = Map<string, { sinceInstall: number; total: number }>;
 
 /** The run counts of every part the cars page lists under one car or one shelf assembly. */
@@ -51,7 +71,7 @@ async function readCounts(page: Page, regionName: string): Promise<Counts> {
 
 /** Total runs of each part as the parts table shows them. */
 async function readPartsTable(page: Page): Promise<Map<string, number>> {
-  await open(page, '/parts');
+  await openParts(page);
   const totals = new Map<string, number>();
   const rows = page.getByTestId('part-row');
   for (let i = 0; i < (await rows.count()); i += 1) {
@@ -138,9 +158,10 @@ describe('the parts register and the run log in a real browser', () => {
 
   it('shows a viewer the register without any control to log, install or edit', async () => {
     const page = await signInAs('viewer@lashline.test');
-    await open(page, '/parts');
+    await openParts(page);
     expect(await page.getByTestId('part-row').count()).toBeGreaterThan(10);
     expect(await page.getByRole('button', { name: 'Add a part' }).count()).toBe(0);
+    expect(await page.locator('astro-island').count()).toBe(0);
 
     await open(page, '/cars');
     expect(await page.getByTestId('car-card').count()).toBe(2);
@@ -178,6 +199,108 @@ describe('the parts register and the run log in a real browser', () => {
     await firstRun.getByText('6.012 s').waitFor();
     await open(page, '/runs');
     expect(await page.getByTestId('run-row').first().textContent()).toContain('6.012 s');
+    await page.close();
+  });
+
+  it('sorts the parts by a header link and filters them by kind through the form', async () => {
+    const page = await signInAs('tech@lashline.test');
+    await openParts(page);
+    expect(await page.locator('astro-island').count()).toBe(0);
+    const header = page.locator('th[data-column="totalRuns"]');
+    const totals = async () => (await readColumn(page, 'totalRuns')).map((cell) => Number(cell.text));
+    const unsorted = await totals();
+    const ascending = [...unsorted].sort((a, b) => a - b);
+    expect(unsorted).not.toEqual(ascending);
+
+    await header.getByRole('link', { name: /Total runs/ }).click();
+    await page.waitForURL(/sort=totalRuns/);
+    expect(queryOf(page)).toEqual({ sort: 'totalRuns', dir: 'asc' });
+    expect(await header.getAttribute('aria-sort')).toBe('ascending');
+    expect(await header.textContent()).toContain('▲');
+    expect(await totals()).toEqual(ascending);
+
+    await header.getByRole('link', { name: /Total runs/ }).click();
+    await page.waitForURL(/dir=desc/);
+    expect(await header.getAttribute('aria-sort')).toBe('descending');
+    expect(await totals()).toEqual([...ascending].reverse());
+
+    // A changed list submits the form at once; the sort rides along in hidden fields.
+    const everything = await page.getByTestId('part-row').count();
+    await page.getByLabel('Kind').selectOption('gear-set');
+    await page.waitForURL(/kind=gear-set/);
+    expect(queryOf(page)).toMatchObject({ kind: 'gear-set', sort: 'totalRuns', dir: 'desc' });
+    const kinds = await readColumn(page, 'kind');
+    expect(kinds.length).toBeGreaterThan(1);
+    expect(kinds.length).toBeLessThan(everything);
+    expect(new Set(kinds.map((cell) => cell.text))).toEqual(new Set(['Gear set']));
+    expect(kinds.every((cell) => cell.serial.startsWith('GS-'))).toBe(true);
+    const gearTotals = await totals();
+    expect(gearTotals).toEqual([...gearTotals].sort((a, b) => b - a));
+    expect(await page.getByTestId('parts-summary').textContent()).toBe(`Parts 1–${kinds.length} of ${kinds.length} (filtered from ${everything}).`);
+
+    // The third press of a header takes the sort off and keeps the filter.
+    await header.getByRole('link', { name: /Total runs/ }).click();
+    await page.waitForURL((url) => !url.searchParams.has('sort'));
+    expect(queryOf(page)).toEqual({ kind: 'gear-set' });
+    expect(await header.getAttribute('aria-sort')).toBe('none');
+    await page.getByRole('link', { name: 'Clear filters' }).click();
+    await page.waitForURL(`${server.baseUrl}/parts`);
+    expect(await page.getByTestId('part-row').count()).toBe(everything);
+    await page.close();
+  });
+
+  it('filters, sorts and pages the parts with JavaScript turned off', async () => {
+    const context = await browser.newContext({ javaScriptEnabled: false, viewport: { width: 1024, height: 768 } });
+    const page = await context.newPage();
+    await signInOnPage(page, server.baseUrl, 'tech@lashline.test');
+    await openParts(page, '?size=nonsense&page=99&sort=colour');
+    // A bad query falls back to the defaults, and a page past the end shows the last one.
+    expect(await page.getByTestId('parts-page').textContent()).toBe('Page 1 of 1');
+    const everything = await page.getByTestId('part-row').count();
+    expect(everything).toBeGreaterThan(10);
+
+    await page.getByLabel('Status').selectOption('spare');
+    await page.getByLabel('Serial contains').fill('gs-');
+    await page.getByRole('button', { name: 'Apply' }).click();
+    await page.waitForURL(/status=spare/);
+    const statuses = await readColumn(page, 'status');
+    expect(statuses.length).toBeGreaterThan(0);
+    expect(new Set(statuses.map((cell) => cell.text))).toEqual(new Set(['Spare']));
+    expect(statuses.every((cell) => cell.serial.startsWith('GS-'))).toBe(true);
+
+    await page.locator('th[data-column="serial"]').getByRole('link').click();
+    await page.waitForURL(/sort=serial/);
+    await page.locator('th[data-column="serial"]').getByRole('link').click();
+    await page.waitForURL(/dir=desc/);
+    const serials = (await readColumn(page, 'serial')).map((cell) => cell.serial);
+    expect(serials).toEqual([...serials].sort().reverse());
+    expect(queryOf(page)).toMatchObject({ status: 'spare', serial: 'gs-', sort: 'serial', dir: 'desc' });
+    // One page only: there is no link to a next or previous page.
+    expect(await page.getByRole('link', { name: /page$/ }).count()).toBe(0);
+    await context.close();
+  });
+
+  it('lets a crew chief add a part, then names it above the table that now lists it', async () => {
+    const page = await signInAs('chief@lashline.test');
+    await openParts(page, '?kind=axle&sort=serial&dir=desc');
+    await page.waitForSelector('astro-island:not([ssr])', { state: 'attached' });
+    await page.getByRole('button', { name: 'Add a part' }).click();
+    await page.getByLabel('Serial', { exact: true }).fill('GS-4199');
+    await page.getByLabel('Ring gear teeth').fill('41');
+    await page.getByLabel('Pinion teeth').fill('10');
+    await page.getByRole('button', { name: 'Add the part' }).click();
+    await page.waitForURL(/added=/);
+    // The filters and sort are dropped, so the new part is in the table.
+    expect(Object.keys(queryOf(page))).toEqual(['added']);
+    expect((await page.getByTestId('part-added').textContent())?.trim()).toBe('Added gear set GS-4199. It is on the shelf as a spare.');
+    const row = page.locator('[data-testid="part-row"][data-serial="GS-4199"]');
+    expect((await row.locator('td[data-column="status"]').textContent())?.trim()).toBe('Spare');
+    expect((await row.locator('td[data-column="where"]').textContent())?.trim()).toBe('Not installed');
+    expect(await page.getByTestId('part-added').getByRole('link', { name: 'GS-4199' }).getAttribute('href')).toBe(`/parts/${queryOf(page).added}`);
+
+    // An id that is not one of this team's parts says nothing.
+    await openParts(page, '?added=not-a-part');
+    expect(await page.getByTestId('part-added').count()).toBe(0);
     await page.close();
   });
 

@@ -9,7 +9,7 @@ import { PART_KINDS, PART_KIND_LABELS, type PartKind } from '../../lib/register/
 import { DEFAULT_LIFE_LIMITS, type LifeLimitDefault } from '../../lib/register/team-settings';
 import { ratioToLabel, teethToRatio } from '../../lib/register/gear-ratio';
 import { callApi, fieldMessage, problemToSummary, type Problem } from '../shared/api';
-import { fetchTeamSettings, SETTINGS_KEY, type TeamSettingsAnswer } from './parts-queries';
+import { fetchTeamSettings, SETTINGS_KEY, type TeamSettingsAnswer } from './team-settings-query';
 
 // The form holds what the schema takes in; the resolver hands over what it gives out (texts trimmed, blanks null).
 type PartFormInput = z.input<typeof partCreateSchema>;

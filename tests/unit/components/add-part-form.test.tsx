@@ -4,7 +4,7 @@ import { cleanup, render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import AddPartForm from '../../../src/components/parts/AddPartForm';
-import { SETTINGS_KEY, type TeamSettingsAnswer } from '../../../src/components/parts/parts-queries';
+import { SETTINGS_KEY, type TeamSettingsAnswer } from '../../../src/components/parts/team-settings-query';
 import { DEFAULT_LIFE_LIMITS, DEFAULT_TEAM_SETTINGS } from '../../../src/lib/register/team-settings';
 
 afterEach(cleanup);

@@ -2,13 +2,12 @@ import type { LifeLimitDefault, TeamSettings } from '../../lib/register/team-set
 import type { PartKind } from '../../lib/register/kinds';
 import { getJson } from '../shared/api';
 
-/** The query keys and paths the parts island shares with its form. */
-export const PARTS_KEY = ['parts'] as const;
-export const PARTS_PATH = '/api/parts?limit=500';
+/** The team settings as GET /api/team/settings answers them, and their TanStack Query key. */
 export const SETTINGS_KEY = ['team-settings'] as const;
 
 export type TeamSettingsAnswer = TeamSettings & { lifeLimitDefaults: Record<PartKind, LifeLimitDefault> };
 
+/** Reads the team's settings; throws with the endpoint's message on failure. */
 export function fetchTeamSettings(): Promise<TeamSettingsAnswer> {
   return getJson<TeamSettingsAnswer>('/api/team/settings');
 }
