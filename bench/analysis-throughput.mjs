@@ -18,7 +18,7 @@
 // --import tsx: the baseline and the helpers that start the real server are TypeScript.
 
 import { execFileSync, spawn } from 'node:child_process';
-import { readdirSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import http from 'node:http';
 import { performance } from 'node:perf_hooks';
 
@@ -97,20 +97,6 @@ function readCpuSeconds(pid) {
   } catch {
     return NaN;
   }
-}
-
-/** The pid of our child running the built server, for a startServer that does not hand it out. */
-function findServerPid() {
-  for (const name of readdirSync('/proc').filter((n) => /^\d+$/.test(n))) {
-    try {
-      const ppid = Number(readFileSync(`/proc/${name}/stat`, 'utf8').split(') ')[1].split(' ')[1]);
-      const cmdline = readFileSync(`/proc/${name}/cmdline`, 'utf8');
-      if (ppid === process.pid && /serve\.ts|entry\.mjs/.test(cmdline)) return Number(name);
-    } catch {
-      // gone, or not ours
-    }
-  }
-  return undefined;
 }
 
 /** One POST; resolves with its status and latency in ms (status 0 for a transport error or a timeout). */
@@ -203,10 +189,9 @@ async function main() {
   const throughAstro = await startServer({ env: { LASHLINE_FAST_LANE: 'off' } });
   try {
     const signIn = async (running) => ({ cookie: (await signedInClient(running.baseUrl, { team: 'Bench Team' })).client.cookieHeader() });
-    const pidOf = (running) => (typeof running.pid === 'function' ? running.pid() : findServerPid());
-    const lashline = await measure('Lashline (signed in)', server.baseUrl, await signIn(server), pidOf(server), 'fast-lane');
+    const lashline = await measure('Lashline (signed in)', server.baseUrl, await signIn(server), server.pid(), 'fast-lane');
     const bare = await measure('bare node:http', baseline.baseUrl, {}, baseline.pid);
-    const astro = await measure('via Astro, for contrast', throughAstro.baseUrl, await signIn(throughAstro), pidOf(throughAstro), null);
+    const astro = await measure('via Astro, for contrast', throughAstro.baseUrl, await signIn(throughAstro), throughAstro.pid(), null);
     const ratio = lashline.rps / bare.rps;
     console.log(`ratio Lashline / bare: ${ratio.toFixed(3)} (target ≥ 0.25)`);
     const cpuRatio = bare.cpuMs / lashline.cpuMs;

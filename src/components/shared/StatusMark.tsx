@@ -1,6 +1,18 @@
 import { PART_STATUS_LABELS, type PartStatus } from '../../lib/register/kinds';
-import type { LifeState } from '../../lib/register/part-life';
-import { lifeStateToMark, STATUS_TONE } from './marks';
+import { LIFE_STATE_LABELS, type LifeState } from '../../lib/register/part-life';
+
+/**
+ * A part's status as a word with a small shape: hollow circle spare, filled circle in service,
+ * triangle under review, square retired, cross scrapped. Rendered by islands and, without
+ * hydration, by .astro pages.
+ */
+const STATUS_TONE: Record<PartStatus, string> = {
+  spare: 'text-petrol',
+  'in-service': 'text-steady',
+  'under-review': 'text-amber',
+  retired: 'text-ink-soft',
+  scrapped: 'text-alarm',
+};
 
 function Shape({ status }: { status: PartStatus }) {
   const common = { width: 14, height: 14, viewBox: '0 0 14 14', 'aria-hidden': true, focusable: false, className: 'shrink-0' } as const;
@@ -18,11 +30,6 @@ function Shape({ status }: { status: PartStatus }) {
   }
 }
 
-/**
- * A part's status as a word with a small shape: hollow circle spare, filled circle in service,
- * triangle under review, square retired, cross scrapped. Rendered by islands and, without
- * hydration, by .astro pages; StatusMark.astro draws the same shapes where no React is wanted.
- */
 export function StatusMark({ status }: { status: PartStatus }) {
   return (
     <span className={`inline-flex items-center gap-1.5 font-semibold ${STATUS_TONE[status]}`} data-status={status}>
@@ -37,14 +44,15 @@ export function StatusMark({ status }: { status: PartStatus }) {
  * already says "N over", so the mark then only adds its shape.
  */
 export function LifeMark({ state }: { state: LifeState }) {
-  const mark = lifeStateToMark(state);
-  if (!mark) return null;
+  if (state === 'ok' || state === 'no-limit') return null;
+  const tone = state === 'over' ? 'text-alarm' : 'text-amber';
+  const word = state === 'over' ? 'limit passed' : LIFE_STATE_LABELS[state];
   return (
-    <span className={`inline-flex items-center gap-1 whitespace-nowrap text-sm font-semibold ${mark.tone}`}>
+    <span className={`inline-flex items-center gap-1 whitespace-nowrap text-sm font-semibold ${tone}`}>
       <svg width="12" height="12" viewBox="0 0 14 14" aria-hidden="true" focusable="false">
-        {mark.filled ? <path d="M7 1 L13 13 H1 Z" fill="currentColor" /> : <path d="M7 1.5 L12.5 12.5 H1.5 Z" fill="none" stroke="currentColor" strokeWidth="2" />}
+        {state === 'due' ? <path d="M7 1.5 L12.5 12.5 H1.5 Z" fill="none" stroke="currentColor" strokeWidth="2" /> : <path d="M7 1 L13 13 H1 Z" fill="currentColor" />}
       </svg>
-      <span className="text-ink">{mark.word}</span>
+      <span className="text-ink">{word}</span>
     </span>
   );
 }
