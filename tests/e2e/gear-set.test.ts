@@ -108,4 +108,37 @@ describe('a gear set’s life in a real browser', () => {
     expect(await page.locator('script[src]').count()).toBe(0);
     await page.close();
   });
+
+  it('filters the board by status and by car with one tap each, keeping the other choice', async () => {
+    const page = await signIn();
+    const filter = page.getByRole('navigation', { name: 'Filter the board' });
+    const current = () => filter.locator('[aria-current="true"]').allTextContents();
+    expect(await current()).toEqual(['All cars', 'Any in use']);
+    const allRows = await page.getByTestId('board-row').count();
+
+    await filter.getByRole('link', { name: 'Spare', exact: true }).click();
+    await page.waitForURL(`${server.baseUrl}/?status=spare`);
+    expect(await current()).toEqual(['All cars', 'Spare']);
+    const spareRows = await page.getByTestId('board-row').count();
+    expect(spareRows).toBeGreaterThan(0);
+    expect(spareRows).toBeLessThan(allRows);
+    expect(await page.getByTestId('board-summary').textContent()).toContain(`${spareRows} set${spareRows === 1 ? '' : 's'} shown`);
+
+    // A car keeps the status already chosen; the demo's spares sit on the shelf, in no car.
+    await filter.getByRole('link', { name: 'Not in a car' }).click();
+    await page.waitForURL(`${server.baseUrl}/?car=none&status=spare`);
+    expect(await current()).toEqual(['Not in a car', 'Spare']);
+    expect(await page.getByTestId('board-row').count()).toBe(spareRows);
+
+    // The current choice carries a tick as well as its fill, so it does not rest on colour.
+    const tick = await filter.locator('[aria-current="true"]').first().evaluate((a) => getComputedStyle(a, '::before').borderRightWidth);
+    expect(tick).toBe('3px');
+
+    await filter.getByRole('link', { name: 'Any in use' }).click();
+    await page.waitForURL(`${server.baseUrl}/?car=none`);
+    await filter.getByRole('link', { name: 'All cars' }).click();
+    await page.waitForURL(`${server.baseUrl}/`);
+    expect(await page.getByTestId('board-row').count()).toBe(allRows);
+    await page.close();
+  });
 });

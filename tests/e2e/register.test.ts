@@ -216,12 +216,13 @@ describe('the parts register and the run log in a real browser', () => {
     await page.waitForURL(/sort=totalRuns/);
     expect(queryOf(page)).toEqual({ sort: 'totalRuns', dir: 'asc' });
     expect(await header.getAttribute('aria-sort')).toBe('ascending');
-    expect(await header.textContent()).toContain('▲');
+    expect(await header.locator('[data-sort-mark]').getAttribute('data-sort-mark')).toBe('asc');
     expect(await totals()).toEqual(ascending);
 
     await header.getByRole('link', { name: /Total runs/ }).click();
     await page.waitForURL(/dir=desc/);
     expect(await header.getAttribute('aria-sort')).toBe('descending');
+    expect(await header.locator('[data-sort-mark]').getAttribute('data-sort-mark')).toBe('desc');
     expect(await totals()).toEqual([...ascending].reverse());
 
     // A changed list submits the form at once; the sort rides along in hidden fields.
@@ -243,6 +244,7 @@ describe('the parts register and the run log in a real browser', () => {
     await page.waitForURL((url) => !url.searchParams.has('sort'));
     expect(queryOf(page)).toEqual({ kind: 'gear-set' });
     expect(await header.getAttribute('aria-sort')).toBe('none');
+    expect(await header.locator('[data-sort-mark]').getAttribute('data-sort-mark')).toBe('none');
     await page.getByRole('link', { name: 'Clear filters' }).click();
     await page.waitForURL(`${server.baseUrl}/parts`);
     expect(await page.getByTestId('part-row').count()).toBe(everything);

@@ -123,6 +123,9 @@ export function sortBoardRows<T extends BoardRow>(rows: readonly T[]): T[] {
   return [...rows].sort((a, b) => rank(b) - rank(a) || left(a) - left(b) || a.serial.localeCompare(b.serial));
 }
 
+/** The statuses a set in use can have, in the order the board's filter offers them. */
+export const IN_USE_STATUSES = ['in-service', 'spare', 'under-review'] as const satisfies readonly PartStatus[];
+
 export interface BoardFilter {
   /** A car id, 'none' for sets in no car, or null for all. */
   car: string | null;
@@ -144,7 +147,7 @@ export function filterBoardRows<T extends BoardRow>(rows: readonly T[], filter: 
 export function readBoardFilter(params: URLSearchParams, carIds: readonly string[]): BoardFilter {
   const car = params.get('car');
   const status = params.get('status');
-  const statuses: readonly string[] = ['spare', 'in-service', 'under-review'];
+  const statuses: readonly string[] = IN_USE_STATUSES;
   return {
     car: car && (car === 'none' || carIds.includes(car)) ? car : null,
     status: status && statuses.includes(status) ? (status as PartStatus) : null,
