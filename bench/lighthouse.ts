@@ -46,8 +46,15 @@ try {
   let allMet = true;
   for (const [name, path] of pages) {
     const runs = [];
+    const failures: string[] = [];
     for (let i = 0; i < RUNS; i += 1) {
       const lhr = (await audit(path))!.lhr;
+      // A run Lighthouse could not finish (no paint seen, a protocol timeout) scores nothing: it is reported and
+      // left out of the median rather than counted as a zero.
+      if (lhr.runtimeError) {
+        failures.push(lhr.runtimeError.code);
+        continue;
+      }
       const metric = (id: string) => lhr.audits[id]?.displayValue ?? '–';
       runs.push({
         performance: Math.round((lhr.categories.performance?.score ?? 0) * 100),
@@ -57,11 +64,13 @@ try {
         metrics: `FCP ${metric('first-contentful-paint')}  LCP ${metric('largest-contentful-paint')}  TBT ${metric('total-blocking-time')}  CLS ${metric('cumulative-layout-shift')}  SI ${metric('speed-index')}`,
       });
     }
-    const median = [...runs].sort((a, b) => a.performance - b.performance)[Math.floor(RUNS / 2)]!;
+    if (runs.length === 0) throw new Error(`${name}: every run failed (${failures.join(', ')})`);
+    const median = [...runs].sort((a, b) => a.performance - b.performance)[Math.floor(runs.length / 2)]!;
     const accessibility = Math.min(...runs.map((r) => r.accessibility));
     const met = median.performance >= 95 && accessibility === 100;
     allMet &&= met;
     const failing = [...new Set(runs.flatMap((r) => r.failing))];
+    if (failures.length) console.log(`${name.padEnd(18)} ${failures.length} run(s) failed and are left out: ${failures.join(', ')}`);
     console.log(`${name.padEnd(18)} performance ${median.performance} (median of ${runs.map((r) => r.performance).join(', ')})  accessibility ${accessibility}  ${met ? 'met' : 'MISSED'}${failing.length ? `  (failing: ${failing.join(', ')})` : ''}`);
     for (const run of runs) console.log(`${''.padEnd(18)} ${run.performance}: ${run.metrics}`);
   }
