@@ -1,5 +1,6 @@
 import type { Verdict } from '../../lib/analysis/judge';
-import { bandToSourceText, measureToLabel, measureToProfileField, VERDICT_TEXT } from '../../lib/inspection/verdict-text';
+import { bandToSourceText, measureToLabel, measureToProfileField } from '../../lib/inspection/verdict-text';
+import { VerdictMark } from '../charts/marks';
 import type { ProfileInfo } from './sheet-context';
 
 export interface ShownVerdict {
@@ -9,17 +10,6 @@ export interface ShownVerdict {
   limit: 'min' | 'max';
   limitValue: number;
   margin: number;
-}
-
-/** A verdict as a word and a mark (colour repeats it, never carries it alone). */
-export function VerdictMark({ verdict }: { verdict: Verdict }) {
-  const t = VERDICT_TEXT[verdict];
-  return (
-    <span className={`inline-flex items-center gap-1 font-bold ${t.tone}`} data-verdict={verdict}>
-      <span aria-hidden="true">{t.mark}</span>
-      <span>{t.word}</span>
-    </span>
-  );
 }
 
 /** Verdicts with their limit, margin and the source of each band. */

@@ -1,16 +1,10 @@
-import type { Verdict } from '../analysis/judge';
 import { DEFAULT_PROFILE, type SourceNote, type ToleranceProfile } from '../analysis/tolerance';
 import { torqueUnitToLabel, type TorqueUnit } from '../units';
 
 /**
- * Words, marks and sources for verdicts, shared by the sheet (React) and the detail page (.astro).
- * A verdict is always a word and a mark; colour only repeats it.
+ * Measure names, profile fields and band sources for verdicts, shared by the sheet (React) and the detail page
+ * (.astro). The verdict's own word and shape are `VerdictMark` (components/charts/marks.tsx).
  */
-export const VERDICT_TEXT: Readonly<Record<Verdict, { word: string; mark: string; tone: string }>> = {
-  'in-band': { word: 'In band', mark: '✓', tone: 'text-steady' },
-  'near-limit': { word: 'Near a limit', mark: '▲', tone: 'text-amber' },
-  'out-of-band': { word: 'Out of band', mark: '✕', tone: 'text-alarm' },
-};
 
 // One list of measure names for the whole product, kept beside the engine that judges them.
 export { measureToLabel } from '../analysis/measure-labels';
