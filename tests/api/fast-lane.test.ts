@@ -182,11 +182,14 @@ describe('the fast lane for the calculation routes', () => {
 
   it('logs a refusal as a security event, as the Astro endpoints do', async () => {
     await fast.anonymous.post(TREND, { points: [{ runs: 1, value: 0.2 }] });
-    const line = fast.server
-      .output()
-      .split('\n')
-      .find((l) => l.includes('"event":"denied"') && l.includes(TREND));
-    expect(line).toBeDefined();
+    // The server's output reaches this process through a pipe, possibly a moment after the answer did.
+    const findLine = () =>
+      fast.server
+        .output()
+        .split('\n')
+        .find((l) => l.includes('"event":"denied"') && l.includes(TREND));
+    await expect.poll(findLine, { timeout: 2000 }).toBeDefined();
+    const line = findLine();
     expect(JSON.parse(line!.replace('[lashline:security] ', ''))).toMatchObject({ status: 401, method: 'POST', path: TREND, userId: null });
   });
 
