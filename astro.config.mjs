@@ -24,7 +24,7 @@ const fastLaneEntry = {
   hooks: {
     'astro:build:setup': ({ vite, target }) => {
       if (target !== 'server') return;
-      const options = (vite.build ??= {}).rollupOptions ??= {};
+      const options = ((vite.build ??= {}).rollupOptions ??= {});
       options.input = [...[options.input ?? []].flat(), fileURLToPath(new URL('./src/fast-lane.ts', import.meta.url))];
     },
   },

@@ -32,7 +32,11 @@ const config: FullAuthConfig = {
   },
   providers: [
     Credentials({
-      credentials: { email: { label: 'E-mail' }, password: { label: 'Password', type: 'password' }, code: { label: 'Code' } },
+      credentials: {
+        email: { label: 'E-mail' },
+        password: { label: 'Password', type: 'password' },
+        code: { label: 'Code' },
+      },
       async authorize(raw) {
         const parsed = signInSchema.safeParse(raw);
         if (!parsed.success) return null;
@@ -43,7 +47,11 @@ const config: FullAuthConfig = {
           const passed = code !== '' && (await checkSecondFactor(user, code));
           if (!passed) {
             recordSignInOutcome(email, false);
-            logSecurityEvent('sign-in-failed', { email, userId: user.id, reason: code ? 'wrong second-factor code' : 'second-factor code needed' });
+            logSecurityEvent('sign-in-failed', {
+              email,
+              userId: user.id,
+              reason: code ? 'wrong second-factor code' : 'second-factor code needed',
+            });
             throw new SecondFactorNeeded();
           }
         }

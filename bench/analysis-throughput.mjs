@@ -154,7 +154,9 @@ async function checkAnswer(baseUrl, extraHeaders, lane) {
     throw new Error(`${baseUrl}${PATH} answered ${response.status} ${JSON.stringify(body)}`);
   }
   if (lane !== undefined && response.headers.get('server-timing') !== lane) {
-    throw new Error(`${baseUrl}${PATH} was not answered by the expected path (Server-Timing: ${response.headers.get('server-timing')})`);
+    throw new Error(
+      `${baseUrl}${PATH} was not answered by the expected path (Server-Timing: ${response.headers.get('server-timing')})`,
+    );
   }
 }
 
@@ -188,10 +190,24 @@ async function main() {
   const baseline = await startBaseline();
   const throughAstro = await startServer({ env: { LASHLINE_FAST_LANE: 'off' } });
   try {
-    const signIn = async (running) => ({ cookie: (await signedInClient(running.baseUrl, { team: 'Bench Team' })).client.cookieHeader() });
-    const lashline = await measure('Lashline (signed in)', server.baseUrl, await signIn(server), server.pid(), 'fast-lane');
+    const signIn = async (running) => ({
+      cookie: (await signedInClient(running.baseUrl, { team: 'Bench Team' })).client.cookieHeader(),
+    });
+    const lashline = await measure(
+      'Lashline (signed in)',
+      server.baseUrl,
+      await signIn(server),
+      server.pid(),
+      'fast-lane',
+    );
     const bare = await measure('bare node:http', baseline.baseUrl, {}, baseline.pid);
-    const astro = await measure('via Astro, for contrast', throughAstro.baseUrl, await signIn(throughAstro), throughAstro.pid(), null);
+    const astro = await measure(
+      'via Astro, for contrast',
+      throughAstro.baseUrl,
+      await signIn(throughAstro),
+      throughAstro.pid(),
+      null,
+    );
     const ratio = lashline.rps / bare.rps;
     console.log(`ratio Lashline / bare: ${ratio.toFixed(3)} (target ≥ 0.25)`);
     const cpuRatio = bare.cpuMs / lashline.cpuMs;

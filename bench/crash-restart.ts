@@ -24,7 +24,8 @@ const problems: string[] = [];
 try {
   const { client } = await signedInClient(server.baseUrl, { team: 'Crash Bench Crew' });
   const carId = (await client.post('/api/cars', { name: 'Crash car' })).body.id as string;
-  const gearSetId = (await client.post('/api/gear-sets', { serial: 'CRASH-B1', ringTeeth: 41, pinionTeeth: 10 })).body.id as string;
+  const gearSetId = (await client.post('/api/gear-sets', { serial: 'CRASH-B1', ringTeeth: 41, pinionTeeth: 10 })).body
+    .id as string;
   const inspectionId = await createInspection(client, gearSetId);
   const photo = await noiseImage('jpeg', 800, 600);
   await assertPhotoColumns(server.databaseUrl);
@@ -48,20 +49,36 @@ try {
     const after = await checkAfterRestart(server, client, { runs, photos });
     partialsSeen = Math.max(partialsSeen, after.partialFiles.length);
     const where = `kill ${kill} (after ${killAfterMs} ms)`;
-    if (acknowledged.unexpected.length) problems.push(`${where}: unexpected answers ${acknowledged.unexpected.slice(0, 3).join(' | ')}`);
+    if (acknowledged.unexpected.length)
+      problems.push(`${where}: unexpected answers ${acknowledged.unexpected.slice(0, 3).join(' | ')}`);
     if (after.integrity !== 'ok') problems.push(`${where}: integrity_check ${after.integrity}`);
-    if (after.migrationsApplied !== MIGRATION_FILES) problems.push(`${where}: ${after.migrationsApplied} of ${MIGRATION_FILES} migrations`);
+    if (after.migrationsApplied !== MIGRATION_FILES)
+      problems.push(`${where}: ${after.migrationsApplied} of ${MIGRATION_FILES} migrations`);
     if (after.missingRuns.length) problems.push(`${where}: ${after.missingRuns.length} acknowledged runs missing`);
-    if (after.missingPhotos.length) problems.push(`${where}: ${after.missingPhotos.length} acknowledged photos missing`);
-    if (after.brokenPhotoRows.length) problems.push(`${where}: ${after.brokenPhotoRows.length} photo rows without whole files`);
-    if (after.servedPartials.length) problems.push(`${where}: temporary files served ${after.servedPartials.join(', ')}`);
-    if (kill % 10 === 0) console.log(`  ${kill} kills: ${runs.size} runs and ${photos.size} photos acknowledged so far, ${problems.length} problems`);
+    if (after.missingPhotos.length)
+      problems.push(`${where}: ${after.missingPhotos.length} acknowledged photos missing`);
+    if (after.brokenPhotoRows.length)
+      problems.push(`${where}: ${after.brokenPhotoRows.length} photo rows without whole files`);
+    if (after.servedPartials.length)
+      problems.push(`${where}: temporary files served ${after.servedPartials.join(', ')}`);
+    if (kill % 10 === 0)
+      console.log(
+        `  ${kill} kills: ${runs.size} runs and ${photos.size} photos acknowledged so far, ${problems.length} problems`,
+      );
   }
   console.log(`kills: ${kills} in ${((performance.now() - started) / 1000).toFixed(0)} s (seed ${seed})`);
-  console.log(`acknowledged before a kill: ${runs.size} runs, ${photos.size} photos; requests cut off by a kill: ${cutOff}`);
-  console.log(`after every restart: integrity_check ok, ${MIGRATION_FILES} migrations, every acknowledged write present — ${problems.length ? 'NO' : 'yes'}`);
-  console.log(`temporary .partial files left in the photo folder (most at once): ${partialsSeen}; served: none unless listed below`);
-  console.log(`restart to healthy: p50 ${percentile(restartMs, 50).toFixed(0)} ms, p99 ${percentile(restartMs, 99).toFixed(0)} ms, max ${Math.max(...restartMs).toFixed(0)} ms`);
+  console.log(
+    `acknowledged before a kill: ${runs.size} runs, ${photos.size} photos; requests cut off by a kill: ${cutOff}`,
+  );
+  console.log(
+    `after every restart: integrity_check ok, ${MIGRATION_FILES} migrations, every acknowledged write present — ${problems.length ? 'NO' : 'yes'}`,
+  );
+  console.log(
+    `temporary .partial files left in the photo folder (most at once): ${partialsSeen}; served: none unless listed below`,
+  );
+  console.log(
+    `restart to healthy: p50 ${percentile(restartMs, 50).toFixed(0)} ms, p99 ${percentile(restartMs, 99).toFixed(0)} ms, max ${Math.max(...restartMs).toFixed(0)} ms`,
+  );
   for (const problem of problems.slice(0, 20)) console.log(`  PROBLEM ${problem}`);
   console.log(problems.length ? `RESULT: ${problems.length} problems` : 'RESULT: no problems');
 } finally {

@@ -13,7 +13,8 @@ const requests = Number(process.argv[3] ?? 300);
 const server = await startServer();
 try {
   const { client } = await signedInClient(server.baseUrl, { team: 'Bench Crew' });
-  const gearSetId = (await client.post('/api/gear-sets', { serial: 'BENCH-1', ringTeeth: 41, pinionTeeth: 10 })).body.id as string;
+  const gearSetId = (await client.post('/api/gear-sets', { serial: 'BENCH-1', ringTeeth: 41, pinionTeeth: 10 })).body
+    .id as string;
   for (let i = 0; i < count; i += 1) {
     const drift = i * 0.00005;
     await submitInspection(
@@ -21,7 +22,16 @@ try {
       draftBody(gearSetId, {
         runsAtInspection: i,
         inspectedAt: new Date(Date.UTC(2026, 0, 1) + i * 3_600_000).toISOString(),
-        readings: [0.007 + drift, 0.006 + drift, 0.0055 + drift, 0.0065 + drift, 0.007 + drift, 0.006 + drift, 0.0055 + drift, 0.0065 + drift],
+        readings: [
+          0.007 + drift,
+          0.006 + drift,
+          0.0055 + drift,
+          0.0065 + drift,
+          0.007 + drift,
+          0.006 + drift,
+          0.0055 + drift,
+          0.0065 + drift,
+        ],
         runout: { backFace: 0.001 },
         preload: { pinionTorque: 10, bearings: 'used' },
         patterns: { drive: { along: 0.5, up: 0.5 }, coast: { along: 0.45, up: 0.55 } },
@@ -41,7 +51,9 @@ try {
   timings.sort((a, b) => a - b);
   const at = (q: number) => timings[Math.min(timings.length - 1, Math.floor(q * timings.length))]!;
   console.log(`GET /api/gear-sets/:id/analysis, ${count} inspections, ${requests} sequential requests`);
-  console.log(`p50 ${at(0.5).toFixed(2)} ms  p90 ${at(0.9).toFixed(2)} ms  p99 ${at(0.99).toFixed(2)} ms  (answer ${(JSON.stringify(check.body).length / 1024).toFixed(0)} KB)`);
+  console.log(
+    `p50 ${at(0.5).toFixed(2)} ms  p90 ${at(0.9).toFixed(2)} ms  p99 ${at(0.99).toFixed(2)} ms  (answer ${(JSON.stringify(check.body).length / 1024).toFixed(0)} KB)`,
+  );
   console.log(`target median < 20 ms: ${at(0.5) < 20 ? 'met' : 'MISSED'}`);
 } finally {
   await server.stop();

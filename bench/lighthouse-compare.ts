@@ -17,10 +17,23 @@ if (!other) throw new Error('Set LASHLINE_COMPARE_DIST to the other build’s di
 const RUNS = Number(process.env.LIGHTHOUSE_RUNS ?? 8);
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
 
-const servers = { this: await startServer({ demo: true }), other: await startServer({ demo: true, env: { LASHLINE_DIST: other } }) };
+const servers = {
+  this: await startServer({ demo: true }),
+  other: await startServer({ demo: true, env: { LASHLINE_DIST: other } }),
+};
 const chrome = await chromeLauncher.launch({
   chromePath: CHROMIUM_PATH,
-  chromeFlags: ['--headless=new', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--disable-dev-shm-usage'],
+  chromeFlags: [
+    '--headless=new',
+    '--no-sandbox',
+    '--disable-gpu',
+    '--disable-quic',
+    '--no-first-run',
+    '--disable-background-networking',
+    '--disable-component-update',
+    '--disable-sync',
+    '--disable-dev-shm-usage',
+  ],
 });
 try {
   type Target = { baseUrl: string; cookie: string; paths: Record<string, string> };
@@ -31,10 +44,20 @@ try {
     const sets = (await viewer.get('/api/gear-sets')).body.items as { id: string; serial: string }[];
     const set = sets.find((s) => s.serial === 'GS-4101')!;
     const inspections = (await viewer.get(`/api/inspections?gearSetId=${set.id}`)).body.items as { id: string }[];
-    targets[build] = { baseUrl: server.baseUrl, cookie: viewer.cookieHeader(), paths: { board: '/', 'gear set': `/gear-sets/${set.id}`, inspection: `/inspections/${inspections.at(-1)!.id}` } };
+    targets[build] = {
+      baseUrl: server.baseUrl,
+      cookie: viewer.cookieHeader(),
+      paths: { board: '/', 'gear set': `/gear-sets/${set.id}`, inspection: `/inspections/${inspections.at(-1)!.id}` },
+    };
   }
   const audit = (t: Target, path: string) =>
-    lighthouse(`${t.baseUrl}${path}`, { port: chrome.port, output: 'json', logLevel: 'error', onlyCategories: ['performance'], extraHeaders: { Cookie: t.cookie } });
+    lighthouse(`${t.baseUrl}${path}`, {
+      port: chrome.port,
+      output: 'json',
+      logLevel: 'error',
+      onlyCategories: ['performance'],
+      extraHeaders: { Cookie: t.cookie },
+    });
   await audit(targets.this, '/'); // warm-up, not counted
   const results: Record<string, { performance: number[]; tbt: number[] }> = {};
   for (let i = 0; i < RUNS; i += 1) {
@@ -43,14 +66,19 @@ try {
       for (const build of i % 2 ? (['other', 'this'] as const) : (['this', 'other'] as const)) {
         const lhr = (await audit(targets[build], targets[build].paths[page]!))!.lhr;
         if (lhr.runtimeError) continue;
-        const r = (results[`${page}, ${build === 'this' ? 'this build' : 'other build'}`] ??= { performance: [], tbt: [] });
+        const r = (results[`${page}, ${build === 'this' ? 'this build' : 'other build'}`] ??= {
+          performance: [],
+          tbt: [],
+        });
         r.performance.push(Math.round(lhr.categories.performance!.score! * 100));
         r.tbt.push(Math.round(lhr.audits['total-blocking-time']!.numericValue!));
       }
     }
   }
   for (const [key, r] of Object.entries(results).sort())
-    console.log(`${key.padEnd(26)} performance ${median(r.performance)} [${r.performance.join(', ')}]  TBT ${median(r.tbt)} ms [${r.tbt.join(', ')}]`);
+    console.log(
+      `${key.padEnd(26)} performance ${median(r.performance)} [${r.performance.join(', ')}]  TBT ${median(r.tbt)} ms [${r.tbt.join(', ')}]`,
+    );
 } finally {
   await chrome.kill();
   await servers.this.stop();

@@ -16,7 +16,17 @@ const RUNS = Number(process.env.LIGHTHOUSE_RUNS ?? 5);
 const server = await startServer({ demo: true });
 const chrome = await chromeLauncher.launch({
   chromePath: CHROMIUM_PATH,
-  chromeFlags: ['--headless=new', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--disable-dev-shm-usage'],
+  chromeFlags: [
+    '--headless=new',
+    '--no-sandbox',
+    '--disable-gpu',
+    '--disable-quic',
+    '--no-first-run',
+    '--disable-background-networking',
+    '--disable-component-update',
+    '--disable-sync',
+    '--disable-dev-shm-usage',
+  ],
 });
 try {
   const viewer = new ApiClient(server.baseUrl);
@@ -42,7 +52,9 @@ try {
     });
   const warmUp = (await audit(pages[0]![1]))!.lhr;
   // Lighthouse's own measure of this CPU (higher is faster): the scores below depend on it.
-  console.log(`machine: Lighthouse benchmark index ${Math.round(warmUp.environment.benchmarkIndex)}, CPU slowdown ${warmUp.configSettings.throttling.cpuSlowdownMultiplier}× (mobile settings)`);
+  console.log(
+    `machine: Lighthouse benchmark index ${Math.round(warmUp.environment.benchmarkIndex)}, CPU slowdown ${warmUp.configSettings.throttling.cpuSlowdownMultiplier}× (mobile settings)`,
+  );
   let allMet = true;
   for (const [name, path] of pages) {
     const runs = [];
@@ -59,7 +71,9 @@ try {
       runs.push({
         performance: Math.round((lhr.categories.performance?.score ?? 0) * 100),
         accessibility: Math.round((lhr.categories.accessibility?.score ?? 0) * 100),
-        failing: Object.values(lhr.audits).filter((a) => a.score !== null && a.score < 1 && a.scoreDisplayMode === 'binary').map((a) => a.id),
+        failing: Object.values(lhr.audits)
+          .filter((a) => a.score !== null && a.score < 1 && a.scoreDisplayMode === 'binary')
+          .map((a) => a.id),
         // The metrics behind the performance score, so a miss says where it came from.
         metrics: `FCP ${metric('first-contentful-paint')}  LCP ${metric('largest-contentful-paint')}  TBT ${metric('total-blocking-time')}  CLS ${metric('cumulative-layout-shift')}  SI ${metric('speed-index')}`,
       });
@@ -70,8 +84,11 @@ try {
     const met = median.performance >= 95 && accessibility === 100;
     allMet &&= met;
     const failing = [...new Set(runs.flatMap((r) => r.failing))];
-    if (failures.length) console.log(`${name.padEnd(18)} ${failures.length} run(s) failed and are left out: ${failures.join(', ')}`);
-    console.log(`${name.padEnd(18)} performance ${median.performance} (median of ${runs.map((r) => r.performance).join(', ')})  accessibility ${accessibility}  ${met ? 'met' : 'MISSED'}${failing.length ? `  (failing: ${failing.join(', ')})` : ''}`);
+    if (failures.length)
+      console.log(`${name.padEnd(18)} ${failures.length} run(s) failed and are left out: ${failures.join(', ')}`);
+    console.log(
+      `${name.padEnd(18)} performance ${median.performance} (median of ${runs.map((r) => r.performance).join(', ')})  accessibility ${accessibility}  ${met ? 'met' : 'MISSED'}${failing.length ? `  (failing: ${failing.join(', ')})` : ''}`,
+    );
     for (const run of runs) console.log(`${''.padEnd(18)} ${run.performance}: ${run.metrics}`);
   }
   console.log(`targets (performance ≥ 95, accessibility 100): ${allMet ? 'met' : 'MISSED'}`);

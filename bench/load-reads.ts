@@ -21,11 +21,16 @@ try {
   const viewer = new ApiClient(server.baseUrl);
   await viewer.signIn('viewer@lashline.test', 'lashline-demo');
   if (!viewer.hasSessionCookie()) throw new Error('could not sign in as the demo viewer');
-  const gearSets = (await viewer.get<{ items: { id: string }[] }>('/api/gear-sets?limit=500')).body.items.map((item) => item.id);
+  const gearSets = (await viewer.get<{ items: { id: string }[] }>('/api/gear-sets?limit=500')).body.items.map(
+    (item) => item.id,
+  );
   if (gearSets.length === 0) throw new Error('the demo has no gear sets');
   const routes: { label: string; path: (i: number) => string }[] = [
     { label: 'GET / (board page)', path: () => '/' },
-    { label: 'GET /api/gear-sets/:id/analysis', path: (i) => `/api/gear-sets/${gearSets[i % gearSets.length]}/analysis` },
+    {
+      label: 'GET /api/gear-sets/:id/analysis',
+      path: (i) => `/api/gear-sets/${gearSets[i % gearSets.length]}/analysis`,
+    },
     { label: 'GET /api/parts', path: () => '/api/parts' },
     { label: 'GET /api/runs', path: () => '/api/runs' },
   ];
@@ -56,7 +61,9 @@ try {
     return performance.now() - started;
   };
 
-  console.log(`${connections} connections, ${seconds} s after a ${WARM_UP_MS / 1000} s warm-up, demo data (${gearSets.length} gear sets), signed in as the viewer, on ${server.baseUrl}`);
+  console.log(
+    `${connections} connections, ${seconds} s after a ${WARM_UP_MS / 1000} s warm-up, demo data (${gearSets.length} gear sets), signed in as the viewer, on ${server.baseUrl}`,
+  );
   await run(WARM_UP_MS, false);
   const elapsed = await run(seconds * 1000, true);
   routes.forEach((route, i) => console.log(describeLatencies(route.label, latencies[i]!, elapsed)));

@@ -9,7 +9,13 @@
  *   (another build: LASHLINE_DIST=/tmp/mine/dist, its parent folder holding a node_modules link)
  */
 import { signedInClient } from '../tests/helpers/api-client';
-import { describeLatencies, describeStatuses, listAllIds, runWriteLoad, DATABASE_ERROR_TEXT } from '../tests/helpers/load';
+import {
+  describeLatencies,
+  describeStatuses,
+  listAllIds,
+  runWriteLoad,
+  DATABASE_ERROR_TEXT,
+} from '../tests/helpers/load';
 import { startServer } from '../tests/helpers/server';
 
 const seconds = Number(process.argv[2] ?? 60);
@@ -19,11 +25,20 @@ let failed = false;
 try {
   const { client } = await signedInClient(server.baseUrl, { team: 'Bench Crew' });
   const carId = (await client.post('/api/cars', { name: 'Bench car' })).body.id as string;
-  const gearSetId = (await client.post('/api/gear-sets', { serial: 'BENCH-W1', ringTeeth: 41, pinionTeeth: 10 })).body.id as string;
+  const gearSetId = (await client.post('/api/gear-sets', { serial: 'BENCH-W1', ringTeeth: 41, pinionTeeth: 10 })).body
+    .id as string;
   console.log(`writing for ${seconds} s from ${clients} clients on ${server.baseUrl} …`);
-  const result = await runWriteLoad({ clients: Array.from({ length: clients }, () => client), carId, gearSetId, durationMs: seconds * 1000, maxRequestsPerWorker: 100_000 });
+  const result = await runWriteLoad({
+    clients: Array.from({ length: clients }, () => client),
+    carId,
+    gearSetId,
+    durationMs: seconds * 1000,
+    maxRequestsPerWorker: 100_000,
+  });
   const all = [...result.latencies.runs, ...result.latencies.inspections];
-  console.log(`${result.requests} answers in ${(result.elapsedMs / 1000).toFixed(1)} s: ${describeStatuses(result.statuses)}`);
+  console.log(
+    `${result.requests} answers in ${(result.elapsedMs / 1000).toFixed(1)} s: ${describeStatuses(result.statuses)}`,
+  );
   console.log(describeLatencies('POST /api/runs', result.latencies.runs, result.elapsedMs));
   console.log(describeLatencies('POST /api/inspections', result.latencies.inspections, result.elapsedMs));
   console.log(describeLatencies('all writes', all, result.elapsedMs));
@@ -34,9 +49,14 @@ try {
   const missingRuns = [...result.acknowledgedRuns].filter((id) => !runSet.has(id)).length;
   const missingInspections = [...result.acknowledgedInspections].filter((id) => !inspectionSet.has(id)).length;
   console.log(`runs: ${result.acknowledgedRuns.size} acknowledged, ${runs.length} listed, ${missingRuns} missing`);
-  console.log(`inspections: ${result.acknowledgedInspections.size} acknowledged, ${inspections.length} listed, ${missingInspections} missing; ${result.repeats} repeated keys, ${result.badRepeats.length} answered wrongly`);
-  console.log(`5xx or database text: ${result.leaks.length}; no answer: ${result.networkErrors.length}; database errors in the server log: ${DATABASE_ERROR_TEXT.test(server.output()) ? 'yes' : 'none'}`);
-  for (const line of [...result.leaks, ...result.badRepeats, ...result.networkErrors].slice(0, 10)) console.log(`  ${line}`);
+  console.log(
+    `inspections: ${result.acknowledgedInspections.size} acknowledged, ${inspections.length} listed, ${missingInspections} missing; ${result.repeats} repeated keys, ${result.badRepeats.length} answered wrongly`,
+  );
+  console.log(
+    `5xx or database text: ${result.leaks.length}; no answer: ${result.networkErrors.length}; database errors in the server log: ${DATABASE_ERROR_TEXT.test(server.output()) ? 'yes' : 'none'}`,
+  );
+  for (const line of [...result.leaks, ...result.badRepeats, ...result.networkErrors].slice(0, 10))
+    console.log(`  ${line}`);
   failed =
     result.leaks.length > 0 ||
     result.badRepeats.length > 0 ||

@@ -25,7 +25,8 @@ interface PageWeight {
   lazy: string[];
 }
 
-const attr = (tag: string, name: string): string | null => new RegExp(`\\b${name}\\s*=\\s*"([^"]*)"`, 'i').exec(tag)?.[1] ?? null;
+const attr = (tag: string, name: string): string | null =>
+  new RegExp(`\\b${name}\\s*=\\s*"([^"]*)"`, 'i').exec(tag)?.[1] ?? null;
 
 /** Every script URL a page references, and the gzip size of its inline scripts. */
 export function collectPageScripts(html: string): { urls: string[]; inline: string[] } {
@@ -58,12 +59,19 @@ export function findImports(code: string, url: string): { static: string[]; dyna
   const local = (spec: string) => spec.startsWith('.') || spec.startsWith('/');
   const statics = new Set<string>();
   const dynamics = new Set<string>();
-  for (const m of code.matchAll(/\b(?:import|export)\s*(?:[\w*{}\s,$]+\s*from\s*)?["']([^"']+)["']/g)) if (local(m[1]!)) statics.add(resolve(m[1]!));
+  for (const m of code.matchAll(/\b(?:import|export)\s*(?:[\w*{}\s,$]+\s*from\s*)?["']([^"']+)["']/g))
+    if (local(m[1]!)) statics.add(resolve(m[1]!));
   for (const m of code.matchAll(/\bimport\(\s*["']([^"']+)["']\s*\)/g)) if (local(m[1]!)) dynamics.add(resolve(m[1]!));
   return { static: [...statics], dynamic: [...dynamics].filter((u) => !statics.has(u)) };
 }
 
-async function weighPage(client: ApiClient, baseUrl: string, name: string, path: string, target: number): Promise<PageWeight> {
+async function weighPage(
+  client: ApiClient,
+  baseUrl: string,
+  name: string,
+  path: string,
+  target: number,
+): Promise<PageWeight> {
   const response = await client.request(path);
   if (response.status !== 200) throw new Error(`${path} answered ${response.status}`);
   const html = await response.text();
@@ -99,7 +107,9 @@ async function main(): Promise<void> {
     const sets = (await client.get<{ items: { id: string; serial: string }[] }>('/api/gear-sets')).body.items;
     const set = sets.find((s) => s.serial === 'GS-4101') ?? sets[0];
     if (!set) throw new Error('The demo has no gear set.');
-    const inspections = (await client.get<{ items: { id: string }[] }>(`/api/inspections?gearSetId=${set.id}&status=submitted`)).body.items;
+    const inspections = (
+      await client.get<{ items: { id: string }[] }>(`/api/inspections?gearSetId=${set.id}&status=submitted`)
+    ).body.items;
     const latest = inspections.at(-1);
     const pages: [string, string, number][] = [
       ['board', '/', TARGETS.plain],
@@ -121,7 +131,9 @@ async function main(): Promise<void> {
       const total = page.files.reduce((sum, f) => sum + f.gzip, 0) + page.inline;
       const ok = total <= target;
       if (!ok) over += 1;
-      console.log(`${ok ? 'ok  ' : 'OVER'} ${name.padEnd(16)} ${(total / KB).toFixed(1).padStart(6)} KB of ${target / KB} KB   ${path}`);
+      console.log(
+        `${ok ? 'ok  ' : 'OVER'} ${name.padEnd(16)} ${(total / KB).toFixed(1).padStart(6)} KB of ${target / KB} KB   ${path}`,
+      );
       for (const f of page.files) console.log(`       ${(f.gzip / KB).toFixed(1).padStart(6)} KB  ${f.url}`);
       if (page.inline) console.log(`       ${(page.inline / KB).toFixed(1).padStart(6)} KB  inline scripts`);
       if (page.lazy.length) console.log(`       not counted, loaded on demand: ${page.lazy.join(', ')}`);

@@ -19,16 +19,23 @@ try {
   for (let i = 0; i < repeats; i += 1) {
     const csv = makeRunCsv(['Bench A', 'Bench B'], rows, Date.UTC(2026, 0, 1) + i * rows * 60_000);
     const started = performance.now();
-    const response = await client.request('/api/runs/import', { method: 'POST', headers: { 'content-type': 'text/csv' }, body: csv });
+    const response = await client.request('/api/runs/import', {
+      method: 'POST',
+      headers: { 'content-type': 'text/csv' },
+      body: csv,
+    });
     const body = (await response.json()) as { imported?: number };
     const ms = performance.now() - started;
-    if (response.status !== 201 || body.imported !== rows) throw new Error(`import failed: ${response.status} ${JSON.stringify(body).slice(0, 300)}`);
+    if (response.status !== 201 || body.imported !== rows)
+      throw new Error(`import failed: ${response.status} ${JSON.stringify(body).slice(0, 300)}`);
     timings.push(ms);
     console.log(`run ${i + 1}: ${rows} rows (${(csv.length / 1024).toFixed(0)} KB) imported in ${ms.toFixed(0)} ms`);
   }
   const sorted = [...timings].sort((a, b) => a - b);
   const median = sorted[Math.floor(sorted.length / 2)]!;
-  console.log(`median ${median.toFixed(0)} ms, best ${sorted[0]!.toFixed(0)} ms, worst ${sorted.at(-1)!.toFixed(0)} ms for ${rows} rows; target < 2000 ms: ${median < 2000 ? 'met' : 'MISSED'}`);
+  console.log(
+    `median ${median.toFixed(0)} ms, best ${sorted[0]!.toFixed(0)} ms, worst ${sorted.at(-1)!.toFixed(0)} ms for ${rows} rows; target < 2000 ms: ${median < 2000 ? 'met' : 'MISSED'}`,
+  );
 } finally {
   await server.stop();
 }

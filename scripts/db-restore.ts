@@ -9,7 +9,9 @@ if (!from) {
 }
 try {
   const result = await restoreDatabase(from, args.includes('--force'));
-  console.log(`Restored ${result.databaseFile} from ${result.folder}: ${Object.values(result.tables).reduce((a, b) => a + b, 0)} rows, ${result.photos} photo files.`);
+  console.log(
+    `Restored ${result.databaseFile} from ${result.folder}: ${Object.values(result.tables).reduce((a, b) => a + b, 0)} rows, ${result.photos} photo files.`,
+  );
 } catch (error) {
   console.error(`Not restored: ${(error as Error).message}`);
   process.exit(1);

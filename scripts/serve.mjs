@@ -24,13 +24,19 @@ const fastLaneFile = join(dist, 'server', 'fast-lane.mjs');
 if (!existsSync(fastLaneFile)) throw new Error(`${fastLaneFile} is missing: build again with \`npm run build\`.`);
 const lane = process.env.LASHLINE_FAST_LANE ?? 'on';
 if (lane !== 'on' && lane !== 'off') throw new Error(`LASHLINE_FAST_LANE must be "on" or "off", not "${lane}".`);
-const { answerInFastLane } = lane === 'off' ? { answerInFastLane: () => false } : await import(pathToFileURL(fastLaneFile).href);
+const { answerInFastLane } =
+  lane === 'off' ? { answerInFastLane: () => false } : await import(pathToFileURL(fastLaneFile).href);
 
 /** Every file of the built client, as the URL path that serves it. */
 function listFiles(dir) {
   return readdirSync(dir, { withFileTypes: true, recursive: true })
     .filter((entry) => entry.isFile())
-    .map((entry) => `/${relative(clientDir, join(entry.parentPath ?? entry.path, entry.name)).split(sep).join('/')}`);
+    .map(
+      (entry) =>
+        `/${relative(clientDir, join(entry.parentPath ?? entry.path, entry.name))
+          .split(sep)
+          .join('/')}`,
+    );
 }
 const staticFiles = new Set(listFiles(clientDir));
 

@@ -32,7 +32,12 @@ const STORIES: Story[] = [
     lash: (n) => ({ mean: 0.0064 + n * 0.00036, wave: 0.0004 }),
     runout: () => 0.0012,
     positions: 4,
-    extra: (n) => ({ patterns: { drive: { along: 0.5 + n * 0.03, up: 0.5, length: 0.45 }, coast: { along: 0.45, up: 0.5, length: 0.4 } } }),
+    extra: (n) => ({
+      patterns: {
+        drive: { along: 0.5 + n * 0.03, up: 0.5, length: 0.45 },
+        coast: { along: 0.45, up: 0.5, length: 0.4 },
+      },
+    }),
   },
   {
     serial: 'GS-4102',
@@ -41,7 +46,10 @@ const STORIES: Story[] = [
     runout: (n) => 0.0014 + n * 0.00035,
     positions: 8,
     resolution: '0.0005in',
-    extra: (n) => ({ patterns: { drive: { along: 0.5, up: 0.5 + n * 0.02, length: 0.4 }, coast: { along: 0.5, up: 0.5, length: 0.4 } }, notes: n >= 5 ? 'Pattern wanders round the gear; check ring-gear seating.' : undefined }),
+    extra: (n) => ({
+      patterns: { drive: { along: 0.5, up: 0.5 + n * 0.02, length: 0.4 }, coast: { along: 0.5, up: 0.5, length: 0.4 } },
+      notes: n >= 5 ? 'Pattern wanders round the gear; check ring-gear seating.' : undefined,
+    }),
   },
   {
     serial: 'GS-4103',
@@ -51,7 +59,18 @@ const STORIES: Story[] = [
     positions: 4,
     extra: (_n, last) =>
       last
-        ? { condition: { teeth: [{ finding: 'spalling', severity: 'severe' }, { finding: 'pitting', severity: 'moderate' }], splines: 'none', bearings: 'light', seals: 'none' }, notes: 'Spalling on three drive-side teeth near the heel. Out of service.' }
+        ? {
+            condition: {
+              teeth: [
+                { finding: 'spalling', severity: 'severe' },
+                { finding: 'pitting', severity: 'moderate' },
+              ],
+              splines: 'none',
+              bearings: 'light',
+              seals: 'none',
+            },
+            notes: 'Spalling on three drive-side teeth near the heel. Out of service.',
+          }
         : {},
   },
   {
@@ -94,7 +113,12 @@ export async function seedInspections(people: SeededPeople, register: SeededRegi
         runout: { backFace: Number(round(story.runout(n), step / 2).toFixed(5)) },
         pinion: { shims: [0.03, 0.005, 0.003], depthChange: n === 0 ? 0 : null, marking: '+2' },
         carrierShims: { left: 0.06, right: 0.055 },
-        preload: { pinionTorque: n === 0 ? 26 : 10 + Math.round(random()), bearings: n === 0 ? 'new' : 'used', hubLeft: { unchanged: true }, hubRight: { unchanged: true } },
+        preload: {
+          pinionTorque: n === 0 ? 26 : 10 + Math.round(random()),
+          bearings: n === 0 ? 'new' : 'used',
+          hubLeft: { unchanged: true },
+          hubRight: { unchanged: true },
+        },
         ...story.extra?.(n, last),
       });
       const technicianId = n % 2 ? people.userIds.technician : people.userIds['crew-chief'];

@@ -25,7 +25,9 @@ import { ensureStarted } from './lib/server/startup';
 // which path answered.
 const MARK = { 'Server-Timing': 'fast-lane' };
 
-const ROUTES = new Map<string, Calculation>(Object.values(CALCULATIONS).map((calculation) => [`${calculation.method} ${calculation.path}`, calculation]));
+const ROUTES = new Map<string, Calculation>(
+  Object.values(CALCULATIONS).map((calculation) => [`${calculation.method} ${calculation.path}`, calculation]),
+);
 
 /** Whether Astro should judge this request's Origin instead: present, and not this host's own. */
 function needsOriginCheck(request: IncomingMessage): boolean {
@@ -50,7 +52,13 @@ export function answerInFastLane(request: IncomingMessage, response: ServerRespo
   return true;
 }
 
-async function answer(calculation: Calculation, request: IncomingMessage, response: ServerResponse, query: string, path: string): Promise<void> {
+async function answer(
+  calculation: Calculation,
+  request: IncomingMessage,
+  response: ServerResponse,
+  query: string,
+  path: string,
+): Promise<void> {
   let locals: SessionLocals = { user: null, team: null };
   try {
     await ensureStarted();

@@ -17,7 +17,11 @@ const securityHeaders = defineMiddleware(async (_context, next) => {
     return response;
   } catch {
     // Response.redirect() and fetched responses have immutable headers: answer with a copy.
-    const copy = new Response(response.body, { status: response.status, statusText: response.statusText, headers: new Headers(response.headers) });
+    const copy = new Response(response.body, {
+      status: response.status,
+      statusText: response.statusText,
+      headers: new Headers(response.headers),
+    });
     applySecurityHeaders(copy.headers);
     return copy;
   }
@@ -43,7 +47,9 @@ const apiGate = defineMiddleware(async ({ request, url }, next) => {
   const declared = Number(request.headers.get('content-length') ?? '0');
   const limit = bodyLimitFor(url.pathname);
   if (declared > limit) {
-    return errorResponse(new HttpError(413, `The request body is larger than ${Math.floor(limit / (1024 * 1024))} MB; send less.`));
+    return errorResponse(
+      new HttpError(413, `The request body is larger than ${Math.floor(limit / (1024 * 1024))} MB; send less.`),
+    );
   }
   return next();
 });
@@ -51,16 +57,26 @@ const apiGate = defineMiddleware(async ({ request, url }, next) => {
 /** Sign-in attempts are limited per account and per client address (429 with Retry-After). */
 const signInLimit = defineMiddleware(async (context, next) => {
   if (context.url.pathname !== SIGN_IN_CALLBACK || context.request.method !== 'POST') return next();
-  const form = await context.request.clone().formData().catch(() => null);
-  const email = String(form?.get('email') ?? '').trim().toLowerCase();
+  const form = await context.request
+    .clone()
+    .formData()
+    .catch(() => null);
+  const email = String(form?.get('email') ?? '')
+    .trim()
+    .toLowerCase();
   const wait = signInRetryAfterSeconds(email, context.clientAddress);
   if (wait > 0) {
     logSecurityEvent('sign-in-limited', { email, clientAddress: context.clientAddress, retryAfterSeconds: wait });
     const minutes = Math.ceil(wait / 60);
     return errorResponse(
-      new HttpError(429, `Too many failed sign-ins. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`, undefined, {
-        'Retry-After': String(wait),
-      }),
+      new HttpError(
+        429,
+        `Too many failed sign-ins. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`,
+        undefined,
+        {
+          'Retry-After': String(wait),
+        },
+      ),
     );
   }
   return runSignInAttempt(context.clientAddress, next);

@@ -14,8 +14,12 @@ export const users = sqliteTable('users', {
   email: text('email').notNull().unique(),
   name: text('name').notNull(),
   passwordHash: text('password_hash').notNull(),
-  lengthUnit: text('length_unit', { enum: ['in', 'mm'] }).notNull().default('in'),
-  torqueUnit: text('torque_unit', { enum: ['lbf-in', 'N-m'] }).notNull().default('lbf-in'),
+  lengthUnit: text('length_unit', { enum: ['in', 'mm'] })
+    .notNull()
+    .default('in'),
+  torqueUnit: text('torque_unit', { enum: ['lbf-in', 'N-m'] })
+    .notNull()
+    .default('lbf-in'),
   currentTeamId: text('current_team_id'),
   // Bumped whenever every other session of this person must end (password change, sign-out everywhere).
   sessionVersion: integer('session_version').notNull().default(1),
@@ -82,7 +86,9 @@ export const outbox = sqliteTable(
     toAddress: text('to_address').notNull(),
     subject: text('subject').notNull(),
     textBody: text('text_body').notNull(),
-    status: text('status', { enum: ['queued', 'sent', 'failed'] }).notNull().default('queued'),
+    status: text('status', { enum: ['queued', 'sent', 'failed'] })
+      .notNull()
+      .default('queued'),
     attempts: integer('attempts').notNull().default(0),
     nextAttemptAt: integer('next_attempt_at', { mode: 'timestamp_ms' }).notNull(),
     lastError: text('last_error'),
@@ -115,7 +121,6 @@ export type Membership = typeof memberships.$inferSelect;
 
 // ---------------------------------------------------------------------------------------------
 // The parts register and the run log
-
 
 /** Team-wide settings; absent keys fall back to the defaults in src/lib/register/team-settings.ts. */
 export const teamSettings = sqliteTable('team_settings', {
@@ -273,7 +278,10 @@ export const toleranceProfileVersions = sqliteTable(
     createdBy: text('created_by').references(() => users.id),
     createdAt: createdAt(),
   },
-  (table) => [uniqueIndex('profile_version_idx').on(table.profileId, table.version), index('profile_team_idx').on(table.teamId)],
+  (table) => [
+    uniqueIndex('profile_version_idx').on(table.profileId, table.version),
+    index('profile_team_idx').on(table.teamId),
+  ],
 );
 
 export const INSPECTION_STATUSES = ['draft', 'submitted'] as const;
@@ -362,7 +370,9 @@ export const reviews = sqliteTable(
     gearSetId: text('gear_set_id')
       .notNull()
       .references(() => parts.id),
-    status: text('status', { enum: ['open', 'decided'] }).notNull().default('open'),
+    status: text('status', { enum: ['open', 'decided'] })
+      .notNull()
+      .default('open'),
     snapshot: text('snapshot', { mode: 'json' }).notNull(),
     openedBy: text('opened_by')
       .notNull()
@@ -380,7 +390,10 @@ export const reviews = sqliteTable(
     reminderQueuedAt: integer('reminder_queued_at', { mode: 'timestamp_ms' }),
     createdAt: createdAt(),
   },
-  (table) => [index('reviews_team_idx').on(table.teamId, table.status), index('reviews_gear_set_idx').on(table.gearSetId)],
+  (table) => [
+    index('reviews_team_idx').on(table.teamId, table.status),
+    index('reviews_gear_set_idx').on(table.gearSetId),
+  ],
 );
 
 export const reviewComments = sqliteTable(
@@ -403,7 +416,14 @@ export const reviewComments = sqliteTable(
   (table) => [index('review_comments_review_idx').on(table.reviewId)],
 );
 
-export const NOTICE_KINDS = ['review-opened', 'decision-made', 'mention', 'near-limit', 'life-reached', 'reinspect-due'] as const;
+export const NOTICE_KINDS = [
+  'review-opened',
+  'decision-made',
+  'mention',
+  'near-limit',
+  'life-reached',
+  'reinspect-due',
+] as const;
 
 /** Which notices a person wants from a team; a missing row means all of them. */
 export const noticePreferences = sqliteTable(

@@ -76,5 +76,8 @@ export const passwordChangeSchema = z.object({
 });
 
 export const acceptInvitationSchema = z.object({
-  token: z.string({ error: 'The invitation link is incomplete.' }).min(20, 'The invitation link is incomplete.').max(200),
+  token: z
+    .string({ error: 'The invitation link is incomplete.' })
+    .min(20, 'The invitation link is incomplete.')
+    .max(200),
 });

@@ -34,7 +34,14 @@ export const PERMISSIONS = [
 export type Permission = (typeof PERMISSIONS)[number];
 
 const VIEWER: readonly Permission[] = ['team:read'];
-const TECHNICIAN: readonly Permission[] = [...VIEWER, 'runs:record', 'parts:install', 'inspections:record', 'reviews:open', 'reviews:comment'];
+const TECHNICIAN: readonly Permission[] = [
+  ...VIEWER,
+  'runs:record',
+  'parts:install',
+  'inspections:record',
+  'reviews:open',
+  'reviews:comment',
+];
 const CREW_CHIEF: readonly Permission[] = [
   ...TECHNICIAN,
   'members:invite',

@@ -48,7 +48,8 @@ const MANAGERS: Cells = [401, OK, OK, 403, 403];
 const OWNER_ONLY: Cells = [401, OK, 403, 403, 403];
 const NOT_FOUND: Cells = [401, 404, 404, 404, 404];
 /** Another team's record for a route that checks the permission first, then looks the record up. */
-const NOT_FOUND_FOR = (own: Cells): Cells => own.map((cell, i) => (i === 0 ? 401 : cell === 403 ? 403 : 404)) as unknown as Cells;
+const NOT_FOUND_FOR = (own: Cells): Cells =>
+  own.map((cell, i) => (i === 0 ? 401 : cell === 403 ? 403 : 404)) as unknown as Cells;
 
 let freshRun = 0;
 const runAt = () => new Date(Date.UTC(2026, 0, 1) + (freshRun += 1) * 60_000).toISOString();
@@ -70,13 +71,21 @@ const MATRIX: Record<string, Rule> = {
   'POST /api/assemblies': { own: MANAGERS, other: null },
   'GET /api/assemblies/[id]': { own: MEMBER, other: NOT_FOUND },
   'PATCH /api/assemblies/[id]': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS), body: () => ({ notes: 'matrix' }) },
-  'DELETE /api/assemblies/[id]': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS), fresh: () => freshRecord('/api/assemblies', { serial: freshSerial('AS'), name: 'Spare' }) },
+  'DELETE /api/assemblies/[id]': {
+    own: MANAGERS,
+    other: NOT_FOUND_FOR(MANAGERS),
+    fresh: () => freshRecord('/api/assemblies', { serial: freshSerial('AS'), name: 'Spare' }),
+  },
   'GET /api/audit': { own: MANAGERS, other: null },
   'GET /api/cars': { own: MEMBER, other: null },
   'POST /api/cars': { own: MANAGERS, other: null },
   'GET /api/cars/[id]': { own: MEMBER, other: NOT_FOUND },
   'PATCH /api/cars/[id]': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS), body: () => ({ notes: 'matrix' }) },
-  'DELETE /api/cars/[id]': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS), fresh: () => freshRecord('/api/cars', { name: freshSerial('Car') }) },
+  'DELETE /api/cars/[id]': {
+    own: MANAGERS,
+    other: NOT_FOUND_FOR(MANAGERS),
+    fresh: () => freshRecord('/api/cars', { name: freshSerial('Car') }),
+  },
   'GET /api/exports/gear-sets/[id].csv': { own: MEMBER, other: NOT_FOUND },
   'GET /api/exports/inspections/[id].csv': { own: MEMBER, other: NOT_FOUND },
   'GET /api/exports/team.json': { own: OWNER_ONLY, other: null },
@@ -84,7 +93,11 @@ const MATRIX: Record<string, Rule> = {
   'POST /api/gear-sets': { own: MANAGERS, other: null },
   'GET /api/gear-sets/[id]': { own: MEMBER, other: NOT_FOUND },
   'PATCH /api/gear-sets/[id]': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS), body: () => ({ notes: 'matrix' }) },
-  'DELETE /api/gear-sets/[id]': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS), fresh: () => freshRecord('/api/gear-sets', { serial: freshSerial('GS'), ringTeeth: 41, pinionTeeth: 10 }) },
+  'DELETE /api/gear-sets/[id]': {
+    own: MANAGERS,
+    other: NOT_FOUND_FOR(MANAGERS),
+    fresh: () => freshRecord('/api/gear-sets', { serial: freshSerial('GS'), ringTeeth: 41, pinionTeeth: 10 }),
+  },
   'GET /api/gear-sets/[id]/analysis': { own: MEMBER, other: NOT_FOUND },
   'GET /api/gear-sets/[id]/run-count': { own: MEMBER, other: NOT_FOUND },
   'GET /api/health': { own: [200, 200, 200, 200, 200], other: null },
@@ -94,20 +107,44 @@ const MATRIX: Record<string, Rule> = {
   'GET /api/inspections/[id]': { own: MEMBER, other: NOT_FOUND },
   // A technician changes their own draft; the draft here is the technician's.
   'PATCH /api/inspections/[id]': { own: RECORDERS, other: NOT_FOUND_FOR(RECORDERS) },
-  'DELETE /api/inspections/[id]': { own: RECORDERS, other: NOT_FOUND_FOR(RECORDERS), fresh: async () => ({ id: await createInspection(team.tech, own.gearSetId) }) },
+  'DELETE /api/inspections/[id]': {
+    own: RECORDERS,
+    other: NOT_FOUND_FOR(RECORDERS),
+    fresh: async () => ({ id: await createInspection(team.tech, own.gearSetId) }),
+  },
   'GET /api/inspections/[id]/photos': { own: MEMBER, other: NOT_FOUND },
   // The inspection is looked up before the role is weighed: another team's is 404 for everyone.
   'POST /api/inspections/[id]/photos': { own: RECORDERS, other: NOT_FOUND },
-  'DELETE /api/inspections/[id]/photos/[photoId]': { own: RECORDERS, other: NOT_FOUND, fresh: async () => ({ photoId: await freshPhoto() }) },
-  'POST /api/inspections/[id]/submit': { own: RECORDERS, other: NOT_FOUND_FOR(RECORDERS), headers: () => ({ 'idempotency-key': newKey() }) },
+  'DELETE /api/inspections/[id]/photos/[photoId]': {
+    own: RECORDERS,
+    other: NOT_FOUND,
+    fresh: async () => ({ photoId: await freshPhoto() }),
+  },
+  'POST /api/inspections/[id]/submit': {
+    own: RECORDERS,
+    other: NOT_FOUND_FOR(RECORDERS),
+    headers: () => ({ 'idempotency-key': newKey() }),
+  },
   'GET /api/installations': { own: MEMBER, other: null },
-  'POST /api/installations': { own: RECORDERS, other: NOT_FOUND_FOR(RECORDERS), body: (ids) => ({ action: 'install', partId: ids.partId, assemblyId: ids.assemblyId, at: '2026-06-01T09:00:00Z' }) },
+  'POST /api/installations': {
+    own: RECORDERS,
+    other: NOT_FOUND_FOR(RECORDERS),
+    body: (ids) => ({ action: 'install', partId: ids.partId, assemblyId: ids.assemblyId, at: '2026-06-01T09:00:00Z' }),
+  },
   'GET /api/invitations': { own: MANAGERS, other: null },
   'POST /api/invitations': { own: MANAGERS, other: null },
   'POST /api/invitations/accept': { own: SIGNED_IN, other: null },
   'GET /api/members': { own: MEMBER, other: null },
-  'PATCH /api/members/[userId]': { own: OWNER_ONLY, other: NOT_FOUND_FOR(OWNER_ONLY), body: () => ({ role: 'viewer' }) },
-  'DELETE /api/members/[userId]': { own: OWNER_ONLY, other: NOT_FOUND_FOR(OWNER_ONLY), fresh: async () => ({ userId: (await joinByInvitation(server.baseUrl, smtp, team.owner, 'viewer')).userId }) },
+  'PATCH /api/members/[userId]': {
+    own: OWNER_ONLY,
+    other: NOT_FOUND_FOR(OWNER_ONLY),
+    body: () => ({ role: 'viewer' }),
+  },
+  'DELETE /api/members/[userId]': {
+    own: OWNER_ONLY,
+    other: NOT_FOUND_FOR(OWNER_ONLY),
+    fresh: async () => ({ userId: (await joinByInvitation(server.baseUrl, smtp, team.owner, 'viewer')).userId }),
+  },
   'GET /api/notifications/preferences': { own: MEMBER, other: null },
   'PUT /api/notifications/preferences': { own: MEMBER, other: null },
   'GET /api/outbox': { own: OWNER_ONLY, other: null },
@@ -115,20 +152,44 @@ const MATRIX: Record<string, Rule> = {
   'POST /api/parts': { own: MANAGERS, other: null },
   'GET /api/parts/[id]': { own: MEMBER, other: NOT_FOUND },
   'PATCH /api/parts/[id]': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS), body: () => ({ notes: 'matrix' }) },
-  'DELETE /api/parts/[id]': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS), fresh: () => freshRecord('/api/parts', { kind: 'bearing', serial: freshSerial('BR') }) },
+  'DELETE /api/parts/[id]': {
+    own: MANAGERS,
+    other: NOT_FOUND_FOR(MANAGERS),
+    fresh: () => freshRecord('/api/parts', { kind: 'bearing', serial: freshSerial('BR') }),
+  },
   'GET /api/photos/[id]': { own: MEMBER, other: NOT_FOUND },
   'GET /api/photos/[id]/thumbnail': { own: MEMBER, other: NOT_FOUND },
   'GET /api/reports/retirements': { own: MEMBER, other: null },
   'GET /api/reviews': { own: MEMBER, other: null },
-  'POST /api/reviews': { own: RECORDERS, other: NOT_FOUND_FOR(RECORDERS), body: (ids) => ({ gearSetId: ids.gearSetId }) },
+  'POST /api/reviews': {
+    own: RECORDERS,
+    other: NOT_FOUND_FOR(RECORDERS),
+    body: (ids) => ({ gearSetId: ids.gearSetId }),
+  },
   'GET /api/reviews/[id]': { own: MEMBER, other: NOT_FOUND },
-  'POST /api/reviews/[id]/comments': { own: RECORDERS, other: NOT_FOUND_FOR(RECORDERS), body: () => ({ body: 'From the access matrix.' }) },
-  'POST /api/reviews/[id]/decision': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS), body: () => ({ decision: 'keep', reason: 'Pattern is fine', reinspectAfterRuns: 20 }) },
+  'POST /api/reviews/[id]/comments': {
+    own: RECORDERS,
+    other: NOT_FOUND_FOR(RECORDERS),
+    body: () => ({ body: 'From the access matrix.' }),
+  },
+  'POST /api/reviews/[id]/decision': {
+    own: MANAGERS,
+    other: NOT_FOUND_FOR(MANAGERS),
+    body: () => ({ decision: 'keep', reason: 'Pattern is fine', reinspectAfterRuns: 20 }),
+  },
   'GET /api/runs': { own: MEMBER, other: null },
-  'POST /api/runs': { own: RECORDERS, other: NOT_FOUND_FOR(RECORDERS), body: (ids) => ({ carId: ids.carId, at: runAt() }) },
+  'POST /api/runs': {
+    own: RECORDERS,
+    other: NOT_FOUND_FOR(RECORDERS),
+    body: (ids) => ({ carId: ids.carId, at: runAt() }),
+  },
   'GET /api/runs/[id]': { own: MEMBER, other: NOT_FOUND },
   'PATCH /api/runs/[id]': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS), body: () => ({ notes: 'matrix' }) },
-  'DELETE /api/runs/[id]': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS), fresh: async () => freshRecord('/api/runs', { carId: own.carId, at: runAt() }) },
+  'DELETE /api/runs/[id]': {
+    own: MANAGERS,
+    other: NOT_FOUND_FOR(MANAGERS),
+    fresh: async () => freshRecord('/api/runs', { carId: own.carId, at: runAt() }),
+  },
   'POST /api/runs/import': { own: RECORDERS, other: null },
   'GET /api/team/second-factor': { own: MEMBER, other: null },
   'PUT /api/team/second-factor': { own: OWNER_ONLY, other: null },
@@ -143,7 +204,11 @@ const MATRIX: Record<string, Rule> = {
   'GET /api/tolerance-profiles': { own: MEMBER, other: null },
   'POST /api/tolerance-profiles': { own: MANAGERS, other: null },
   'GET /api/tolerance-profiles/[id]': { own: MEMBER, other: NOT_FOUND },
-  'PUT /api/tolerance-profiles/[id]': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS), body: () => ({ values: profileValues }) },
+  'PUT /api/tolerance-profiles/[id]': {
+    own: MANAGERS,
+    other: NOT_FOUND_FOR(MANAGERS),
+    body: () => ({ values: profileValues }),
+  },
   'GET /api/tolerance-profiles/for-gear-set/[id]': { own: MEMBER, other: NOT_FOUND },
 };
 // ─────────────────────────────────────────────────────────────────────
@@ -163,7 +228,10 @@ async function freshRecord(path: string, body: unknown): Promise<{ id: string }>
 }
 
 async function freshPhoto(): Promise<string> {
-  const made = await uploadPhoto(team.tech, own.inspectionId, await smallPng(), { type: 'image/png', filename: 'p.png' });
+  const made = await uploadPhoto(team.tech, own.inspectionId, await smallPng(), {
+    type: 'image/png',
+    filename: 'p.png',
+  });
   if (made.status !== 201) throw new Error(`fresh photo: ${made.status}`);
   return made.body.id as string;
 }
@@ -176,7 +244,10 @@ beforeAll(async () => {
   const viewerId = (await team.viewer.get('/api/account')).body.id as string;
   own = await makeTeamRecords(team.chief, team.tech, { teamId: team.teamId, memberId: viewerId });
   const stranger = await signedInClient(server.baseUrl, { team: 'Matrix Rivals' });
-  other = await makeTeamRecords(stranger.client, stranger.client, { teamId: stranger.teamId!, memberId: stranger.userId });
+  other = await makeTeamRecords(stranger.client, stranger.client, {
+    teamId: stranger.teamId!,
+    memberId: stranger.userId,
+  });
   profileValues = (await team.chief.get('/api/tolerance-profiles')).body.items[0].values;
   signedOut = new ApiClient(server.baseUrl);
 }, 120_000);
@@ -193,7 +264,13 @@ function matches(cell: Expect, status: number): boolean {
   return status === cell;
 }
 
-async function ask(key: string, rule: Rule, scope: 'own' | 'other', caller: number, cell: Expect): Promise<{ status: number; text: string }> {
+async function ask(
+  key: string,
+  rule: Rule,
+  scope: 'own' | 'other',
+  caller: number,
+  cell: Expect,
+): Promise<{ status: number; text: string }> {
   const [method, pattern] = key.split(' ') as [string, string];
   const ids = scope === 'own' ? own : other;
   let params = recordsToParams(ids, pattern);
@@ -212,8 +289,14 @@ describe('the access matrix', () => {
   it('has exactly one row for every method of every route file under src/pages/api', () => {
     const endpoints = listApiEndpoints();
     expect(endpoints.length).toBeGreaterThan(50);
-    expect(endpoints.filter((key) => !(key in MATRIX)), 'routes without a row: add one to MATRIX').toEqual([]);
-    expect(Object.keys(MATRIX).filter((key) => !endpoints.includes(key)), 'rows without a route').toEqual([]);
+    expect(
+      endpoints.filter((key) => !(key in MATRIX)),
+      'routes without a row: add one to MATRIX',
+    ).toEqual([]);
+    expect(
+      Object.keys(MATRIX).filter((key) => !endpoints.includes(key)),
+      'rows without a route',
+    ).toEqual([]);
   });
 
   const ordered = Object.entries(MATRIX).sort(([, a], [, b]) => Number(!!a.endsSession) - Number(!!b.endsSession));
@@ -225,7 +308,10 @@ describe('the access matrix', () => {
         const cells = scope === 'own' ? rule.own : rule.other!;
         for (let caller = 0; caller < CALLERS.length; caller += 1) {
           const answer = await ask(key, rule, scope, caller, cells[caller]!);
-          if (!matches(cells[caller]!, answer.status)) wrong.push(`${scope} team, ${CALLERS[caller]}: expected ${cells[caller]}, got ${answer.status} ${answer.text}`);
+          if (!matches(cells[caller]!, answer.status))
+            wrong.push(
+              `${scope} team, ${CALLERS[caller]}: expected ${cells[caller]}, got ${answer.status} ${answer.text}`,
+            );
         }
       }
       expect(wrong).toEqual([]);

@@ -30,7 +30,11 @@ describe('accounts and sessions', () => {
     const client = new ApiClient(server.baseUrl);
     const email = uniqueEmail();
     await client.post('/api/accounts', { email, password: TEST_PASSWORD, name: 'One' });
-    const again = await client.post('/api/accounts', { email: email.toUpperCase(), password: TEST_PASSWORD, name: 'Two' });
+    const again = await client.post('/api/accounts', {
+      email: email.toUpperCase(),
+      password: TEST_PASSWORD,
+      name: 'Two',
+    });
     expect(again.status).toBe(409);
     expect(again.body.error.fields.email).toBeDefined();
   });
@@ -64,7 +68,10 @@ describe('accounts and sessions', () => {
     const other = new ApiClient(server.baseUrl);
     await other.signIn(email, TEST_PASSWORD);
     expect((await other.get('/api/account')).status).toBe(200);
-    const changed = await client.post('/api/account/password', { currentPassword: TEST_PASSWORD, newPassword: 'a brand new passphrase' });
+    const changed = await client.post('/api/account/password', {
+      currentPassword: TEST_PASSWORD,
+      newPassword: 'a brand new passphrase',
+    });
     expect(changed.status).toBe(200);
     expect((await other.get('/api/account')).status).toBe(401);
     const fresh = new ApiClient(server.baseUrl);

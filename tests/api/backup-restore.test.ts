@@ -19,7 +19,10 @@ afterAll(() => server?.stop());
 
 function run(script: string, args: string[], env: Record<string, string>): Promise<string> {
   return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ['--import', 'tsx', script, ...args], { cwd: PROJECT_ROOT, env: { PATH: process.env.PATH, HOME: process.env.HOME, ...env } });
+    const child = spawn(process.execPath, ['--import', 'tsx', script, ...args], {
+      cwd: PROJECT_ROOT,
+      env: { PATH: process.env.PATH, HOME: process.env.HOME, ...env },
+    });
     let out = '';
     child.stdout.on('data', (c) => (out += c));
     child.stderr.on('data', (c) => (out += c));
@@ -41,13 +44,19 @@ describe('npm run db:backup and db:restore', () => {
     let acknowledged = 0;
     const writers = Array.from({ length: 4 }, async (_, w) => {
       for (let i = 0; !stop && i < 2000; i += 1) {
-        const answer = await client.post('/api/runs', { carId, at: new Date(Date.UTC(2026, 0, 1) + (w * 10_000 + i) * 60_000).toISOString() });
+        const answer = await client.post('/api/runs', {
+          carId,
+          at: new Date(Date.UTC(2026, 0, 1) + (w * 10_000 + i) * 60_000).toISOString(),
+        });
         if (answer.status === 201) acknowledged += 1;
       }
     });
     await new Promise((r) => setTimeout(r, 700));
     const backupDir = mkdtempSync(join(tmpdir(), 'lashline-backup-'));
-    const output = await run('scripts/db-backup.ts', [backupDir], { DATABASE_URL: server.databaseUrl, DATA_DIR: server.dataDir });
+    const output = await run('scripts/db-backup.ts', [backupDir], {
+      DATABASE_URL: server.databaseUrl,
+      DATA_DIR: server.dataDir,
+    });
     stop = true;
     await Promise.all(writers);
     const folder = /Backup written to (\S+):/.exec(output)![1]!;
@@ -57,7 +66,10 @@ describe('npm run db:backup and db:restore', () => {
     expect(backedUp.runs).toBeLessThanOrEqual(acknowledged);
 
     const empty = mkdtempSync(join(tmpdir(), 'lashline-restored-'));
-    await run('scripts/db-restore.ts', [folder], { DATABASE_URL: `file:${join(empty, 'lashline.db')}`, DATA_DIR: empty });
+    await run('scripts/db-restore.ts', [folder], {
+      DATABASE_URL: `file:${join(empty, 'lashline.db')}`,
+      DATA_DIR: empty,
+    });
     const restored = await startServer({ dataDir: empty });
     try {
       const restoredCounts = await counts(restored.databaseUrl);
@@ -68,6 +80,8 @@ describe('npm run db:backup and db:restore', () => {
       await restored.stop();
     }
     // Restoring over a live database needs --force.
-    await expect(run('scripts/db-restore.ts', [folder], { DATABASE_URL: server.databaseUrl, DATA_DIR: server.dataDir })).rejects.toThrow(/--force/);
+    await expect(
+      run('scripts/db-restore.ts', [folder], { DATABASE_URL: server.databaseUrl, DATA_DIR: server.dataDir }),
+    ).rejects.toThrow(/--force/);
   }, 90_000);
 });

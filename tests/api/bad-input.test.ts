@@ -17,7 +17,8 @@ const TABLES = ['users', 'teams', 'memberships', 'invitations', 'outbox'];
 async function rowCounts(): Promise<Record<string, number>> {
   const db = createClient({ url: server.databaseUrl });
   const counts: Record<string, number> = {};
-  for (const table of TABLES) counts[table] = Number((await db.execute(`SELECT count(*) AS n FROM ${table}`)).rows[0]?.n);
+  for (const table of TABLES)
+    counts[table] = Number((await db.execute(`SELECT count(*) AS n FROM ${table}`)).rows[0]?.n);
   db.close();
   return counts;
 }
@@ -31,10 +32,25 @@ interface Case {
 }
 
 const CASES: Case[] = [
-  { method: 'POST', path: '/api/accounts', body: { email: 'x@example.test', password: 12, name: 'X' }, field: 'password' },
+  {
+    method: 'POST',
+    path: '/api/accounts',
+    body: { email: 'x@example.test', password: 12, name: 'X' },
+    field: 'password',
+  },
   { method: 'POST', path: '/api/accounts', body: { password: 'long enough password', name: 'X' }, field: 'email' },
-  { method: 'POST', path: '/api/accounts', body: { email: 'x@example.test', password: 'long enough password' }, field: 'name' },
-  { method: 'POST', path: '/api/accounts', body: { email: 'nope', password: 'long enough password', name: 'X' }, field: 'email' },
+  {
+    method: 'POST',
+    path: '/api/accounts',
+    body: { email: 'x@example.test', password: 'long enough password' },
+    field: 'name',
+  },
+  {
+    method: 'POST',
+    path: '/api/accounts',
+    body: { email: 'nope', password: 'long enough password', name: 'X' },
+    field: 'email',
+  },
   { method: 'POST', path: '/api/accounts', body: [], field: '' },
   { method: 'POST', path: '/api/teams', body: { name: 7 }, field: 'name' },
   { method: 'POST', path: '/api/teams', body: {}, field: 'name' },
@@ -44,7 +60,12 @@ const CASES: Case[] = [
   { method: 'POST', path: '/api/invitations/accept', body: { token: 5 }, field: 'token' },
   { method: 'PATCH', path: '/api/account', body: { lengthUnit: 'furlong' }, field: 'lengthUnit' },
   { method: 'PATCH', path: '/api/account', body: { name: '' }, field: 'name' },
-  { method: 'POST', path: '/api/account/password', body: { currentPassword: 'x', newPassword: 'short' }, field: 'newPassword' },
+  {
+    method: 'POST',
+    path: '/api/account/password',
+    body: { currentPassword: 'x', newPassword: 'short' },
+    field: 'newPassword',
+  },
   { method: 'PATCH', path: '/api/members/someone', body: { role: 3 }, field: 'role' },
 ];
 
@@ -66,7 +87,11 @@ describe('bad input on every endpoint of the foundation', () => {
   for (const c of ENDPOINTS) {
     it(`${c.method} ${c.path} answers 400 to malformed JSON`, async () => {
       const before = await rowCounts();
-      const response = await owner.request(c.path, { method: c.method, headers: { 'content-type': 'application/json' }, body: '{"name": "x",' });
+      const response = await owner.request(c.path, {
+        method: c.method,
+        headers: { 'content-type': 'application/json' },
+        body: '{"name": "x",',
+      });
       expect(response.status).toBe(400);
       expect((await response.json()).error.message).toMatch(/not valid JSON/);
       expect(await rowCounts()).toEqual(before);
@@ -75,14 +100,22 @@ describe('bad input on every endpoint of the foundation', () => {
     it(`${c.method} ${c.path} answers 413 to a body over 1 MB`, async () => {
       const before = await rowCounts();
       const huge = JSON.stringify({ name: 'x'.repeat(1024 * 1024 + 10) });
-      const response = await owner.request(c.path, { method: c.method, headers: { 'content-type': 'application/json' }, body: huge });
+      const response = await owner.request(c.path, {
+        method: c.method,
+        headers: { 'content-type': 'application/json' },
+        body: huge,
+      });
       expect(response.status).toBe(413);
       expect((await response.json()).error.message).toMatch(/1 MB/);
       expect(await rowCounts()).toEqual(before);
     });
 
     it(`${c.method} ${c.path} answers 415 to a body that is not JSON`, async () => {
-      const response = await owner.request(c.path, { method: c.method, headers: { 'content-type': 'text/plain' }, body: 'name=x' });
+      const response = await owner.request(c.path, {
+        method: c.method,
+        headers: { 'content-type': 'text/plain' },
+        body: 'name=x',
+      });
       expect(response.status).toBe(415);
     });
   }

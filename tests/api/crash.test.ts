@@ -1,6 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { signedInClient, uniqueEmail, type ApiClient } from '../helpers/api-client';
-import { MIGRATION_FILES, assertPhotoColumns, checkAfterRestart, writeUntilKilled, type CrashTarget } from '../helpers/crash';
+import {
+  MIGRATION_FILES,
+  assertPhotoColumns,
+  checkAfterRestart,
+  writeUntilKilled,
+  type CrashTarget,
+} from '../helpers/crash';
 import { fetchPhoto, noiseImage } from '../helpers/images';
 import { createInspection } from '../helpers/inspections';
 import { startServer, type RunningServer } from '../helpers/server';
@@ -28,7 +34,8 @@ beforeAll(async () => {
   server = await startServer({ env: { SMTP_PORT: String(smtp.port) } });
   owner = (await signedInClient(server.baseUrl, { team: 'Crash Crew' })).client;
   const carId = (await owner.post('/api/cars', { name: 'Crash car' })).body.id as string;
-  const gearSetId = (await owner.post('/api/gear-sets', { serial: 'CRASH-1', ringTeeth: 41, pinionTeeth: 10 })).body.id as string;
+  const gearSetId = (await owner.post('/api/gear-sets', { serial: 'CRASH-1', ringTeeth: 41, pinionTeeth: 10 })).body
+    .id as string;
   const inspectionId = await createInspection(owner, gearSetId);
   const photo = await noiseImage('jpeg', 800, 600);
   target = { server, writers: [owner, owner, owner], carId, uploader: owner, inspectionId, photo };
@@ -40,44 +47,52 @@ afterAll(async () => {
 });
 
 describe('kill -9 during writes', () => {
-  it(`keeps the database whole and every acknowledged write, ${KILLS} times (seed ${SEED})`, { timeout: 120_000 }, async () => {
-    const random = createRandom(SEED);
-    const runs = new Set<string>();
-    const photos = new Set<string>();
-    let cutOff = 0;
-    for (let kill = 1; kill <= KILLS; kill += 1) {
-      const killAfterMs = pickInteger(random, 300, 3000);
-      const acknowledged = await writeUntilKilled(target, killAfterMs, `kill ${kill}`);
-      acknowledged.runs.forEach((id) => runs.add(id));
-      acknowledged.photos.forEach((id) => photos.add(id));
-      cutOff += acknowledged.cutOff;
-      expect(acknowledged.unexpected, `kill ${kill} after ${killAfterMs} ms (seed ${SEED})`).toEqual([]);
-      await server.restart();
-      const after = await checkAfterRestart(server, owner, { runs, photos });
-      const context = `kill ${kill} after ${killAfterMs} ms (seed ${SEED})`;
-      expect(after.integrity, context).toBe('ok');
-      expect(after.migrationsApplied, context).toBe(MIGRATION_FILES);
-      expect(after.missingRuns, context).toEqual([]);
-      expect(after.missingPhotos, context).toEqual([]);
-      expect(after.brokenPhotoRows, context).toEqual([]);
-      expect(after.servedPartials, context).toEqual([]);
-    }
-    console.log(`crash: ${KILLS} kills (seed ${SEED}), ${runs.size} runs and ${photos.size} photos acknowledged and all present, ${cutOff} requests cut off`);
-    expect(runs.size).toBeGreaterThan(0);
-    expect(cutOff).toBeGreaterThanOrEqual(KILLS);
-
-    // Every photo row the API lists after the last restart serves its image and thumbnail.
-    const listed = await owner.get<{ items: { url: string; thumbnailUrl: string }[] }>(`/api/inspections/${target.inspectionId}/photos`);
-    expect(listed.status).toBe(200);
-    for (const item of listed.body.items) {
-      for (const url of [item.url, item.thumbnailUrl]) {
-        const { response, bytes } = await fetchPhoto(owner, url);
-        expect(response.status, url).toBe(200);
-        expect(response.headers.get('content-type')).toBe('image/jpeg');
-        expect(bytes.subarray(-2)).toEqual(Buffer.from([0xff, 0xd9]));
+  it(
+    `keeps the database whole and every acknowledged write, ${KILLS} times (seed ${SEED})`,
+    { timeout: 120_000 },
+    async () => {
+      const random = createRandom(SEED);
+      const runs = new Set<string>();
+      const photos = new Set<string>();
+      let cutOff = 0;
+      for (let kill = 1; kill <= KILLS; kill += 1) {
+        const killAfterMs = pickInteger(random, 300, 3000);
+        const acknowledged = await writeUntilKilled(target, killAfterMs, `kill ${kill}`);
+        acknowledged.runs.forEach((id) => runs.add(id));
+        acknowledged.photos.forEach((id) => photos.add(id));
+        cutOff += acknowledged.cutOff;
+        expect(acknowledged.unexpected, `kill ${kill} after ${killAfterMs} ms (seed ${SEED})`).toEqual([]);
+        await server.restart();
+        const after = await checkAfterRestart(server, owner, { runs, photos });
+        const context = `kill ${kill} after ${killAfterMs} ms (seed ${SEED})`;
+        expect(after.integrity, context).toBe('ok');
+        expect(after.migrationsApplied, context).toBe(MIGRATION_FILES);
+        expect(after.missingRuns, context).toEqual([]);
+        expect(after.missingPhotos, context).toEqual([]);
+        expect(after.brokenPhotoRows, context).toEqual([]);
+        expect(after.servedPartials, context).toEqual([]);
       }
-    }
-  });
+      console.log(
+        `crash: ${KILLS} kills (seed ${SEED}), ${runs.size} runs and ${photos.size} photos acknowledged and all present, ${cutOff} requests cut off`,
+      );
+      expect(runs.size).toBeGreaterThan(0);
+      expect(cutOff).toBeGreaterThanOrEqual(KILLS);
+
+      // Every photo row the API lists after the last restart serves its image and thumbnail.
+      const listed = await owner.get<{ items: { url: string; thumbnailUrl: string }[] }>(
+        `/api/inspections/${target.inspectionId}/photos`,
+      );
+      expect(listed.status).toBe(200);
+      for (const item of listed.body.items) {
+        for (const url of [item.url, item.thumbnailUrl]) {
+          const { response, bytes } = await fetchPhoto(owner, url);
+          expect(response.status, url).toBe(200);
+          expect(response.headers.get('content-type')).toBe('image/jpeg');
+          expect(bytes.subarray(-2)).toEqual(Buffer.from([0xff, 0xd9]));
+        }
+      }
+    },
+  );
 
   it('delivers a message queued before the kill exactly once after the restart', { timeout: 60_000 }, async () => {
     const email = uniqueEmail('after-crash');
@@ -88,7 +103,9 @@ describe('kill -9 during writes', () => {
     const deadline = Date.now() + 10_000;
     let row: { to: string; status: string; attempts: number } | undefined;
     while (Date.now() < deadline) {
-      row = (await owner.get<{ items: { to: string; status: string; attempts: number }[] }>('/api/outbox')).body.items.find((item) => item.to === email);
+      row = (
+        await owner.get<{ items: { to: string; status: string; attempts: number }[] }>('/api/outbox')
+      ).body.items.find((item) => item.to === email);
       if (row && row.attempts >= 1) break;
       await new Promise((resolve) => setTimeout(resolve, 100));
     }
@@ -103,7 +120,9 @@ describe('kill -9 during writes', () => {
     // Two more polls of the worker (every 2 s): a second copy would arrive here.
     await new Promise((resolve) => setTimeout(resolve, 4500));
     expect(smtp.received.filter((mail) => mail.to.includes(email))).toHaveLength(1);
-    const sent = (await owner.get<{ items: { to: string; status: string }[] }>('/api/outbox')).body.items.filter((item) => item.to === email);
+    const sent = (await owner.get<{ items: { to: string; status: string }[] }>('/api/outbox')).body.items.filter(
+      (item) => item.to === email,
+    );
     expect(sent).toEqual([expect.objectContaining({ status: 'sent' })]);
   });
 });

@@ -84,7 +84,10 @@ const json = (value: unknown) => post(JSON.stringify(value));
 
 /** A body over 64 KB sent in chunks with no declared length. */
 function streamedOverLimit(): ReadableStream<Uint8Array> {
-  const parts = [new TextEncoder().encode('{"unit":"mm","readings":[0.15,0.16,0.17]'), ...Array(5).fill(new Uint8Array(16 * 1024).fill(32))];
+  const parts = [
+    new TextEncoder().encode('{"unit":"mm","readings":[0.15,0.16,0.17]'),
+    ...Array(5).fill(new Uint8Array(16 * 1024).fill(32)),
+  ];
   return new ReadableStream({
     pull(controller) {
       const next = parts.shift();
@@ -100,37 +103,169 @@ const padded = (bytes: number) => {
 };
 
 const CASES: Case[] = [
-  { name: 'eight readings', who: 'member', path: BACKLASH, init: () => json({ unit: 'mm', readings: EIGHT }), lane: true },
+  {
+    name: 'eight readings',
+    who: 'member',
+    path: BACKLASH,
+    init: () => json({ unit: 'mm', readings: EIGHT }),
+    lane: true,
+  },
   {
     name: 'readings with a band and tooth counts',
     who: 'member',
     path: BACKLASH,
-    init: () => json({ unit: 'in', readings: [0.0095, 0.0091, 0.0086, 0.0083, 0.0085, 0.0089], profile: { min: 0.008, max: 0.012, maxSpread: 0.002 }, ringTeeth: 37, pinionTeeth: 9 }),
+    init: () =>
+      json({
+        unit: 'in',
+        readings: [0.0095, 0.0091, 0.0086, 0.0083, 0.0085, 0.0089],
+        profile: { min: 0.008, max: 0.012, maxSpread: 0.002 },
+        ringTeeth: 37,
+        pinionTeeth: 9,
+      }),
     lane: true,
   },
-  { name: 'a query string on the POST', who: 'member', path: `${BACKLASH}?from=sheet`, init: () => json({ unit: 'mm', readings: EIGHT }), lane: true },
-  { name: 'a charset in the content type', who: 'member', path: BACKLASH, init: () => post(JSON.stringify({ unit: 'mm', readings: EIGHT }), { 'content-type': 'application/json; charset=utf-8' }), lane: true },
-  { name: 'no Origin (a script)', who: 'member', path: BACKLASH, init: () => json({ unit: 'mm', readings: EIGHT }), noOrigin: true, lane: true },
-  { name: 'min above max', who: 'member', path: BACKLASH, init: () => json({ unit: 'mm', readings: EIGHT, profile: { min: 0.3, max: 0.1, maxSpread: 0.05 } }), lane: true },
-  { name: 'a reading as text', who: 'member', path: BACKLASH, init: () => json({ unit: 'mm', readings: [0.1, '0.2', 0.3] }), lane: true },
-  { name: 'two readings', who: 'member', path: BACKLASH, init: () => json({ unit: 'mm', readings: [0.1, 0.2] }), lane: true },
-  { name: 'a misspelt field', who: 'member', path: BACKLASH, init: () => json({ unit: 'mm', readings: EIGHT, pressureAngle: 20 }), lane: true },
-  { name: 'one tooth count only', who: 'member', path: BACKLASH, init: () => json({ unit: 'mm', readings: EIGHT, ringTeeth: 41 }), lane: true },
+  {
+    name: 'a query string on the POST',
+    who: 'member',
+    path: `${BACKLASH}?from=sheet`,
+    init: () => json({ unit: 'mm', readings: EIGHT }),
+    lane: true,
+  },
+  {
+    name: 'a charset in the content type',
+    who: 'member',
+    path: BACKLASH,
+    init: () =>
+      post(JSON.stringify({ unit: 'mm', readings: EIGHT }), { 'content-type': 'application/json; charset=utf-8' }),
+    lane: true,
+  },
+  {
+    name: 'no Origin (a script)',
+    who: 'member',
+    path: BACKLASH,
+    init: () => json({ unit: 'mm', readings: EIGHT }),
+    noOrigin: true,
+    lane: true,
+  },
+  {
+    name: 'min above max',
+    who: 'member',
+    path: BACKLASH,
+    init: () => json({ unit: 'mm', readings: EIGHT, profile: { min: 0.3, max: 0.1, maxSpread: 0.05 } }),
+    lane: true,
+  },
+  {
+    name: 'a reading as text',
+    who: 'member',
+    path: BACKLASH,
+    init: () => json({ unit: 'mm', readings: [0.1, '0.2', 0.3] }),
+    lane: true,
+  },
+  {
+    name: 'two readings',
+    who: 'member',
+    path: BACKLASH,
+    init: () => json({ unit: 'mm', readings: [0.1, 0.2] }),
+    lane: true,
+  },
+  {
+    name: 'a misspelt field',
+    who: 'member',
+    path: BACKLASH,
+    init: () => json({ unit: 'mm', readings: EIGHT, pressureAngle: 20 }),
+    lane: true,
+  },
+  {
+    name: 'one tooth count only',
+    who: 'member',
+    path: BACKLASH,
+    init: () => json({ unit: 'mm', readings: EIGHT, ringTeeth: 41 }),
+    lane: true,
+  },
   { name: 'malformed JSON', who: 'member', path: BACKLASH, init: () => post('{"unit": "mm",'), lane: true },
-  { name: 'a bare NaN', who: 'member', path: BACKLASH, init: () => post('{"unit":"mm","readings":[0.15,NaN,0.17]}'), lane: true },
+  {
+    name: 'a bare NaN',
+    who: 'member',
+    path: BACKLASH,
+    init: () => post('{"unit":"mm","readings":[0.15,NaN,0.17]}'),
+    lane: true,
+  },
   { name: 'an empty body', who: 'member', path: BACKLASH, init: () => post(''), lane: true },
   { name: 'exactly 64 KB', who: 'member', path: BACKLASH, init: () => post(padded(64 * 1024)), lane: true },
   { name: '64 KB and one byte', who: 'member', path: BACKLASH, init: () => post(padded(64 * 1024 + 1)), lane: true },
-  { name: 'a streamed body over 64 KB', who: 'member', path: BACKLASH, init: () => post(streamedOverLimit()), lane: true },
-  { name: 'a signed-out caller', who: 'anonymous', path: BACKLASH, init: () => json({ unit: 'mm', readings: EIGHT }), lane: true },
-  { name: 'a person with no team', who: 'teamless', path: BACKLASH, init: () => json({ unit: 'mm', readings: EIGHT }), lane: true },
-  { name: 'a plain-text body', who: 'member', path: BACKLASH, init: () => post('readings=1', { 'content-type': 'text/plain' }), lane: false },
-  { name: 'a form body', who: 'member', path: BACKLASH, init: () => post('readings=1', { 'content-type': 'application/x-www-form-urlencoded' }), lane: false },
-  { name: 'a foreign Origin', who: 'member', path: BACKLASH, init: () => post(JSON.stringify({ unit: 'mm', readings: EIGHT }), { ...JSON_TYPE, origin: 'http://elsewhere.test' }), lane: false },
+  {
+    name: 'a streamed body over 64 KB',
+    who: 'member',
+    path: BACKLASH,
+    init: () => post(streamedOverLimit()),
+    lane: true,
+  },
+  {
+    name: 'a signed-out caller',
+    who: 'anonymous',
+    path: BACKLASH,
+    init: () => json({ unit: 'mm', readings: EIGHT }),
+    lane: true,
+  },
+  {
+    name: 'a person with no team',
+    who: 'teamless',
+    path: BACKLASH,
+    init: () => json({ unit: 'mm', readings: EIGHT }),
+    lane: true,
+  },
+  {
+    name: 'a plain-text body',
+    who: 'member',
+    path: BACKLASH,
+    init: () => post('readings=1', { 'content-type': 'text/plain' }),
+    lane: false,
+  },
+  {
+    name: 'a form body',
+    who: 'member',
+    path: BACKLASH,
+    init: () => post('readings=1', { 'content-type': 'application/x-www-form-urlencoded' }),
+    lane: false,
+  },
+  {
+    name: 'a foreign Origin',
+    who: 'member',
+    path: BACKLASH,
+    init: () =>
+      post(JSON.stringify({ unit: 'mm', readings: EIGHT }), { ...JSON_TYPE, origin: 'http://elsewhere.test' }),
+    lane: false,
+  },
   { name: 'another method', who: 'member', path: BACKLASH, init: () => ({ method: 'GET' }), lane: false },
-  { name: 'a trend', who: 'member', path: TREND, init: () => json({ points: [0, 12, 25, 38].map((runs, i) => ({ runs, value: 0.22 + i * 0.008 })), limit: { max: 0.3 } }), lane: true },
-  { name: 'a trend of two points', who: 'member', path: TREND, init: () => json({ points: [{ runs: 0, value: 0.2 }, { runs: 10, value: 0.21 }], limit: 0.3 }), lane: true },
-  { name: 'a trend point with negative runs', who: 'member', path: TREND, init: () => json({ points: [{ runs: -1, value: 0.2 }] }), lane: true },
+  {
+    name: 'a trend',
+    who: 'member',
+    path: TREND,
+    init: () =>
+      json({ points: [0, 12, 25, 38].map((runs, i) => ({ runs, value: 0.22 + i * 0.008 })), limit: { max: 0.3 } }),
+    lane: true,
+  },
+  {
+    name: 'a trend of two points',
+    who: 'member',
+    path: TREND,
+    init: () =>
+      json({
+        points: [
+          { runs: 0, value: 0.2 },
+          { runs: 10, value: 0.21 },
+        ],
+        limit: 0.3,
+      }),
+    lane: true,
+  },
+  {
+    name: 'a trend point with negative runs',
+    who: 'member',
+    path: TREND,
+    init: () => json({ points: [{ runs: -1, value: 0.2 }] }),
+    lane: true,
+  },
   { name: 'ten bolts', who: 'member', path: `${SEQUENCE}?bolts=10`, init: () => ({}), lane: true },
   { name: 'bolts=2', who: 'member', path: `${SEQUENCE}?bolts=2`, init: () => ({}), lane: true },
   { name: 'no bolts', who: 'member', path: SEQUENCE, init: () => ({}), lane: true },
@@ -140,7 +275,10 @@ const CASES: Case[] = [
 async function send(side: Side, c: Case, init: Init = c.init()) {
   const client = side[c.who];
   const response = c.noOrigin
-    ? await fetch(`${side.server.baseUrl}${c.path}`, { ...init, headers: { ...(init.headers as Record<string, string>), cookie: client.cookieHeader() } })
+    ? await fetch(`${side.server.baseUrl}${c.path}`, {
+        ...init,
+        headers: { ...(init.headers as Record<string, string>), cookie: client.cookieHeader() },
+      })
     : await client.request(c.path, init);
   const text = await response.text();
   let body: unknown = text;
@@ -190,7 +328,12 @@ describe('the fast lane for the calculation routes', () => {
         .find((l) => l.includes('"event":"denied"') && l.includes(TREND));
     await expect.poll(findLine, { timeout: 2000 }).toBeDefined();
     const line = findLine();
-    expect(JSON.parse(line!.replace('[lashline:security] ', ''))).toMatchObject({ status: 401, method: 'POST', path: TREND, userId: null });
+    expect(JSON.parse(line!.replace('[lashline:security] ', ''))).toMatchObject({
+      status: 401,
+      method: 'POST',
+      path: TREND,
+      userId: null,
+    });
   });
 
   it('cuts off a removed member, and a session ended by a password change, on the very next request', async () => {
@@ -207,7 +350,10 @@ describe('the fast lane for the calculation routes', () => {
     const secondDevice = new ApiClient(fast.server.baseUrl);
     await secondDevice.signIn(owner.email, TEST_PASSWORD);
     expect((await ask(secondDevice)).status).toBe(200);
-    const changed = await owner.client.post('/api/account/password', { currentPassword: TEST_PASSWORD, newPassword: 'another long test passphrase' });
+    const changed = await owner.client.post('/api/account/password', {
+      currentPassword: TEST_PASSWORD,
+      newPassword: 'another long test passphrase',
+    });
     expect(changed.status).toBe(200);
     const after = await ask(secondDevice);
     expect(after.status).toBe(401);

@@ -22,7 +22,9 @@ async function preloadedRanges(html: string): Promise<[number, number][]> {
   const preload = /<link rel="preload" href="([^"]+\.woff2)" as="font"/.exec(html)![1]!;
   const stylesheet = /<link rel="stylesheet" href="([^"]+\.css)">/.exec(html)![1]!;
   const css = await (await fetch(`${server.baseUrl}${stylesheet}`)).text();
-  const face = [...css.matchAll(/@font-face\s*\{([^}]*)\}/g)].map((m) => m[1]!).find((f) => f.includes(`url(${preload})`))!;
+  const face = [...css.matchAll(/@font-face\s*\{([^}]*)\}/g)]
+    .map((m) => m[1]!)
+    .find((f) => f.includes(`url(${preload})`))!;
   const range = /unicode-range:\s*([^;}]+)/.exec(face)![1]!;
   return range.split(',').map((part) => {
     const [from, to] = part.trim().replace(/^U\+/i, '').split('-');
@@ -47,7 +49,14 @@ describe('the characters on the chart pages', () => {
     const sets = await viewer.get<{ items: { id: string; serial: string }[] }>('/api/gear-sets');
     const setId = sets.body.items.find((s) => s.serial === 'GS-4101')!.id;
     const inspections = await viewer.get<{ items: { id: string }[] }>(`/api/inspections?gearSetId=${setId}`);
-    const paths = ['/', `/gear-sets/${setId}`, `/inspections/${inspections.body.items.at(-1)!.id}`, `/gear-sets/${setId}/compare`, '/parts', '/reviews'];
+    const paths = [
+      '/',
+      `/gear-sets/${setId}`,
+      `/inspections/${inspections.body.items.at(-1)!.id}`,
+      `/gear-sets/${setId}/compare`,
+      '/parts',
+      '/reviews',
+    ];
     let ranges: [number, number][] | null = null;
     const strays: Record<string, string[]> = {};
     for (const path of paths) {
@@ -57,8 +66,11 @@ describe('the characters on the chart pages', () => {
       ranges ??= await preloadedRanges(html);
       const text = visibleText(html);
       expect(text.length, path).toBeGreaterThan(200);
-      const outside = [...new Set(text)].filter((ch) => !ranges!.some(([low, high]) => ch.codePointAt(0)! >= low && ch.codePointAt(0)! <= high));
-      if (outside.length) strays[path] = outside.map((ch) => `${ch} U+${ch.codePointAt(0)!.toString(16).toUpperCase()}`);
+      const outside = [...new Set(text)].filter(
+        (ch) => !ranges!.some(([low, high]) => ch.codePointAt(0)! >= low && ch.codePointAt(0)! <= high),
+      );
+      if (outside.length)
+        strays[path] = outside.map((ch) => `${ch} U+${ch.codePointAt(0)!.toString(16).toUpperCase()}`);
     }
     expect(ranges!.length).toBeGreaterThan(5);
     expect(strays).toEqual({});

@@ -14,7 +14,9 @@ afterAll(() => server?.stop());
 describe('the shipped font', () => {
   it('is preloaded from this server, named by the stylesheet, and never swapped in late', async () => {
     const html = await (await fetch(`${server.baseUrl}/sign-in`)).text();
-    const preload = /<link rel="preload" href="([^"]+\.woff2)" as="font" type="font\/woff2" crossorigin>/.exec(html)?.[1];
+    const preload = /<link rel="preload" href="([^"]+\.woff2)" as="font" type="font\/woff2" crossorigin>/.exec(
+      html,
+    )?.[1];
     const stylesheet = /<link rel="stylesheet" href="([^"]+\.css)">/.exec(html)?.[1];
     expect(preload).toMatch(/^\/_astro\/roboto-flex-latin-wght-normal\.[\w-]+\.woff2$/);
     expect(stylesheet).toMatch(/^\/_astro\//);

@@ -12,8 +12,16 @@ beforeAll(async () => {
 });
 afterAll(() => server?.stop());
 
-const newSet = async (serial: string) => (await chief.post('/api/gear-sets', { serial, ringTeeth: 41, pinionTeeth: 10 })).body.id as string;
-const mm = (readings: number[], runs: number, extra: Record<string, unknown> = {}) => ({ unit: 'mm', resolution: '0.01mm', readings, runsAtInspection: runs, inspectedAt: new Date(Date.UTC(2026, 4, 1) + runs * 86_400_000).toISOString(), ...extra });
+const newSet = async (serial: string) =>
+  (await chief.post('/api/gear-sets', { serial, ringTeeth: 41, pinionTeeth: 10 })).body.id as string;
+const mm = (readings: number[], runs: number, extra: Record<string, unknown> = {}) => ({
+  unit: 'mm',
+  resolution: '0.01mm',
+  readings,
+  runsAtInspection: runs,
+  inspectedAt: new Date(Date.UTC(2026, 4, 1) + runs * 86_400_000).toISOString(),
+  ...extra,
+});
 
 describe('GET /api/gear-sets/:id/analysis', () => {
   it('says why there is no projection yet, and keeps the recommendation to keep', async () => {
@@ -32,7 +40,7 @@ describe('GET /api/gear-sets/:id/analysis', () => {
     // Mean backlash 0.15, 0.17, 0.19 mm at 0, 10, 20 runs: slope 0.002 mm/run meets 0.23 mm at 40 runs.
     await submitInspection(chief, draftBody(id, mm([0.16, 0.15, 0.14, 0.15], 0)));
     await submitInspection(chief, draftBody(id, mm([0.18, 0.17, 0.16, 0.17], 10)));
-    await submitInspection(chief, draftBody(id, mm([0.20, 0.19, 0.18, 0.19], 20)));
+    await submitInspection(chief, draftBody(id, mm([0.2, 0.19, 0.18, 0.19], 20)));
     const analysis = (await chief.get(`/api/gear-sets/${id}/analysis`)).body;
     const mean = analysis.trends.find((t: { measure: string }) => t.measure === 'backlash-mean');
     expect(mean.fit.slope).toBeCloseTo(0.002, 12);
@@ -50,7 +58,9 @@ describe('GET /api/gear-sets/:id/analysis', () => {
     expect((await chief.patch('/api/team/settings', { serviceIntervalRuns: 25 })).status).toBe(200);
     const later = (await chief.get(`/api/gear-sets/${id}/analysis`)).body;
     expect(later.recommendation.action).toBe('re-shim');
-    expect(later.recommendation.reasons.map((r: { code: string }) => r.code)).toContain('backlash-mean-limit-before-next-service');
+    expect(later.recommendation.reasons.map((r: { code: string }) => r.code)).toContain(
+      'backlash-mean-limit-before-next-service',
+    );
     await chief.patch('/api/team/settings', { serviceIntervalRuns: 8 });
   });
 
@@ -71,17 +81,25 @@ describe('GET /api/gear-sets/:id/analysis', () => {
   it('judges a submitted inspection by the profile version it kept, after the profile changes', async () => {
     const id = await newSet('TR-VERSION');
     const inspectionId = await submitInspection(chief, draftBody(id, mm([0.25, 0.25, 0.25, 0.25], 0)));
-    const before = (await chief.get(`/api/inspections/${inspectionId}`)).body.summary.verdicts.find((v: { measure: string }) => v.measure === 'backlash-min-point');
+    const before = (await chief.get(`/api/inspections/${inspectionId}`)).body.summary.verdicts.find(
+      (v: { measure: string }) => v.measure === 'backlash-min-point',
+    );
     expect(before.verdict).toBe('out-of-band');
     const profiles = (await chief.get('/api/tolerance-profiles')).body.items;
     const current = profiles[0];
-    const changed = await chief.put(`/api/tolerance-profiles/${current.profileId}`, { values: { ...current.values, backlashMax: 0.3 } });
+    const changed = await chief.put(`/api/tolerance-profiles/${current.profileId}`, {
+      values: { ...current.values, backlashMax: 0.3 },
+    });
     expect(changed.status).toBe(200);
     expect(changed.body.version).toBe(current.version + 1);
-    const after = (await chief.get(`/api/inspections/${inspectionId}`)).body.summary.verdicts.find((v: { measure: string }) => v.measure === 'backlash-min-point');
+    const after = (await chief.get(`/api/inspections/${inspectionId}`)).body.summary.verdicts.find(
+      (v: { measure: string }) => v.measure === 'backlash-min-point',
+    );
     expect(after.verdict).toBe('out-of-band');
     const fresh = await submitInspection(chief, draftBody(id, mm([0.25, 0.25, 0.25, 0.25], 3)));
-    const judgedNew = (await chief.get(`/api/inspections/${fresh}`)).body.summary.verdicts.find((v: { measure: string }) => v.measure === 'backlash-min-point');
+    const judgedNew = (await chief.get(`/api/inspections/${fresh}`)).body.summary.verdicts.find(
+      (v: { measure: string }) => v.measure === 'backlash-min-point',
+    );
     expect(judgedNew.verdict).toBe('in-band');
   });
 
@@ -94,7 +112,10 @@ describe('GET /api/gear-sets/:id/analysis', () => {
 
   it('refuses a profile with min above max, naming the field', async () => {
     const current = (await chief.get('/api/tolerance-profiles')).body.items[0];
-    const bad = await chief.post('/api/tolerance-profiles', { name: 'Bad', values: { ...current.values, backlashMin: 0.3, backlashMax: 0.2 } });
+    const bad = await chief.post('/api/tolerance-profiles', {
+      name: 'Bad',
+      values: { ...current.values, backlashMin: 0.3, backlashMax: 0.2 },
+    });
     expect(bad.status).toBe(400);
     expect(Object.keys(bad.body.error.fields)).toContain('values.backlashMin');
   });

@@ -20,7 +20,11 @@ beforeAll(async () => {
   gearSetId = (await team.chief.post('/api/gear-sets', { serial: 'SH-1', ringTeeth: 41, pinionTeeth: 10 })).body.id;
   const stranger = (await signedInClient(server.baseUrl, { team: 'Strangers' })).client;
   const theirSet = (await stranger.post('/api/gear-sets', { serial: 'ST-1', ringTeeth: 40, pinionTeeth: 9 })).body.id;
-  other = { client: stranger, gearSetId: theirSet, inspectionId: await submitInspection(stranger, draftBody(theirSet)) };
+  other = {
+    client: stranger,
+    gearSetId: theirSet,
+    inspectionId: await submitInspection(stranger, draftBody(theirSet)),
+  };
 });
 afterAll(async () => {
   await server?.stop();
@@ -42,7 +46,11 @@ async function countInspections(): Promise<number> {
 
 describe('the inspection sheet API', () => {
   it('creates a draft stored in mm with the entry unit and resolution beside it', async () => {
-    const response = await post(team.tech, '/api/inspections', draftBody(gearSetId, { readings: [0.01, 0.008, null, 0.009], runout: { backFace: 0.002 } }));
+    const response = await post(
+      team.tech,
+      '/api/inspections',
+      draftBody(gearSetId, { readings: [0.01, 0.008, null, 0.009], runout: { backFace: 0.002 } }),
+    );
     expect(response.status).toBe(201);
     const view = await response.json();
     expect(view.status).toBe('draft');
@@ -67,17 +75,31 @@ describe('the inspection sheet API', () => {
   });
 
   it('merges an update, refuses a submit with a position not read, then submits once', async () => {
-    const draft = await (await post(team.tech, '/api/inspections', draftBody(gearSetId, { readings: [0.008, null, 0.006, 0.007] }))).json();
-    const early = await team.tech.request(`/api/inspections/${draft.id}/submit`, { method: 'POST', headers: { 'idempotency-key': newKey() } });
+    const draft = await (
+      await post(team.tech, '/api/inspections', draftBody(gearSetId, { readings: [0.008, null, 0.006, 0.007] }))
+    ).json();
+    const early = await team.tech.request(`/api/inspections/${draft.id}/submit`, {
+      method: 'POST',
+      headers: { 'idempotency-key': newKey() },
+    });
     expect(early.status).toBe(422);
     expect((await early.json()).error.fields).toHaveProperty('readings.1');
-    const patched = await team.tech.patch(`/api/inspections/${draft.id}`, { readings: [0.008, 0.009, 0.006, 0.007], notes: 'Clean teardown.' });
+    const patched = await team.tech.patch(`/api/inspections/${draft.id}`, {
+      readings: [0.008, 0.009, 0.006, 0.007],
+      notes: 'Clean teardown.',
+    });
     expect(patched.status).toBe(200);
     expect(patched.body.revision).toBe(2);
     expect(patched.body.summary.backlash.mean).toBeCloseTo(0.0075, 12);
     const key = newKey();
-    const submitted = await team.tech.request(`/api/inspections/${draft.id}/submit`, { method: 'POST', headers: { 'idempotency-key': key } });
-    const repeat = await team.tech.request(`/api/inspections/${draft.id}/submit`, { method: 'POST', headers: { 'idempotency-key': key } });
+    const submitted = await team.tech.request(`/api/inspections/${draft.id}/submit`, {
+      method: 'POST',
+      headers: { 'idempotency-key': key },
+    });
+    const repeat = await team.tech.request(`/api/inspections/${draft.id}/submit`, {
+      method: 'POST',
+      headers: { 'idempotency-key': key },
+    });
     expect(submitted.status).toBe(200);
     expect(repeat.status).toBe(200);
     const [a, b] = [await submitted.json(), await repeat.json()];
@@ -100,14 +122,17 @@ describe('the inspection sheet API', () => {
     const byChief = await team.chief.patch(`/api/inspections/${id}`, { notes: 'corrected by chief' });
     expect(byChief.status).toBe(200);
     const db = createClient({ url: server.databaseUrl });
-    const rows = await db.execute({ sql: "SELECT before, after FROM audit_events WHERE record_type = 'inspection' AND record_id = ? AND action = 'update'", args: [id] });
+    const rows = await db.execute({
+      sql: "SELECT before, after FROM audit_events WHERE record_type = 'inspection' AND record_id = ? AND action = 'update'",
+      args: [id],
+    });
     db.close();
     expect(rows.rows).toHaveLength(1);
     expect(JSON.parse(String(rows.rows[0]!.before)).notes).toBe('first words');
     expect(JSON.parse(String(rows.rows[0]!.after)).notes).toBe('corrected by chief');
   });
 
-  it("lets a technician change only their own draft, and a viewer nothing", async () => {
+  it('lets a technician change only their own draft, and a viewer nothing', async () => {
     const chiefDraft = await (await post(team.chief, '/api/inspections', draftBody(gearSetId))).json();
     expect((await team.tech.patch(`/api/inspections/${chiefDraft.id}`, { notes: 'mine?' })).status).toBe(403);
     expect((await post(team.viewer, '/api/inspections', draftBody(gearSetId))).status).toBe(403);
@@ -119,15 +144,29 @@ describe('the inspection sheet API', () => {
     const onTheirs = await post(team.tech, '/api/inspections', draftBody(other.gearSetId));
     expect(onTheirs.status).toBe(404);
     expect((await onTheirs.json()).error.fields.gearSetId).toBeDefined();
-    for (const [method, path] of [['GET', `/api/inspections/${other.inspectionId}`], ['PATCH', `/api/inspections/${other.inspectionId}`], ['DELETE', `/api/inspections/${other.inspectionId}`], ['GET', `/api/gear-sets/${other.gearSetId}/analysis`]]) {
-      expect((await team.owner.json(method!, path!, method === 'PATCH' ? { notes: 'x' } : undefined)).status, `${method} ${path}`).toBe(404);
+    for (const [method, path] of [
+      ['GET', `/api/inspections/${other.inspectionId}`],
+      ['PATCH', `/api/inspections/${other.inspectionId}`],
+      ['DELETE', `/api/inspections/${other.inspectionId}`],
+      ['GET', `/api/gear-sets/${other.gearSetId}/analysis`],
+    ]) {
+      expect(
+        (await team.owner.json(method!, path!, method === 'PATCH' ? { notes: 'x' } : undefined)).status,
+        `${method} ${path}`,
+      ).toBe(404);
     }
-    const submit = await team.owner.request(`/api/inspections/${other.inspectionId}/submit`, { method: 'POST', headers: { 'idempotency-key': newKey() } });
+    const submit = await team.owner.request(`/api/inspections/${other.inspectionId}/submit`, {
+      method: 'POST',
+      headers: { 'idempotency-key': newKey() },
+    });
     expect(submit.status).toBe(404);
   });
 
   it('shows each reader the summary in their own unit', async () => {
-    const id = await submitInspection(team.tech, draftBody(gearSetId, { unit: 'mm', resolution: '0.01mm', readings: [0.2, 0.18, 0.16, 0.18] }));
+    const id = await submitInspection(
+      team.tech,
+      draftBody(gearSetId, { unit: 'mm', resolution: '0.01mm', readings: [0.2, 0.18, 0.16, 0.18] }),
+    );
     await team.viewer.patch('/api/account', { lengthUnit: 'in' });
     const asInch = (await team.viewer.get(`/api/inspections/${id}`)).body;
     expect(asInch.readings).toEqual([0.2, 0.18, 0.16, 0.18]);
@@ -147,8 +186,16 @@ describe('bad input on the inspection sheet', () => {
     ['two readings', { readings: [0.008, 0.007] }, 'readings'],
     ['an unknown unit', { unit: 'cubit' }, 'unit'],
     ['an unknown resolution', { resolution: '0.1in' }, 'resolution'],
-    ['a preload over 20 N·m', { torqueUnit: 'N-m', preload: { pinionTorque: 25, bearings: 'new' } }, 'preload.pinionTorque'],
-    ['a shim over 5 mm', { unit: 'mm', resolution: '0.01mm', readings: [0.2, 0.2, 0.2, 0.2], pinion: { shims: [1, 6] } }, 'pinion.shims.1'],
+    [
+      'a preload over 20 N·m',
+      { torqueUnit: 'N-m', preload: { pinionTorque: 25, bearings: 'new' } },
+      'preload.pinionTorque',
+    ],
+    [
+      'a shim over 5 mm',
+      { unit: 'mm', resolution: '0.01mm', readings: [0.2, 0.2, 0.2, 0.2], pinion: { shims: [1, 6] } },
+      'pinion.shims.1',
+    ],
     ['runs over 100,000', { runsAtInspection: 100_001 }, 'runsAtInspection'],
     ['runs as text', { runsAtInspection: '10' }, 'runsAtInspection'],
     ['a date that is not one', { inspectedAt: 'last tuesday' }, 'inspectedAt'],

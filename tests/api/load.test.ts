@@ -28,31 +28,41 @@ beforeAll(async () => {
 afterAll(() => server?.stop());
 
 describe('50 concurrent writers', () => {
-  it('get no 5xx and no database error, and every acknowledged write is there afterwards', { timeout: 60_000 }, async () => {
-    const result = await runWriteLoad({ clients: Array.from({ length: CLIENTS }, () => writer), carId, gearSetId, durationMs: WRITE_MS, maxRequestsPerWorker: 400 });
-    console.log(
-      [
-        `load: ${result.requests} requests in ${(result.elapsedMs / 1000).toFixed(1)} s from ${CLIENTS} clients (${describeStatuses(result.statuses)})`,
-        describeLatencies('POST /api/runs', result.latencies.runs, result.elapsedMs),
-        describeLatencies('POST /api/inspections', result.latencies.inspections, result.elapsedMs),
-      ].join('\n'),
-    );
-    expect(result.networkErrors).toEqual([]);
-    expect(result.leaks).toEqual([]);
-    expect(result.badRepeats).toEqual([]);
-    expect([...result.statuses.keys()].every((status) => status === 200 || status === 201)).toBe(true);
-    expect(result.acknowledgedRuns.size).toBeGreaterThanOrEqual(CLIENTS / 2);
-    expect(result.acknowledgedInspections.size).toBeGreaterThanOrEqual(CLIENTS / 2);
-    expect(result.repeats).toBeGreaterThan(0);
+  it(
+    'get no 5xx and no database error, and every acknowledged write is there afterwards',
+    { timeout: 60_000 },
+    async () => {
+      const result = await runWriteLoad({
+        clients: Array.from({ length: CLIENTS }, () => writer),
+        carId,
+        gearSetId,
+        durationMs: WRITE_MS,
+        maxRequestsPerWorker: 400,
+      });
+      console.log(
+        [
+          `load: ${result.requests} requests in ${(result.elapsedMs / 1000).toFixed(1)} s from ${CLIENTS} clients (${describeStatuses(result.statuses)})`,
+          describeLatencies('POST /api/runs', result.latencies.runs, result.elapsedMs),
+          describeLatencies('POST /api/inspections', result.latencies.inspections, result.elapsedMs),
+        ].join('\n'),
+      );
+      expect(result.networkErrors).toEqual([]);
+      expect(result.leaks).toEqual([]);
+      expect(result.badRepeats).toEqual([]);
+      expect([...result.statuses.keys()].every((status) => status === 200 || status === 201)).toBe(true);
+      expect(result.acknowledgedRuns.size).toBeGreaterThanOrEqual(CLIENTS / 2);
+      expect(result.acknowledgedInspections.size).toBeGreaterThanOrEqual(CLIENTS / 2);
+      expect(result.repeats).toBeGreaterThan(0);
 
-    const runs = await listAllIds(writer, '/api/runs');
-    const inspections = await listAllIds(writer, '/api/inspections');
-    expect(new Set(runs).size).toBe(runs.length);
-    expect(runs.length).toBe(result.acknowledgedRuns.size);
-    expect(runs.filter((id) => !result.acknowledgedRuns.has(id))).toEqual([]);
-    expect(new Set(inspections).size).toBe(inspections.length);
-    expect(inspections.length).toBe(result.acknowledgedInspections.size);
-    expect(inspections.filter((id) => !result.acknowledgedInspections.has(id))).toEqual([]);
-    expect(server.output()).not.toMatch(DATABASE_ERROR_TEXT);
-  });
+      const runs = await listAllIds(writer, '/api/runs');
+      const inspections = await listAllIds(writer, '/api/inspections');
+      expect(new Set(runs).size).toBe(runs.length);
+      expect(runs.length).toBe(result.acknowledgedRuns.size);
+      expect(runs.filter((id) => !result.acknowledgedRuns.has(id))).toEqual([]);
+      expect(new Set(inspections).size).toBe(inspections.length);
+      expect(inspections.length).toBe(result.acknowledgedInspections.size);
+      expect(inspections.filter((id) => !result.acknowledgedInspections.has(id))).toEqual([]);
+      expect(server.output()).not.toMatch(DATABASE_ERROR_TEXT);
+    },
+  );
 });

@@ -4,7 +4,18 @@ import { createClient } from '@libsql/client';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ApiClient, signedInClient } from '../helpers/api-client';
-import { GPS_TAGS, METADATA_MARKERS, cameraJpeg, fetchPhoto, largeTransparentPng, noiseImage, pngBomb, pngHeaderBomb, readExifTags, uploadPhoto } from '../helpers/images';
+import {
+  GPS_TAGS,
+  METADATA_MARKERS,
+  cameraJpeg,
+  fetchPhoto,
+  largeTransparentPng,
+  noiseImage,
+  pngBomb,
+  pngHeaderBomb,
+  readExifTags,
+  uploadPhoto,
+} from '../helpers/images';
 import { createInspection } from '../helpers/inspections';
 import { startServer, type RunningServer } from '../helpers/server';
 import { SmtpFake } from '../helpers/smtp-fake';
@@ -22,11 +33,13 @@ beforeAll(async () => {
   await smtp.start();
   server = await startServer({ env: { SMTP_PORT: String(smtp.port) } });
   team = await makeTeamOfFour(server.baseUrl, smtp, 'Photo Crew');
-  const gearSet = (await team.chief.post('/api/gear-sets', { serial: 'PH-G1', ringTeeth: 41, pinionTeeth: 10 })).body.id;
+  const gearSet = (await team.chief.post('/api/gear-sets', { serial: 'PH-G1', ringTeeth: 41, pinionTeeth: 10 })).body
+    .id;
   inspection.byTech = await createInspection(team.tech, gearSet);
   inspection.byChief = await createInspection(team.chief, gearSet);
   stranger = (await signedInClient(server.baseUrl, { team: 'Other Photo Crew' })).client;
-  const theirGearSet = (await stranger.post('/api/gear-sets', { serial: 'THEIRS-G1', ringTeeth: 41, pinionTeeth: 10 })).body.id;
+  const theirGearSet = (await stranger.post('/api/gear-sets', { serial: 'THEIRS-G1', ringTeeth: 41, pinionTeeth: 10 }))
+    .body.id;
   inspection.elsewhere = await createInspection(stranger, theirGearSet);
 });
 afterAll(async () => {
@@ -58,7 +71,10 @@ async function expectNothingStored(refuse: () => Promise<void>): Promise<void> {
 }
 
 async function pixelAt(image: Buffer, left: number, top: number): Promise<number[]> {
-  const { data } = await sharp(image).extract({ left, top, width: 1, height: 1 }).raw().toBuffer({ resolveWithObject: true });
+  const { data } = await sharp(image)
+    .extract({ left, top, width: 1, height: 1 })
+    .raw()
+    .toBuffer({ resolveWithObject: true });
   return [...data];
 }
 
@@ -73,7 +89,12 @@ describe('uploading a photo', () => {
 
     const made = await uploadPhoto(team.tech, inspection.byTech, input, { side: 'drive' });
     expect(made.status).toBe(201);
-    expect(made.body).toMatchObject({ side: 'drive', contentType: 'image/jpeg', url: `/api/photos/${made.body.id}`, thumbnailUrl: `/api/photos/${made.body.id}/thumbnail` });
+    expect(made.body).toMatchObject({
+      side: 'drive',
+      contentType: 'image/jpeg',
+      url: `/api/photos/${made.body.id}`,
+      thumbnailUrl: `/api/photos/${made.body.id}/thumbnail`,
+    });
     expect(Date.parse(made.body.createdAt)).toBeGreaterThan(Date.now() - 60_000);
 
     for (const url of [made.body.url, made.body.thumbnailUrl]) {
@@ -81,7 +102,13 @@ describe('uploading a photo', () => {
       expect(response.status).toBe(200);
       const stored = await sharp(bytes).metadata();
       expect(stored.format).toBe('jpeg');
-      expect([stored.exif, stored.xmp, stored.icc, stored.iptc, stored.orientation]).toEqual([undefined, undefined, undefined, undefined, undefined]);
+      expect([stored.exif, stored.xmp, stored.icc, stored.iptc, stored.orientation]).toEqual([
+        undefined,
+        undefined,
+        undefined,
+        undefined,
+        undefined,
+      ]);
       for (const marker of METADATA_MARKERS) expect(bytes.includes(Buffer.from(marker, 'latin1')), marker).toBe(false);
     }
   });
@@ -100,7 +127,10 @@ describe('uploading a photo', () => {
   });
 
   it('caps the longest side at 2560 px, makes a 320 px thumbnail, and puts transparency on white', async () => {
-    const made = await uploadPhoto(team.chief, inspection.byTech, await largeTransparentPng(4000, 3000), { type: 'image/png', filename: 'p.png' });
+    const made = await uploadPhoto(team.chief, inspection.byTech, await largeTransparentPng(4000, 3000), {
+      type: 'image/png',
+      filename: 'p.png',
+    });
     expect(made.status).toBe(201);
     expect(made.body).toMatchObject({ width: 2560, height: 1920, contentType: 'image/jpeg' });
     const full = await fetchPhoto(team.tech, made.body.url);
@@ -115,7 +145,10 @@ describe('uploading a photo', () => {
   });
 
   it('accepts WebP and stores it as JPEG, by content whatever the name says', async () => {
-    const made = await uploadPhoto(team.tech, inspection.byTech, await noiseImage('webp', 640, 480), { filename: 'pattern.gif', type: 'image/gif' });
+    const made = await uploadPhoto(team.tech, inspection.byTech, await noiseImage('webp', 640, 480), {
+      filename: 'pattern.gif',
+      type: 'image/gif',
+    });
     expect(made.status).toBe(201);
     expect(made.body).toMatchObject({ width: 640, height: 480, contentType: 'image/jpeg' });
     const { response, bytes } = await fetchPhoto(team.tech, made.body.url);
@@ -124,30 +157,50 @@ describe('uploading a photo', () => {
   });
 
   it('serves the bytes privately cached, not sniffable, under a server-made name', async () => {
-    const made = await uploadPhoto(team.tech, inspection.byTech, await noiseImage('jpeg'), { filename: '../../etc/evil name.jpg' });
+    const made = await uploadPhoto(team.tech, inspection.byTech, await noiseImage('jpeg'), {
+      filename: '../../etc/evil name.jpg',
+    });
     const { response, bytes } = await fetchPhoto(team.tech, made.body.url);
     expect(response.headers.get('content-length')).toBe(String(bytes.length));
     expect(response.headers.get('cache-control')).toMatch(/^private, max-age=\d+/);
     expect(response.headers.get('x-content-type-options')).toBe('nosniff');
     expect(response.headers.get('content-disposition')).toBe(`inline; filename="lashline-photo-${made.body.id}.jpg"`);
     const thumbnail = await fetchPhoto(team.tech, made.body.thumbnailUrl);
-    expect(thumbnail.response.headers.get('content-disposition')).toBe(`inline; filename="lashline-photo-${made.body.id}-thumbnail.jpg"`);
-    const [[storageKey]] = (await sql(`SELECT storage_key FROM inspection_photos WHERE id = '${made.body.id}'`)) as [[string]];
+    expect(thumbnail.response.headers.get('content-disposition')).toBe(
+      `inline; filename="lashline-photo-${made.body.id}-thumbnail.jpg"`,
+    );
+    const [[storageKey]] = (await sql(`SELECT storage_key FROM inspection_photos WHERE id = '${made.body.id}'`)) as [
+      [string],
+    ];
     expect(storageKey).toMatch(/^[0-9a-f-]{36}\.jpg$/);
     expect(readdirSync(join(server.dataDir, 'photos'))).toContain(storageKey);
   });
 
   it('lists the inspection’s photos for any member, oldest first', async () => {
-    const made = await uploadPhoto(team.chief, inspection.byChief, await noiseImage('png', 300, 200), { side: 'coast' });
+    const made = await uploadPhoto(team.chief, inspection.byChief, await noiseImage('png', 300, 200), {
+      side: 'coast',
+    });
     const listed = await team.viewer.get(`/api/inspections/${inspection.byChief}/photos`);
     expect(listed.status).toBe(200);
     expect(listed.body).toEqual({
-      items: [{ id: made.body.id, side: 'coast', url: made.body.url, thumbnailUrl: made.body.thumbnailUrl, width: 300, height: 200, createdAt: made.body.createdAt }],
+      items: [
+        {
+          id: made.body.id,
+          side: 'coast',
+          url: made.body.url,
+          thumbnailUrl: made.body.thumbnailUrl,
+          width: 300,
+          height: 200,
+          createdAt: made.body.createdAt,
+        },
+      ],
       nextCursor: null,
     });
     const byTech = (await team.owner.get(`/api/inspections/${inspection.byTech}/photos`)).body.items;
     expect(byTech.length).toBeGreaterThanOrEqual(4);
-    expect(byTech.map((p: { createdAt: string }) => p.createdAt)).toEqual(byTech.map((p: { createdAt: string }) => p.createdAt).sort());
+    expect(byTech.map((p: { createdAt: string }) => p.createdAt)).toEqual(
+      byTech.map((p: { createdAt: string }) => p.createdAt).sort(),
+    );
   });
 
   it('writes an audit row in the same change', async () => {
@@ -160,7 +213,12 @@ describe('uploading a photo', () => {
 describe('refusing an upload stores nothing', () => {
   it('refuses a text file named .jpg with 415 naming file', () =>
     expectNothingStored(async () => {
-      const made = await uploadPhoto(team.tech, inspection.byTech, Buffer.from('just some notes about the pinion depth\n'), { filename: 'pattern.jpg', type: 'image/jpeg' });
+      const made = await uploadPhoto(
+        team.tech,
+        inspection.byTech,
+        Buffer.from('just some notes about the pinion depth\n'),
+        { filename: 'pattern.jpg', type: 'image/jpeg' },
+      );
       expect(made.status).toBe(415);
       expect(made.body.error.fields).toHaveProperty('file');
     }));
@@ -186,7 +244,10 @@ describe('refusing an upload stores nothing', () => {
   it('refuses a streamed body without a length (up to 100 MB) once it passes the limit, with 413', () =>
     expectNothingStored(async () => {
       const boundary = 'lashline-boundary';
-      const head = Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="side"\r\n\r\ndrive\r\n--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="a.jpg"\r\nContent-Type: image/jpeg\r\n\r\n\xff\xd8\xff`, 'latin1');
+      const head = Buffer.from(
+        `--${boundary}\r\nContent-Disposition: form-data; name="side"\r\n\r\ndrive\r\n--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="a.jpg"\r\nContent-Type: image/jpeg\r\n\r\n\xff\xd8\xff`,
+        'latin1',
+      );
       let sent = 0;
       const chunk = Buffer.alloc(1024 * 1024, 0x20);
       const body = new ReadableStream<Uint8Array>({
@@ -197,7 +258,12 @@ describe('refusing an upload stores nothing', () => {
           else controller.close();
         },
       });
-      const init: RequestInit & { duplex: 'half' } = { method: 'POST', headers: { 'content-type': `multipart/form-data; boundary=${boundary}` }, body, duplex: 'half' };
+      const init: RequestInit & { duplex: 'half' } = {
+        method: 'POST',
+        headers: { 'content-type': `multipart/form-data; boundary=${boundary}` },
+        body,
+        duplex: 'half',
+      };
       const response = await team.tech.request(`/api/inspections/${inspection.byTech}/photos`, init);
       expect(response.status).toBe(413);
       expect(response.headers.get('connection')).toBe('close');
@@ -216,8 +282,13 @@ describe('refusing an upload stores nothing', () => {
   it('refuses a truncated PNG and a corrupt JPEG with 422', () =>
     expectNothingStored(async () => {
       const png = await noiseImage('png');
-      expect((await uploadPhoto(team.tech, inspection.byTech, png.subarray(0, Math.floor(png.length * 0.7)))).status).toBe(422);
-      const corrupt = Buffer.concat([Buffer.from([0xff, 0xd8, 0xff]), Buffer.from('this is not really a JPEG after its first three bytes')]);
+      expect(
+        (await uploadPhoto(team.tech, inspection.byTech, png.subarray(0, Math.floor(png.length * 0.7)))).status,
+      ).toBe(422);
+      const corrupt = Buffer.concat([
+        Buffer.from([0xff, 0xd8, 0xff]),
+        Buffer.from('this is not really a JPEG after its first three bytes'),
+      ]);
       expect((await uploadPhoto(team.tech, inspection.byTech, corrupt)).status).toBe(422);
     }));
 
@@ -267,7 +338,9 @@ describe('refusing an upload stores nothing', () => {
 
   it('removes the stored images again when the row cannot be written', async () => {
     // A trigger makes this one inspection's insert fail after both images are stored.
-    await sql(`CREATE TRIGGER fail_photo_insert BEFORE INSERT ON inspection_photos WHEN NEW.inspection_id = '${inspection.byChief}' BEGIN SELECT RAISE(ABORT, 'test: insert refused'); END`);
+    await sql(
+      `CREATE TRIGGER fail_photo_insert BEFORE INSERT ON inspection_photos WHEN NEW.inspection_id = '${inspection.byChief}' BEGIN SELECT RAISE(ABORT, 'test: insert refused'); END`,
+    );
     try {
       await expectNothingStored(async () => {
         expect((await uploadPhoto(team.chief, inspection.byChief, await noiseImage('jpeg'))).status).toBe(500);
@@ -293,7 +366,9 @@ describe('reading and deleting photos', () => {
 
   it('deletes the row and both images (204), then answers 404', async () => {
     const made = await uploadPhoto(team.tech, inspection.byTech, await noiseImage('jpeg', 64, 64));
-    const [[storageKey, thumbnailKey]] = (await sql(`SELECT storage_key, thumbnail_key FROM inspection_photos WHERE id = '${made.body.id}'`)) as [[string, string]];
+    const [[storageKey, thumbnailKey]] = (await sql(
+      `SELECT storage_key, thumbnail_key FROM inspection_photos WHERE id = '${made.body.id}'`,
+    )) as [[string, string]];
     const folder = join(server.dataDir, 'photos');
     expect(readdirSync(folder)).toEqual(expect.arrayContaining([storageKey, thumbnailKey]));
     const path = `/api/inspections/${inspection.byTech}/photos/${made.body.id}`;
@@ -304,8 +379,12 @@ describe('reading and deleting photos', () => {
     expect((await fetchPhoto(team.tech, made.body.thumbnailUrl)).response.status).toBe(404);
     expect(readdirSync(folder)).not.toContain(storageKey);
     expect(readdirSync(folder)).not.toContain(thumbnailKey);
-    expect((await team.tech.get(`/api/inspections/${inspection.byTech}/photos`)).body.items.map((p: { id: string }) => p.id)).not.toContain(made.body.id);
-    expect(await sql(`SELECT action FROM audit_events WHERE record_id = '${made.body.id}' ORDER BY created_at, rowid`)).toEqual([['create'], ['delete']]);
+    expect(
+      (await team.tech.get(`/api/inspections/${inspection.byTech}/photos`)).body.items.map((p: { id: string }) => p.id),
+    ).not.toContain(made.body.id);
+    expect(
+      await sql(`SELECT action FROM audit_events WHERE record_id = '${made.body.id}' ORDER BY created_at, rowid`),
+    ).toEqual([['create'], ['delete']]);
     expect((await team.tech.delete(path)).status).toBe(404);
   });
 

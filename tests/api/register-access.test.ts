@@ -42,23 +42,118 @@ let serial = 0;
 const fresh = () => `N-${++serial}`;
 
 // Each row: a request and the status each role must get. Writes use fresh names so rows are independent.
-const MATRIX: { name: string; method: string; path: () => string; body?: () => unknown; expect: Record<Role, number> }[] = [
-  { name: 'list cars', method: 'GET', path: () => '/api/cars', expect: { owner: 200, chief: 200, tech: 200, viewer: 200 } },
-  { name: 'add a car', method: 'POST', path: () => '/api/cars', body: () => ({ name: fresh() }), expect: { owner: 201, chief: 201, tech: 403, viewer: 403 } },
-  { name: 'edit a car', method: 'PATCH', path: () => `/api/cars/${ids.car}`, body: () => ({ notes: fresh() }), expect: { owner: 200, chief: 200, tech: 403, viewer: 403 } },
-  { name: 'list assemblies', method: 'GET', path: () => '/api/assemblies', expect: { owner: 200, chief: 200, tech: 200, viewer: 200 } },
-  { name: 'add an assembly', method: 'POST', path: () => '/api/assemblies', body: () => ({ serial: fresh(), name: 'x' }), expect: { owner: 201, chief: 201, tech: 403, viewer: 403 } },
-  { name: 'list parts', method: 'GET', path: () => '/api/parts', expect: { owner: 200, chief: 200, tech: 200, viewer: 200 } },
-  { name: 'read a gear set', method: 'GET', path: () => `/api/gear-sets/${ids.part}`, expect: { owner: 200, chief: 200, tech: 200, viewer: 200 } },
-  { name: 'add a part', method: 'POST', path: () => '/api/parts', body: () => ({ kind: 'bearing', serial: fresh() }), expect: { owner: 201, chief: 201, tech: 403, viewer: 403 } },
-  { name: 'edit a part', method: 'PATCH', path: () => `/api/parts/${ids.part}`, body: () => ({ notes: fresh() }), expect: { owner: 200, chief: 200, tech: 403, viewer: 403 } },
-  { name: 'log a run', method: 'POST', path: () => '/api/runs', body: () => ({ carId: ids.car, at: '2026-06-02T10:00:00Z' }), expect: { owner: 201, chief: 201, tech: 201, viewer: 403 } },
-  { name: 'list runs', method: 'GET', path: () => '/api/runs', expect: { owner: 200, chief: 200, tech: 200, viewer: 200 } },
-  { name: 'edit a run', method: 'PATCH', path: () => `/api/runs/${ids.run}`, body: () => ({ notes: fresh() }), expect: { owner: 200, chief: 200, tech: 403, viewer: 403 } },
-  { name: 'list installations', method: 'GET', path: () => '/api/installations', expect: { owner: 200, chief: 200, tech: 200, viewer: 200 } },
-  { name: 'import runs', method: 'POST', path: () => '/api/runs/import', body: () => ({ records: [{ car: 'Access car', at: '2026-06-03T10:00:00Z' }], dryRun: true }), expect: { owner: 200, chief: 200, tech: 200, viewer: 403 } },
-  { name: 'read team settings', method: 'GET', path: () => '/api/team/settings', expect: { owner: 200, chief: 200, tech: 200, viewer: 200 } },
-  { name: 'change team settings', method: 'PATCH', path: () => '/api/team/settings', body: () => ({ serviceIntervalRuns: 9 }), expect: { owner: 200, chief: 403, tech: 403, viewer: 403 } },
+const MATRIX: {
+  name: string;
+  method: string;
+  path: () => string;
+  body?: () => unknown;
+  expect: Record<Role, number>;
+}[] = [
+  {
+    name: 'list cars',
+    method: 'GET',
+    path: () => '/api/cars',
+    expect: { owner: 200, chief: 200, tech: 200, viewer: 200 },
+  },
+  {
+    name: 'add a car',
+    method: 'POST',
+    path: () => '/api/cars',
+    body: () => ({ name: fresh() }),
+    expect: { owner: 201, chief: 201, tech: 403, viewer: 403 },
+  },
+  {
+    name: 'edit a car',
+    method: 'PATCH',
+    path: () => `/api/cars/${ids.car}`,
+    body: () => ({ notes: fresh() }),
+    expect: { owner: 200, chief: 200, tech: 403, viewer: 403 },
+  },
+  {
+    name: 'list assemblies',
+    method: 'GET',
+    path: () => '/api/assemblies',
+    expect: { owner: 200, chief: 200, tech: 200, viewer: 200 },
+  },
+  {
+    name: 'add an assembly',
+    method: 'POST',
+    path: () => '/api/assemblies',
+    body: () => ({ serial: fresh(), name: 'x' }),
+    expect: { owner: 201, chief: 201, tech: 403, viewer: 403 },
+  },
+  {
+    name: 'list parts',
+    method: 'GET',
+    path: () => '/api/parts',
+    expect: { owner: 200, chief: 200, tech: 200, viewer: 200 },
+  },
+  {
+    name: 'read a gear set',
+    method: 'GET',
+    path: () => `/api/gear-sets/${ids.part}`,
+    expect: { owner: 200, chief: 200, tech: 200, viewer: 200 },
+  },
+  {
+    name: 'add a part',
+    method: 'POST',
+    path: () => '/api/parts',
+    body: () => ({ kind: 'bearing', serial: fresh() }),
+    expect: { owner: 201, chief: 201, tech: 403, viewer: 403 },
+  },
+  {
+    name: 'edit a part',
+    method: 'PATCH',
+    path: () => `/api/parts/${ids.part}`,
+    body: () => ({ notes: fresh() }),
+    expect: { owner: 200, chief: 200, tech: 403, viewer: 403 },
+  },
+  {
+    name: 'log a run',
+    method: 'POST',
+    path: () => '/api/runs',
+    body: () => ({ carId: ids.car, at: '2026-06-02T10:00:00Z' }),
+    expect: { owner: 201, chief: 201, tech: 201, viewer: 403 },
+  },
+  {
+    name: 'list runs',
+    method: 'GET',
+    path: () => '/api/runs',
+    expect: { owner: 200, chief: 200, tech: 200, viewer: 200 },
+  },
+  {
+    name: 'edit a run',
+    method: 'PATCH',
+    path: () => `/api/runs/${ids.run}`,
+    body: () => ({ notes: fresh() }),
+    expect: { owner: 200, chief: 200, tech: 403, viewer: 403 },
+  },
+  {
+    name: 'list installations',
+    method: 'GET',
+    path: () => '/api/installations',
+    expect: { owner: 200, chief: 200, tech: 200, viewer: 200 },
+  },
+  {
+    name: 'import runs',
+    method: 'POST',
+    path: () => '/api/runs/import',
+    body: () => ({ records: [{ car: 'Access car', at: '2026-06-03T10:00:00Z' }], dryRun: true }),
+    expect: { owner: 200, chief: 200, tech: 200, viewer: 403 },
+  },
+  {
+    name: 'read team settings',
+    method: 'GET',
+    path: () => '/api/team/settings',
+    expect: { owner: 200, chief: 200, tech: 200, viewer: 200 },
+  },
+  {
+    name: 'change team settings',
+    method: 'PATCH',
+    path: () => '/api/team/settings',
+    body: () => ({ serviceIntervalRuns: 9 }),
+    expect: { owner: 200, chief: 403, tech: 403, viewer: 403 },
+  },
 ];
 
 describe('the register routes by role', () => {
@@ -73,7 +168,16 @@ describe('the register routes by role', () => {
 
   it('lets a technician install and remove but not delete', async () => {
     const bearing = (await team.chief.post('/api/parts', { kind: 'bearing', serial: fresh() })).body.id;
-    expect((await team.tech.post('/api/installations', { action: 'install', partId: bearing, assemblyId: ids.assembly, at: '2026-06-01T09:00:00Z' })).status).toBe(201);
+    expect(
+      (
+        await team.tech.post('/api/installations', {
+          action: 'install',
+          partId: bearing,
+          assemblyId: ids.assembly,
+          at: '2026-06-01T09:00:00Z',
+        })
+      ).status,
+    ).toBe(201);
     expect((await team.viewer.post('/api/installations', { action: 'remove', partId: bearing })).status).toBe(403);
     expect((await team.tech.post('/api/installations', { action: 'remove', partId: bearing })).status).toBe(201);
     expect((await team.tech.delete(`/api/parts/${bearing}`)).status).toBe(403);
@@ -109,7 +213,11 @@ describe("another team's records", () => {
     const run = await team.tech.post('/api/runs', { carId: other.carId, at: '2026-06-01T10:00:00Z' });
     expect(run.status).toBe(404);
     expect(run.body.error.fields.carId).toBeDefined();
-    const install = await team.tech.post('/api/installations', { action: 'install', partId: other.partId, assemblyId: ids.assembly });
+    const install = await team.tech.post('/api/installations', {
+      action: 'install',
+      partId: other.partId,
+      assemblyId: ids.assembly,
+    });
     expect(install.status).toBe(404);
     expect(install.body.error.fields.partId).toBeDefined();
   });
@@ -127,15 +235,46 @@ describe('bad input on the register routes', () => {
     { path: '/api/gear-sets', body: () => ({ serial: 'Q', ringTeeth: 9, pinionTeeth: 10 }), field: 'ringTeeth' },
     { path: '/api/gear-sets', body: () => ({ serial: 'Q', ringTeeth: 41 }), field: 'pinionTeeth' },
     { path: '/api/runs', body: () => ({ carId: ids.car, at: 'yesterday' }), field: 'at' },
-    { path: '/api/runs', body: () => ({ carId: ids.car, at: new Date(Date.now() + 3 * 86_400_000).toISOString() }), field: 'at' },
-    { path: '/api/runs', body: () => ({ carId: ids.car, at: '2026-06-01T10:00:00Z', elapsedSeconds: -6.1 }), field: 'elapsedSeconds' },
-    { path: '/api/runs', body: () => ({ carId: ids.car, at: '2026-06-01T10:00:00Z', speedMph: '250' }), field: 'speedMph' },
-    { path: '/api/runs', body: () => ({ carId: 'no-such-car', at: '2026-06-01T10:00:00Z' }), field: 'carId', status: 404 },
+    {
+      path: '/api/runs',
+      body: () => ({ carId: ids.car, at: new Date(Date.now() + 3 * 86_400_000).toISOString() }),
+      field: 'at',
+    },
+    {
+      path: '/api/runs',
+      body: () => ({ carId: ids.car, at: '2026-06-01T10:00:00Z', elapsedSeconds: -6.1 }),
+      field: 'elapsedSeconds',
+    },
+    {
+      path: '/api/runs',
+      body: () => ({ carId: ids.car, at: '2026-06-01T10:00:00Z', speedMph: '250' }),
+      field: 'speedMph',
+    },
+    {
+      path: '/api/runs',
+      body: () => ({ carId: 'no-such-car', at: '2026-06-01T10:00:00Z' }),
+      field: 'carId',
+      status: 404,
+    },
     { path: '/api/runs', body: () => ({ at: '2026-06-01T10:00:00Z' }), field: 'carId' },
-    { path: '/api/installations', body: () => ({ action: 'bolt-on', partId: ids.part, assemblyId: ids.assembly }), field: 'action' },
-    { path: '/api/installations', body: () => ({ action: 'install', partId: 'nope', assemblyId: ids.assembly }), field: 'partId', status: 404 },
+    {
+      path: '/api/installations',
+      body: () => ({ action: 'bolt-on', partId: ids.part, assemblyId: ids.assembly }),
+      field: 'action',
+    },
+    {
+      path: '/api/installations',
+      body: () => ({ action: 'install', partId: 'nope', assemblyId: ids.assembly }),
+      field: 'partId',
+      status: 404,
+    },
     { path: '/api/installations', body: () => ({ action: 'install', partId: ids.part }), field: 'assemblyId' },
-    { path: '/api/installations', body: () => ({ action: 'install', partId: ids.part, assemblyId: 'nope' }), field: 'assemblyId', status: 404 },
+    {
+      path: '/api/installations',
+      body: () => ({ action: 'install', partId: ids.part, assemblyId: 'nope' }),
+      field: 'assemblyId',
+      status: 404,
+    },
     { path: `/api/runs/${'x'}`, method: 'PATCH', body: () => ({ elapsedSeconds: 'fast' }), field: 'elapsedSeconds' },
     { path: '/api/team/settings', method: 'PATCH', body: () => ({ nearShare: 2 }), field: 'nearShare' },
     { path: '/api/runs?limit=0', method: 'GET', body: () => undefined, field: 'limit' },
@@ -145,7 +284,8 @@ describe('bad input on the register routes', () => {
   async function rowCounts(): Promise<number[]> {
     const db = createClient({ url: server.databaseUrl });
     const counts: number[] = [];
-    for (const table of ['cars', 'assemblies', 'parts', 'installation_events', 'runs']) counts.push(Number((await db.execute(`SELECT count(*) AS n FROM ${table}`)).rows[0]?.n));
+    for (const table of ['cars', 'assemblies', 'parts', 'installation_events', 'runs'])
+      counts.push(Number((await db.execute(`SELECT count(*) AS n FROM ${table}`)).rows[0]?.n));
     db.close();
     return counts;
   }

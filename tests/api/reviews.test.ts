@@ -27,20 +27,26 @@ afterAll(async () => {
 
 let serial = 0;
 async function spareSet(): Promise<string> {
-  return (await team.chief.post('/api/gear-sets', { serial: `RV-S${++serial}`, ringTeeth: 41, pinionTeeth: 10 })).body.id;
+  return (await team.chief.post('/api/gear-sets', { serial: `RV-S${++serial}`, ringTeeth: 41, pinionTeeth: 10 })).body
+    .id;
 }
 
 describe('reviews and decisions', () => {
   it('opens a review with a snapshot, puts the set under review and tells the team', async () => {
     const setId = await spareSet();
-    await submitInspection(team.tech, draftBody(setId, { unit: 'mm', resolution: '0.01mm', readings: [0.2, 0.18, 0.16, 0.18], runsAtInspection: 0 }));
+    await submitInspection(
+      team.tech,
+      draftBody(setId, { unit: 'mm', resolution: '0.01mm', readings: [0.2, 0.18, 0.16, 0.18], runsAtInspection: 0 }),
+    );
     const opened = await team.tech.post('/api/reviews', { gearSetId: setId });
     expect(opened.status).toBe(201);
     expect((await team.viewer.get(`/api/parts/${setId}`)).body.status).toBe('under-review');
     const review = (await team.chief.get(`/api/reviews/${opened.body.id}`)).body;
     expect(review.snapshot.analysis.inspectionCount).toBe(1);
     expect(review.snapshot.gearSet.id).toBe(setId);
-    const mail = await smtp.waitFor((m) => m.subject.includes('opened a review') && m.text.includes(`/reviews/${opened.body.id}`));
+    const mail = await smtp.waitFor(
+      (m) => m.subject.includes('opened a review') && m.text.includes(`/reviews/${opened.body.id}`),
+    );
     expect(mail.text).toContain('Stop these notices (no sign-in needed)');
     expect((await team.tech.post('/api/reviews', { gearSetId: setId })).status).toBe(409);
   });
@@ -50,7 +56,14 @@ describe('reviews and decisions', () => {
     await submitInspection(team.tech, draftBody(setId, { runsAtInspection: 0 }));
     const { id } = (await team.tech.post('/api/reviews', { gearSetId: setId })).body;
     const before = (await team.chief.get(`/api/reviews/${id}`)).body.snapshot;
-    await submitInspection(team.tech, draftBody(setId, { runsAtInspection: 5, inspectedAt: '2026-07-01T12:00:00Z', readings: [0.009, 0.009, 0.009, 0.009] }));
+    await submitInspection(
+      team.tech,
+      draftBody(setId, {
+        runsAtInspection: 5,
+        inspectedAt: '2026-07-01T12:00:00Z',
+        readings: [0.009, 0.009, 0.009, 0.009],
+      }),
+    );
     const after = (await team.chief.get(`/api/reviews/${id}`)).body.snapshot;
     expect(after).toEqual(before);
     expect((await team.chief.get(`/api/gear-sets/${setId}/analysis`)).body.inspectionCount).toBe(2);
@@ -61,7 +74,9 @@ describe('reviews and decisions', () => {
     const { id } = (await team.tech.post('/api/reviews', { gearSetId: setId })).body;
     const account = (await team.viewer.get('/api/account')).body;
     const handle = account.email.split('@')[0];
-    const comment = await team.tech.post(`/api/reviews/${id}/comments`, { body: `Drive side looks heavy at the heel.\n@${handle} can you pull the photos?` });
+    const comment = await team.tech.post(`/api/reviews/${id}/comments`, {
+      body: `Drive side looks heavy at the heel.\n@${handle} can you pull the photos?`,
+    });
     expect(comment.status).toBe(201);
     const mail = await smtp.waitFor((m) => m.to.includes(account.email) && m.subject.includes('mentioned you'));
     expect(mail.text).toContain('> Drive side looks heavy at the heel.');
@@ -73,9 +88,18 @@ describe('reviews and decisions', () => {
 
   it('keeps a set in service with a re-inspection after N runs, and reminds the team when the run log reaches it', async () => {
     const setId = await spareSet();
-    await team.chief.post('/api/installations', { action: 'install', partId: setId, assemblyId, at: '2026-02-01T00:00:00Z' });
+    await team.chief.post('/api/installations', {
+      action: 'install',
+      partId: setId,
+      assemblyId,
+      at: '2026-02-01T00:00:00Z',
+    });
     const { id } = (await team.tech.post('/api/reviews', { gearSetId: setId })).body;
-    const decided = await team.chief.post(`/api/reviews/${id}/decision`, { decision: 'keep', reason: 'Within the band', reinspectAfterRuns: 2 });
+    const decided = await team.chief.post(`/api/reviews/${id}/decision`, {
+      decision: 'keep',
+      reason: 'Within the band',
+      reinspectAfterRuns: 2,
+    });
     expect(decided.status).toBe(200);
     expect(decided.body).toMatchObject({ status: 'decided', decision: 'keep', reinspectAtRuns: 2 });
     expect((await team.viewer.get(`/api/parts/${setId}`)).body.status).toBe('in-service');
@@ -87,16 +111,29 @@ describe('reviews and decisions', () => {
     await team.tech.post('/api/runs', { carId, at: '2026-02-02T12:00:00Z' });
     await new Promise((r) => setTimeout(r, 2500));
     const ownerEmail = (await team.owner.get('/api/account')).body.email;
-    expect(smtp.received.filter((m) => m.subject.includes('Re-inspection due') && m.to.includes(ownerEmail))).toHaveLength(1);
-    expect((await team.chief.post(`/api/reviews/${id}/decision`, { decision: 'retire', reason: 'Other' })).status).toBe(409);
+    expect(
+      smtp.received.filter((m) => m.subject.includes('Re-inspection due') && m.to.includes(ownerEmail)),
+    ).toHaveLength(1);
+    expect((await team.chief.post(`/api/reviews/${id}/decision`, { decision: 'retire', reason: 'Other' })).status).toBe(
+      409,
+    );
     await team.chief.post('/api/installations', { action: 'remove', partId: setId, at: '2026-02-03T00:00:00Z' });
   });
 
   it('retires a set: status retired, out of its assembly, history kept', async () => {
     const setId = await spareSet();
-    await team.chief.post('/api/installations', { action: 'install', partId: setId, assemblyId, at: '2026-03-01T00:00:00Z' });
+    await team.chief.post('/api/installations', {
+      action: 'install',
+      partId: setId,
+      assemblyId,
+      at: '2026-03-01T00:00:00Z',
+    });
     const { id } = (await team.tech.post('/api/reviews', { gearSetId: setId })).body;
-    const decided = await team.chief.post(`/api/reviews/${id}/decision`, { decision: 'retire', reason: 'Spalling or pitting on the teeth', notes: 'Three teeth at the heel.' });
+    const decided = await team.chief.post(`/api/reviews/${id}/decision`, {
+      decision: 'retire',
+      reason: 'Spalling or pitting on the teeth',
+      notes: 'Three teeth at the heel.',
+    });
     expect(decided.status).toBe(200);
     const set = (await team.viewer.get(`/api/parts/${setId}`)).body;
     expect(set.status).toBe('retired');
@@ -108,13 +145,19 @@ describe('reviews and decisions', () => {
     expect(row).toMatchObject({ reason: 'Spalling or pitting on the teeth', early: true, lifeLimitRuns: 50 });
     const csv = await team.viewer.request('/api/reports/retirements?format=csv');
     expect(csv.headers.get('content-type')).toContain('text/csv');
-    expect(await csv.text()).toMatch(/^gear_set,retired_at,runs_at_retirement,life_limit_runs,share_of_life,early,reason,notes\n/);
+    expect(await csv.text()).toMatch(
+      /^gear_set,retired_at,runs_at_retirement,life_limit_runs,share_of_life,early,reason,notes\n/,
+    );
   });
 
   it('re-shims: the set stays where it is and a re-inspection is set', async () => {
     const setId = await spareSet();
     const { id } = (await team.tech.post('/api/reviews', { gearSetId: setId })).body;
-    const decided = await team.owner.post(`/api/reviews/${id}/decision`, { decision: 'reshim', reason: 'Spread over the limit', reinspectAfterRuns: 4 });
+    const decided = await team.owner.post(`/api/reviews/${id}/decision`, {
+      decision: 'reshim',
+      reason: 'Spread over the limit',
+      reinspectAfterRuns: 4,
+    });
     expect(decided.status).toBe(200);
     expect((await team.viewer.get(`/api/parts/${setId}`)).body.status).toBe('spare');
   });
@@ -133,7 +176,9 @@ describe('reviews and decisions', () => {
       expect(answer.status, JSON.stringify(body)).toBe(400);
       expect(Object.keys(answer.body.error.fields)).toContain(field);
     }
-    expect((await team.chief.post(`/api/reviews/${id}/comments`, { body: '' })).body.error.fields).toHaveProperty('body');
+    expect((await team.chief.post(`/api/reviews/${id}/comments`, { body: '' })).body.error.fields).toHaveProperty(
+      'body',
+    );
     expect((await team.viewer.get(`/api/parts/${setId}`)).body.status).toBe('under-review');
     const stranger = (await signedInClient(server.baseUrl, { team: 'Outsiders' })).client;
     expect((await stranger.get(`/api/reviews/${id}`)).status).toBe(404);
@@ -151,7 +196,11 @@ describe('reviews and decisions', () => {
     const anonymous = new ApiClient(server.baseUrl);
     const page = await anonymous.request(link.replace(server.baseUrl, ''));
     expect(page.status).toBe(200);
-    const confirm = await anonymous.request(link.replace(server.baseUrl, ''), { method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: '' });
+    const confirm = await anonymous.request(link.replace(server.baseUrl, ''), {
+      method: 'POST',
+      headers: { 'content-type': 'application/x-www-form-urlencoded' },
+      body: '',
+    });
     expect(await confirm.text()).toContain('Done: no more');
     expect((await team.viewer.get('/api/notifications/preferences')).body.muted).toEqual(['review-opened']);
     const next = await spareSet();
@@ -166,17 +215,36 @@ describe('reviews and decisions', () => {
 
 describe('notices after runs and the outbox', () => {
   it('queues one life-reached notice when a run takes a set over its limit, not one per later run', async () => {
-    const setId = (await team.chief.post('/api/gear-sets', { serial: 'RV-LIFE', ringTeeth: 41, pinionTeeth: 10, lifeLimitRuns: 2 })).body.id;
+    const setId = (
+      await team.chief.post('/api/gear-sets', { serial: 'RV-LIFE', ringTeeth: 41, pinionTeeth: 10, lifeLimitRuns: 2 })
+    ).body.id;
     const car = (await team.chief.post('/api/cars', { name: 'Life car' })).body.id;
     const rear = (await team.chief.post('/api/assemblies', { serial: 'RV-LIFE-RE', name: 'Life rear end' })).body.id;
-    await team.chief.post('/api/installations', { action: 'install', assemblyId: rear, carId: car, at: '2026-04-01T00:00:00Z' });
-    await team.chief.post('/api/installations', { action: 'install', partId: setId, assemblyId: rear, at: '2026-04-01T00:00:00Z' });
-    for (const hour of [10, 11, 12, 13]) await team.tech.post('/api/runs', { carId: car, at: `2026-04-02T${hour}:00:00Z` });
+    await team.chief.post('/api/installations', {
+      action: 'install',
+      assemblyId: rear,
+      carId: car,
+      at: '2026-04-01T00:00:00Z',
+    });
+    await team.chief.post('/api/installations', {
+      action: 'install',
+      partId: setId,
+      assemblyId: rear,
+      at: '2026-04-01T00:00:00Z',
+    });
+    for (const hour of [10, 11, 12, 13])
+      await team.tech.post('/api/runs', { carId: car, at: `2026-04-02T${hour}:00:00Z` });
     const ownerEmail = (await team.owner.get('/api/account')).body.email;
     await smtp.waitFor((m) => m.to.includes(ownerEmail) && m.subject.includes('RV-LIFE has reached its life limit'));
     await new Promise((r) => setTimeout(r, 2500));
-    expect(smtp.received.filter((m) => m.to.includes(ownerEmail) && m.subject.includes('RV-LIFE has reached its life limit'))).toHaveLength(1);
-    expect(smtp.received.filter((m) => m.to.includes(ownerEmail) && m.subject.includes('RV-LIFE is near its life limit'))).toHaveLength(1);
+    expect(
+      smtp.received.filter(
+        (m) => m.to.includes(ownerEmail) && m.subject.includes('RV-LIFE has reached its life limit'),
+      ),
+    ).toHaveLength(1);
+    expect(
+      smtp.received.filter((m) => m.to.includes(ownerEmail) && m.subject.includes('RV-LIFE is near its life limit')),
+    ).toHaveLength(1);
   });
 
   it('holds a message while the mail server is down and delivers it exactly once when it is back', async () => {
@@ -185,15 +253,21 @@ describe('notices after runs and the outbox', () => {
     await team.tech.post('/api/reviews', { gearSetId: setId });
     const subject = `RV-S${serial}`;
     await new Promise((r) => setTimeout(r, 3000));
-    const outbox = (await team.owner.get('/api/outbox')).body.items.filter((m: { subject: string }) => m.subject.includes(subject));
+    const outbox = (await team.owner.get('/api/outbox')).body.items.filter((m: { subject: string }) =>
+      m.subject.includes(subject),
+    );
     expect(outbox.length).toBeGreaterThan(0);
-    expect(outbox.every((m: { status: string; attempts: number }) => m.status === 'queued' && m.attempts >= 1)).toBe(true);
+    expect(outbox.every((m: { status: string; attempts: number }) => m.status === 'queued' && m.attempts >= 1)).toBe(
+      true,
+    );
     await smtp.start();
     const ownerEmail = (await team.owner.get('/api/account')).body.email;
     await smtp.waitFor((m) => m.to.includes(ownerEmail) && m.subject.includes(subject), 30_000);
     await new Promise((r) => setTimeout(r, 3000));
     expect(smtp.received.filter((m) => m.to.includes(ownerEmail) && m.subject.includes(subject))).toHaveLength(1);
-    const after = (await team.owner.get('/api/outbox')).body.items.filter((m: { subject: string }) => m.subject.includes(subject));
+    const after = (await team.owner.get('/api/outbox')).body.items.filter((m: { subject: string }) =>
+      m.subject.includes(subject),
+    );
     expect(after.every((m: { status: string }) => m.status === 'sent')).toBe(true);
     expect((await team.chief.get('/api/outbox')).status).toBe(403);
   }, 60_000);
@@ -211,11 +285,16 @@ describe('records and exports', () => {
 
   it('exports an inspection as CSV, one row per reading with units', async () => {
     const setId = await spareSet();
-    const id = await submitInspection(team.tech, draftBody(setId, { readings: [0.008, 0.007, 0.006, 0.007, 0.008, 0.007] }));
+    const id = await submitInspection(
+      team.tech,
+      draftBody(setId, { readings: [0.008, 0.007, 0.006, 0.007, 0.008, 0.007] }),
+    );
     const response = await team.viewer.request(`/api/exports/inspections/${id}.csv`);
     expect(response.headers.get('content-disposition')).toContain('attachment');
     const lines = (await response.text()).trim().split('\n');
-    expect(lines[0]).toBe('inspection_id,gear_set,inspected_at,runs_at_inspection,status,position,angle_deg,backlash,unit,backlash_mm,resolution');
+    expect(lines[0]).toBe(
+      'inspection_id,gear_set,inspected_at,runs_at_inspection,status,position,angle_deg,backlash,unit,backlash_mm,resolution',
+    );
     expect(lines).toHaveLength(7);
     // 0.008 in = 0.2032 mm (NIST SP 811 (2008) App. B: 1 in = 25.4 mm).
     expect(lines[1]).toContain(',1,0,0.008,in,0.2032,0.001 in');
@@ -224,11 +303,20 @@ describe('records and exports', () => {
 
   it("exports a gear set's whole history as CSV", async () => {
     const setId = await spareSet();
-    await team.chief.post('/api/installations', { action: 'install', partId: setId, assemblyId, at: '2026-05-01T00:00:00Z' });
+    await team.chief.post('/api/installations', {
+      action: 'install',
+      partId: setId,
+      assemblyId,
+      at: '2026-05-01T00:00:00Z',
+    });
     await submitInspection(team.tech, draftBody(setId, { inspectedAt: '2026-05-02T00:00:00Z' }));
     await team.chief.post('/api/installations', { action: 'remove', partId: setId, at: '2026-05-03T00:00:00Z' });
     const csv = await (await team.viewer.request(`/api/exports/gear-sets/${setId}.csv`)).text();
-    const records = csv.trim().split('\n').slice(1).map((line) => line.split(',')[1]);
+    const records = csv
+      .trim()
+      .split('\n')
+      .slice(1)
+      .map((line) => line.split(',')[1]);
     expect(records).toEqual(['installed', 'inspection', 'removed']);
   });
 });
@@ -245,9 +333,16 @@ describe('the team archive', () => {
       const imported = await importer.post('/api/imports/team', archive);
       expect(imported.status, JSON.stringify(imported.body)).toBe(201);
       const summary = async (client: ApiClient) => {
-        const parts = (await client.get('/api/parts?limit=500')).body.items.map((p: { id: string; serial: string; status: string; totalRuns: number; runsSinceInstall: number }) => [p.serial, p.status, p.totalRuns, p.runsSinceInstall]);
+        const parts = (await client.get('/api/parts?limit=500')).body.items.map(
+          (p: { id: string; serial: string; status: string; totalRuns: number; runsSinceInstall: number }) => [
+            p.serial,
+            p.status,
+            p.totalRuns,
+            p.runsSinceInstall,
+          ],
+        );
         let runs = 0;
-        for (let cursor = ''; ; ) {
+        for (let cursor = ''; ;) {
           const page = (await client.get(`/api/runs?limit=500${cursor ? `&cursor=${cursor}` : ''}`)).body;
           runs += page.items.length;
           if (!page.nextCursor) break;

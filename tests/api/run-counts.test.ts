@@ -73,7 +73,10 @@ describe('run counts derived from the installation history and the run log', () 
     expect(await counts(tech, spindle)).toEqual([3, 3]);
 
     const audit = createClient({ url: server.databaseUrl });
-    const rows = await audit.execute({ sql: "SELECT action FROM audit_events WHERE record_type = 'run' AND record_id IN (?, ?) ORDER BY rowid", args: [run1, run5] });
+    const rows = await audit.execute({
+      sql: "SELECT action FROM audit_events WHERE record_type = 'run' AND record_id IN (?, ?) ORDER BY rowid",
+      args: [run1, run5],
+    });
     audit.close();
     expect(rows.rows.map((r) => r.action)).toEqual(['create', 'create', 'delete', 'update']);
   });
@@ -84,7 +87,12 @@ describe('run counts derived from the installation history and the run log', () 
     const two = await created(chief, '/api/assemblies', { serial: 'P-2', name: 'Place two' });
     const axle = await created(chief, '/api/parts', { kind: 'axle', serial: 'AX-9' });
     await created(tech, '/api/installations', { action: 'install', partId: axle, assemblyId: one, at: at(8) });
-    const again = await tech.post('/api/installations', { action: 'install', partId: axle, assemblyId: two, at: at(9) });
+    const again = await tech.post('/api/installations', {
+      action: 'install',
+      partId: axle,
+      assemblyId: two,
+      at: at(9),
+    });
     expect(again.status).toBe(409);
     expect(again.body.error.message).toContain('assembly P-1 (Place one)');
     expect((await tech.get(`/api/parts/${axle}`)).body.status).toBe('in-service');
@@ -98,9 +106,14 @@ describe('run counts derived from the installation history and the run log', () 
     const first = await created(chief, '/api/gear-sets', { serial: 'G-10', ringTeeth: 40, pinionTeeth: 9 });
     const second = await created(chief, '/api/gear-sets', { serial: 'G-11', ringTeeth: 40, pinionTeeth: 9 });
     await created(tech, '/api/installations', { action: 'install', partId: first, assemblyId: holder, at: at(1) });
-    expect((await tech.post('/api/installations', { action: 'install', partId: second, assemblyId: holder, at: at(2) })).status).toBe(409);
+    expect(
+      (await tech.post('/api/installations', { action: 'install', partId: second, assemblyId: holder, at: at(2) }))
+        .status,
+    ).toBe(409);
     await created(tech, '/api/installations', { action: 'install', assemblyId: holder, carId: car, at: at(1) });
-    expect((await tech.post('/api/installations', { action: 'install', assemblyId: other, carId: car, at: at(2) })).status).toBe(409);
+    expect(
+      (await tech.post('/api/installations', { action: 'install', assemblyId: other, carId: car, at: at(2) })).status,
+    ).toBe(409);
   });
 
   it('stores a run sent twice with the same Idempotency-Key once, and charges it once', async () => {
@@ -110,7 +123,12 @@ describe('run counts derived from the installation history and the run log', () 
     const gear = await created(chief, '/api/gear-sets', { serial: 'G-RETRY', ringTeeth: 41, pinionTeeth: 10 });
     await created(tech, '/api/installations', { action: 'install', assemblyId: rear, carId: car, at: at(1) });
     await created(tech, '/api/installations', { action: 'install', partId: gear, assemblyId: rear, at: at(1) });
-    const send = () => tech.request('/api/runs', { method: 'POST', headers: { 'content-type': 'application/json', 'idempotency-key': 'run-retry-1' }, body: JSON.stringify({ carId: car, at: at(2) }) });
+    const send = () =>
+      tech.request('/api/runs', {
+        method: 'POST',
+        headers: { 'content-type': 'application/json', 'idempotency-key': 'run-retry-1' },
+        body: JSON.stringify({ carId: car, at: at(2) }),
+      });
     const first = await send();
     const again = await send();
     expect(first.status).toBe(201);
@@ -122,7 +140,14 @@ describe('run counts derived from the installation history and the run log', () 
   it('answers the ratio computed from the tooth counts', async () => {
     const id = await created(team.chief, '/api/gear-sets', { serial: 'G-RATIO', ringTeeth: 41, pinionTeeth: 10 });
     const gear = (await team.viewer.get(`/api/gear-sets/${id}`)).body;
-    expect(gear).toMatchObject({ kind: 'gear-set', ringTeeth: 41, pinionTeeth: 10, ratio: 4.1, ratioLabel: '4.10:1', lifeLimitRuns: 50 });
+    expect(gear).toMatchObject({
+      kind: 'gear-set',
+      ringTeeth: 41,
+      pinionTeeth: 10,
+      ratio: 4.1,
+      ratioLabel: '4.10:1',
+      lifeLimitRuns: 50,
+    });
   });
 
   it('lists gear sets as parts filtered to the kind, paged with a cursor', async () => {

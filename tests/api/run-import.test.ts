@@ -14,8 +14,18 @@ beforeAll(async () => {
   await chief.post('/api/cars', { name: 'Second Wind' });
   const assembly = (await chief.post('/api/assemblies', { serial: 'IM-1', name: 'Import rear end' })).body.id;
   gearId = (await chief.post('/api/gear-sets', { serial: 'IM-G', ringTeeth: 40, pinionTeeth: 9 })).body.id;
-  await chief.post('/api/installations', { action: 'install', assemblyId: assembly, carId, at: '2026-01-01T00:00:00Z' });
-  await chief.post('/api/installations', { action: 'install', partId: gearId, assemblyId: assembly, at: '2026-01-01T00:00:00Z' });
+  await chief.post('/api/installations', {
+    action: 'install',
+    assemblyId: assembly,
+    carId,
+    at: '2026-01-01T00:00:00Z',
+  });
+  await chief.post('/api/installations', {
+    action: 'install',
+    partId: gearId,
+    assemblyId: assembly,
+    at: '2026-01-01T00:00:00Z',
+  });
 });
 afterAll(() => server?.stop());
 
@@ -23,7 +33,9 @@ async function countRuns(): Promise<number> {
   let total = 0;
   let cursor: string | null = '';
   while (cursor !== null) {
-    const page: { body: { items: unknown[]; nextCursor: string | null } } = await chief.get(`/api/runs?limit=500${cursor ? `&cursor=${cursor}` : ''}`);
+    const page: { body: { items: unknown[]; nextCursor: string | null } } = await chief.get(
+      `/api/runs?limit=500${cursor ? `&cursor=${cursor}` : ''}`,
+    );
     total += page.body.items.length;
     cursor = page.body.nextCursor;
   }
@@ -31,7 +43,11 @@ async function countRuns(): Promise<number> {
 }
 
 function postCsv(csv: string, dryRun = false) {
-  return chief.request(`/api/runs/import${dryRun ? '?dryRun=1' : ''}`, { method: 'POST', headers: { 'content-type': 'text/csv' }, body: csv });
+  return chief.request(`/api/runs/import${dryRun ? '?dryRun=1' : ''}`, {
+    method: 'POST',
+    headers: { 'content-type': 'text/csv' },
+    body: csv,
+  });
 }
 
 describe('importing runs from CSV', () => {

@@ -18,7 +18,10 @@ afterAll(async () => {
 });
 
 /** The code an authenticator app would show now (RFC 6238, through otpauth). */
-const codeFor = (secret: string, offset = 0) => new TOTP({ secret: Secret.fromBase32(secret), algorithm: 'SHA1', digits: 6, period: 30 }).generate({ timestamp: Date.now() + offset });
+const codeFor = (secret: string, offset = 0) =>
+  new TOTP({ secret: Secret.fromBase32(secret), algorithm: 'SHA1', digits: 6, period: 30 }).generate({
+    timestamp: Date.now() + offset,
+  });
 
 async function signInWithCode(email: string, code: string | null): Promise<ApiClient> {
   const client = new ApiClient(server.baseUrl);
@@ -26,7 +29,12 @@ async function signInWithCode(email: string, code: string | null): Promise<ApiCl
   await client.request('/api/auth/callback/credentials', {
     method: 'POST',
     headers: { 'content-type': 'application/x-www-form-urlencoded' },
-    body: new URLSearchParams({ email, password: TEST_PASSWORD, csrfToken: csrf.body.csrfToken, ...(code === null ? {} : { code }) }),
+    body: new URLSearchParams({
+      email,
+      password: TEST_PASSWORD,
+      csrfToken: csrf.body.csrfToken,
+      ...(code === null ? {} : { code }),
+    }),
   });
   return client;
 }
@@ -61,7 +69,11 @@ describe('the second factor', () => {
     await owner.client.post('/api/account/second-factor/confirm', { code: codeFor(setup.secret) });
     const client = new ApiClient(server.baseUrl);
     const csrf = await client.get('/api/auth/csrf');
-    const answer = await client.request('/api/auth/callback/credentials', { method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ email: owner.email, password: TEST_PASSWORD, csrfToken: csrf.body.csrfToken }) });
+    const answer = await client.request('/api/auth/callback/credentials', {
+      method: 'POST',
+      headers: { 'content-type': 'application/x-www-form-urlencoded' },
+      body: new URLSearchParams({ email: owner.email, password: TEST_PASSWORD, csrfToken: csrf.body.csrfToken }),
+    });
     expect(answer.headers.get('location')).toContain('code=second-factor');
   });
 
@@ -69,8 +81,22 @@ describe('the second factor', () => {
     const { client, email } = await signedInClient(server.baseUrl, { team: 'Off Crew' });
     const setup = (await client.post('/api/account/second-factor')).body;
     await client.post('/api/account/second-factor/confirm', { code: codeFor(setup.secret) });
-    expect((await client.post('/api/account/second-factor/disable', { password: 'wrong password!', code: codeFor(setup.secret) })).status).toBe(400);
-    expect((await client.post('/api/account/second-factor/disable', { password: TEST_PASSWORD, code: codeFor(setup.secret) })).status).toBe(200);
+    expect(
+      (
+        await client.post('/api/account/second-factor/disable', {
+          password: 'wrong password!',
+          code: codeFor(setup.secret),
+        })
+      ).status,
+    ).toBe(400);
+    expect(
+      (
+        await client.post('/api/account/second-factor/disable', {
+          password: TEST_PASSWORD,
+          code: codeFor(setup.secret),
+        })
+      ).status,
+    ).toBe(200);
     expect((await client.get('/api/account')).status).toBe(401);
     expect((await signInWithCode(email, null)).hasSessionCookie()).toBe(true);
   });
@@ -122,7 +148,11 @@ describe('sessions end when they should', () => {
     await client.post('/api/account/second-factor/confirm', { code: '111111' });
     await new ApiClient(server.baseUrl).get('/api/members');
     await new Promise((r) => setTimeout(r, 200));
-    const lines = server.output().split('\n').filter((line) => line.startsWith('[lashline:security]')).map((line) => JSON.parse(line.slice('[lashline:security] '.length)));
+    const lines = server
+      .output()
+      .split('\n')
+      .filter((line) => line.startsWith('[lashline:security]'))
+      .map((line) => JSON.parse(line.slice('[lashline:security] '.length)));
     const mine = lines.filter((l) => l.email === email);
     expect(mine.some((l) => l.event === 'sign-in' && l.userId)).toBe(true);
     expect(mine.some((l) => l.event === 'sign-in-failed')).toBe(true);

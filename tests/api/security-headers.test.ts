@@ -30,7 +30,8 @@ beforeAll(async () => {
 }, 90_000);
 afterAll(() => server?.stop());
 
-const SAFE_SOURCE = /^('self'|'none'|'unsafe-inline'|'strict-dynamic'|'(sha256|sha384|sha512)-[A-Za-z0-9+/=]+'|'nonce-[A-Za-z0-9+/=_-]+'|data:|blob:)$/;
+const SAFE_SOURCE =
+  /^('self'|'none'|'unsafe-inline'|'strict-dynamic'|'(sha256|sha384|sha512)-[A-Za-z0-9+/=]+'|'nonce-[A-Za-z0-9+/=_-]+'|data:|blob:)$/;
 const SAFE_REFERRER_POLICIES = ['no-referrer', 'same-origin', 'strict-origin', 'strict-origin-when-cross-origin'];
 
 /** What is wrong with a response's security headers; empty when nothing is. */
@@ -39,8 +40,12 @@ function headerProblems(headers: Headers): string[] {
   const csp = headers.get('content-security-policy');
   if (!csp) problems.push('no Content-Security-Policy');
   else {
-    const directives = csp.split(';').map((d) => d.trim()).filter(Boolean);
-    if (!directives.some((d) => d === "frame-ancestors 'none'")) problems.push(`CSP without frame-ancestors 'none': ${csp.slice(0, 200)}`);
+    const directives = csp
+      .split(';')
+      .map((d) => d.trim())
+      .filter(Boolean);
+    if (!directives.some((d) => d === "frame-ancestors 'none'"))
+      problems.push(`CSP without frame-ancestors 'none': ${csp.slice(0, 200)}`);
     for (const directive of directives) {
       const [name, ...sources] = directive.split(/\s+/);
       // upgrade-insecure-requests and the like name no source at all.
@@ -48,13 +53,19 @@ function headerProblems(headers: Headers): string[] {
       if (foreign.length) problems.push(`CSP ${name} allows ${foreign.join(' ')}`);
     }
   }
-  if (headers.get('x-content-type-options') !== 'nosniff') problems.push(`X-Content-Type-Options: ${headers.get('x-content-type-options')}`);
-  if (!SAFE_REFERRER_POLICIES.includes(headers.get('referrer-policy') ?? '')) problems.push(`Referrer-Policy: ${headers.get('referrer-policy')}`);
+  if (headers.get('x-content-type-options') !== 'nosniff')
+    problems.push(`X-Content-Type-Options: ${headers.get('x-content-type-options')}`);
+  if (!SAFE_REFERRER_POLICIES.includes(headers.get('referrer-policy') ?? ''))
+    problems.push(`Referrer-Policy: ${headers.get('referrer-policy')}`);
   if (headers.get('x-frame-options') !== 'DENY') problems.push(`X-Frame-Options: ${headers.get('x-frame-options')}`);
   return problems;
 }
 
-async function check(client: ApiClient, path: string, init: RequestInit = {}): Promise<{ status: number; problems: string[] }> {
+async function check(
+  client: ApiClient,
+  path: string,
+  init: RequestInit = {},
+): Promise<{ status: number; problems: string[] }> {
   const response = await client.request(path, init);
   await response.arrayBuffer().catch(() => undefined);
   return { status: response.status, problems: headerProblems(response.headers) };
@@ -73,7 +84,10 @@ describe('security headers', () => {
     expect(pages.length).toBeGreaterThan(10);
     const wrong: string[] = [];
     for (const page of pages) {
-      for (const [who, client] of [['signed in', owner], ['signed out', anonymous]] as const) {
+      for (const [who, client] of [
+        ['signed in', owner],
+        ['signed out', anonymous],
+      ] as const) {
         const path = pathFor(page.pattern);
         const { status, problems } = await check(client, path);
         if (problems.length) wrong.push(`${who} GET ${path} (${status}): ${problems.join('; ')}`);
@@ -87,7 +101,14 @@ describe('security headers', () => {
     for (const endpoint of listOtherEndpoints()) {
       for (const method of endpoint.methods) {
         const path = pathFor(endpoint.pattern);
-        const init: RequestInit = method === 'GET' ? {} : { method, headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: `teamId=${records.teamId}` };
+        const init: RequestInit =
+          method === 'GET'
+            ? {}
+            : {
+                method,
+                headers: { 'content-type': 'application/x-www-form-urlencoded' },
+                body: `teamId=${records.teamId}`,
+              };
         const { status, problems } = await check(owner, path, init);
         if (problems.length) wrong.push(`${method} ${path} (${status}): ${problems.join('; ')}`);
       }
@@ -95,28 +116,70 @@ describe('security headers', () => {
     expect(wrong).toEqual([]);
   });
 
-  const json = (method: string, body: unknown, extra: Record<string, string> = {}): RequestInit => ({ method, headers: { 'content-type': 'application/json', ...extra }, body: JSON.stringify(body) });
+  const json = (method: string, body: unknown, extra: Record<string, string> = {}): RequestInit => ({
+    method,
+    headers: { 'content-type': 'application/json', ...extra },
+    body: JSON.stringify(body),
+  });
 
   const SAMPLES: { name: string; status: number; send: () => Promise<{ status: number; problems: string[] }> }[] = [
     { name: 'a list', status: 200, send: () => check(owner, '/api/runs') },
-    { name: 'a creation', status: 201, send: () => check(owner, '/api/cars', json('POST', { name: `Header car ${Date.now()}` })) },
-    { name: 'a deletion', status: 204, send: async () => check(owner, `/api/runs/${(await owner.post('/api/runs', { carId: records.carId, at: '2026-06-01T11:00:00Z' })).body.id}`, { method: 'DELETE' }) },
-    { name: 'a CSV download', status: 200, send: () => check(owner, `/api/exports/gear-sets/${records.gearSetId}.csv`) },
+    {
+      name: 'a creation',
+      status: 201,
+      send: () => check(owner, '/api/cars', json('POST', { name: `Header car ${Date.now()}` })),
+    },
+    {
+      name: 'a deletion',
+      status: 204,
+      send: async () =>
+        check(
+          owner,
+          `/api/runs/${(await owner.post('/api/runs', { carId: records.carId, at: '2026-06-01T11:00:00Z' })).body.id}`,
+          { method: 'DELETE' },
+        ),
+    },
+    {
+      name: 'a CSV download',
+      status: 200,
+      send: () => check(owner, `/api/exports/gear-sets/${records.gearSetId}.csv`),
+    },
     { name: 'a photo', status: 200, send: () => check(owner, `/api/photos/${records.photoId}`) },
-    { name: 'a built script (static file)', status: 200, send: () => check(anonymous, `/_astro/${readdirSync(join(dirname(dirname(SERVER_ENTRY)), 'client', '_astro')).find((name) => name.endsWith('.js'))}`) },
+    {
+      name: 'a built script (static file)',
+      status: 200,
+      send: () =>
+        check(
+          anonymous,
+          `/_astro/${readdirSync(join(dirname(dirname(SERVER_ENTRY)), 'client', '_astro')).find((name) => name.endsWith('.js'))}`,
+        ),
+    },
     { name: 'the health check', status: 200, send: () => check(anonymous, '/api/health') },
     { name: 'the Auth.js CSRF token', status: 200, send: () => check(anonymous, '/api/auth/csrf') },
     { name: 'a bad field', status: 400, send: () => check(owner, '/api/cars', json('POST', {})) },
-    { name: 'malformed JSON', status: 400, send: () => check(owner, '/api/cars', { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{' }) },
+    {
+      name: 'malformed JSON',
+      status: 400,
+      send: () =>
+        check(owner, '/api/cars', { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{' }),
+    },
     { name: 'signed out', status: 401, send: () => check(anonymous, '/api/runs') },
     { name: 'no team', status: 403, send: () => check(lonely, '/api/runs') },
-    { name: 'a foreign Origin on JSON', status: 403, send: () => check(owner, '/api/cars', json('POST', { name: 'x' }, { origin: 'http://evil.example' })) },
+    {
+      name: 'a foreign Origin on JSON',
+      status: 403,
+      send: () => check(owner, '/api/cars', json('POST', { name: 'x' }, { origin: 'http://evil.example' })),
+    },
     { name: "another team's record", status: 404, send: () => check(owner, '/api/cars/no-such-car') },
     { name: 'an unknown API path', status: 404, send: () => check(owner, '/api/no-such-thing') },
     { name: 'an unknown page', status: 404, send: () => check(owner, '/no-such-page') },
     // Astro answers a method a route does not export with 404.
     { name: 'a method the route does not have', status: 404, send: () => check(owner, '/api/health', json('PUT', {})) },
-    { name: 'a declared body over 1 MB', status: 413, send: () => check(owner, '/api/cars', json('POST', { name: 'x'.repeat(1_100_000) })) },
+    {
+      name: 'a declared body over 1 MB',
+      status: 413,
+      send: () => check(owner, '/api/cars', json('POST', { name: 'x'.repeat(1_100_000) })),
+    },
     {
       name: 'a streamed body over 1 MB',
       status: 413,
@@ -129,10 +192,20 @@ describe('security headers', () => {
             else controller.enqueue(chunk);
           },
         });
-        return check(owner, '/api/cars', { method: 'POST', headers: { 'content-type': 'application/json' }, body, duplex: 'half' } as RequestInit);
+        return check(owner, '/api/cars', {
+          method: 'POST',
+          headers: { 'content-type': 'application/json' },
+          body,
+          duplex: 'half',
+        } as RequestInit);
       },
     },
-    { name: 'a body that is not JSON', status: 415, send: () => check(owner, '/api/cars', { method: 'POST', headers: { 'content-type': 'text/plain' }, body: 'name=x' }) },
+    {
+      name: 'a body that is not JSON',
+      status: 415,
+      send: () =>
+        check(owner, '/api/cars', { method: 'POST', headers: { 'content-type': 'text/plain' }, body: 'name=x' }),
+    },
     {
       name: 'too many failed sign-ins',
       status: 429,

@@ -85,7 +85,9 @@ describe('teams, roles and invitations', () => {
   it('lets a crew chief invite but not grant owner, and not a technician invite at all', async () => {
     const owner = await signedInClient(server.baseUrl, { team: 'Grant Team' });
     const chief = await joinAs(owner.client, 'crew-chief');
-    expect((await chief.client.post('/api/invitations', { email: uniqueEmail(), role: 'technician' })).status).toBe(201);
+    expect((await chief.client.post('/api/invitations', { email: uniqueEmail(), role: 'technician' })).status).toBe(
+      201,
+    );
     expect((await chief.client.post('/api/invitations', { email: uniqueEmail(), role: 'owner' })).status).toBe(403);
     const tech = await joinAs(owner.client, 'technician');
     expect((await tech.client.post('/api/invitations', { email: uniqueEmail(), role: 'viewer' })).status).toBe(403);

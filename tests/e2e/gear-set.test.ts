@@ -20,7 +20,9 @@ beforeAll(async () => {
   await api.signIn('chief@lashline.test', 'lashline-demo');
   const sets = await api.get<{ items: { id: string; serial: string }[] }>('/api/gear-sets');
   gearSetId = sets.body.items.find((s) => s.serial === 'GS-4101')!.id;
-  const inspections = await api.get<{ items: { id: string; runsAtInspection: number }[] }>(`/api/inspections?gearSetId=${gearSetId}&status=submitted`);
+  const inspections = await api.get<{ items: { id: string; runsAtInspection: number }[] }>(
+    `/api/inspections?gearSetId=${gearSetId}&status=submitted`,
+  );
   submitted = inspections.body.items;
 });
 afterAll(async () => {
@@ -78,7 +80,9 @@ describe('a gear set’s life in a real browser', () => {
   });
 
   it('compares the latest with the one before, showing the API’s deltas and flags', async () => {
-    const analysis = await api.get<{ change: { measure: string; delta: number | null; flagged: boolean }[] }>(`/api/gear-sets/${gearSetId}/analysis`);
+    const analysis = await api.get<{ change: { measure: string; delta: number | null; flagged: boolean }[] }>(
+      `/api/gear-sets/${gearSetId}/analysis`,
+    );
     expect(analysis.status).toBe(200);
     const page = await signIn();
     await page.goto(`${server.baseUrl}/gear-sets/${gearSetId}`);
@@ -100,7 +104,9 @@ describe('a gear set’s life in a real browser', () => {
 
   it('shows the board most urgent first, with ready spares', async () => {
     const page = await signIn();
-    const actions = await page.getByTestId('board-row').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-action')));
+    const actions = await page
+      .getByTestId('board-row')
+      .evaluateAll((rows) => rows.map((r) => r.getAttribute('data-action')));
     const rank: Record<string, number> = { retire: 4, 're-shim': 3, watch: 2, keep: 1, none: 0 };
     expect(actions.length).toBeGreaterThan(0);
     expect([...actions].sort((a, b) => rank[b!]! - rank[a!]!)).toEqual(actions);
@@ -122,7 +128,9 @@ describe('a gear set’s life in a real browser', () => {
     const spareRows = await page.getByTestId('board-row').count();
     expect(spareRows).toBeGreaterThan(0);
     expect(spareRows).toBeLessThan(allRows);
-    expect(await page.getByTestId('board-summary').textContent()).toContain(`${spareRows} set${spareRows === 1 ? '' : 's'} shown`);
+    expect(await page.getByTestId('board-summary').textContent()).toContain(
+      `${spareRows} set${spareRows === 1 ? '' : 's'} shown`,
+    );
 
     // A car keeps the status already chosen; the demo's spares sit on the shelf, in no car.
     await filter.getByRole('link', { name: 'Not in a car' }).click();
@@ -131,7 +139,10 @@ describe('a gear set’s life in a real browser', () => {
     expect(await page.getByTestId('board-row').count()).toBe(spareRows);
 
     // The current choice carries a tick as well as its fill, so it does not rest on colour.
-    const tick = await filter.locator('[aria-current="true"]').first().evaluate((a) => getComputedStyle(a, '::before').borderRightWidth);
+    const tick = await filter
+      .locator('[aria-current="true"]')
+      .first()
+      .evaluate((a) => getComputedStyle(a, '::before').borderRightWidth);
     expect(tick).toBe('3px');
 
     await filter.getByRole('link', { name: 'Any in use' }).click();

@@ -34,7 +34,10 @@ describe('the inspection sheet in a real browser', () => {
   it('is filled with the keyboard, survives going offline and a reload, submits once and shows on the gear set', async () => {
     const context = await browser.newContext({ viewport: { width: 1024, height: 768 } });
     const page = await signIn(context, 'tech@lashline.test');
-    const sets = await page.evaluate(async () => (await (await fetch('/api/gear-sets')).json()).items as { id: string; serial: string; status: string }[]);
+    const sets = await page.evaluate(
+      async () =>
+        (await (await fetch('/api/gear-sets')).json()).items as { id: string; serial: string; status: string }[],
+    );
     const set = sets.find((s) => s.status === 'in-service') ?? sets[0]!;
 
     // From the gear set's page, as a technician would start.
@@ -56,7 +59,9 @@ describe('the inspection sheet in a real browser', () => {
       await page.keyboard.type(value);
       await page.keyboard.press('Enter');
     }
-    await expect.poll(() => page.evaluate(() => document.activeElement?.getAttribute('data-testid'))).toBe('runout-back-face');
+    await expect
+      .poll(() => page.evaluate(() => document.activeElement?.getAttribute('data-testid')))
+      .toBe('runout-back-face');
     expect(await page.getByTestId('figure-mean').textContent()).toBe('0.007 in');
     expect(await page.getByTestId('figure-spread').textContent()).toBe('0.002 in');
     await page.keyboard.type('2');
@@ -64,7 +69,9 @@ describe('the inspection sheet in a real browser', () => {
     await page.keyboard.type('1');
     await page.keyboard.press('Enter');
     // Once the gear set, time and runs are in, the draft goes to Lashline by itself.
-    await expect.poll(() => status(page).textContent(), { timeout: 15_000 }).toMatch(/Saved on this device · Saved to Lashline \d\d:\d\d/);
+    await expect
+      .poll(() => status(page).textContent(), { timeout: 15_000 })
+      .toMatch(/Saved on this device · Saved to Lashline \d\d:\d\d/);
     const inspectionId = await sheet.getAttribute('data-server-id');
     expect(inspectionId).toMatch(/[0-9a-f-]{36}/);
 
@@ -90,12 +97,17 @@ describe('the inspection sheet in a real browser', () => {
     await expect.poll(() => status(page).textContent()).toContain('Offline — saved on this device');
     await page.getByTestId('pinion-torque').focus();
     await page.keyboard.type('10');
-    await page.getByRole('group', { name: 'Left hub: effort unchanged?' }).getByRole('radio', { name: 'Unchanged' }).focus();
+    await page
+      .getByRole('group', { name: 'Left hub: effort unchanged?' })
+      .getByRole('radio', { name: 'Unchanged' })
+      .focus();
     await page.keyboard.press('Space');
     // The first arrow places the pattern in the middle; each one after moves it 5 %.
     await page.getByTestId('pattern-drive').focus();
     for (const key of ['ArrowRight', 'ArrowRight', 'ArrowRight', 'ArrowUp']) await page.keyboard.press(key);
-    expect(await page.getByTestId('pattern-drive-words').textContent()).toContain('60 % from toe to heel, 55 % from flank to face');
+    expect(await page.getByTestId('pattern-drive-words').textContent()).toContain(
+      '60 % from toe to heel, 55 % from flank to face',
+    );
     await page.getByTestId('pattern-coast-along').focus();
     await page.keyboard.type('45');
     await page.keyboard.press('Enter');
@@ -127,21 +139,39 @@ describe('the inspection sheet in a real browser', () => {
     expect(await sheet.getAttribute('data-status')).toBe('submitted');
 
     // What the server keeps is what was typed.
-    const stored = await page.evaluate(async (id) => (await (await fetch(`/api/inspections/${id}`)).json()) as Record<string, any>, inspectionId);
-    expect(stored).toMatchObject({ status: 'submitted', readings: [0.008, 0.007, 0.006, 0.007], runout: { backFace: 0.002, radial: 0.001 }, pinion: { shims: [0.03, 0.005], depthChange: -0.002, marking: '+2' }, notes: 'Typed with no signal in the pits.' });
+    const stored = await page.evaluate(
+      async (id) => (await (await fetch(`/api/inspections/${id}`)).json()) as Record<string, any>,
+      inspectionId,
+    );
+    expect(stored).toMatchObject({
+      status: 'submitted',
+      readings: [0.008, 0.007, 0.006, 0.007],
+      runout: { backFace: 0.002, radial: 0.001 },
+      pinion: { shims: [0.03, 0.005], depthChange: -0.002, marking: '+2' },
+      notes: 'Typed with no signal in the pits.',
+    });
     expect(stored.condition.teeth).toEqual([{ finding: 'pitting', severity: 'light' }]);
     expect(stored.preload).toMatchObject({ pinionTorque: 10, hubLeft: { unchanged: true } });
     // Submitting again with the same key answers the same inspection.
-    const again = await page.evaluate(async (id) => (await fetch(`/api/inspections/${id}/submit`, { method: 'POST', headers: { 'Idempotency-Key': 'e2e-repeat' } })).status, inspectionId);
+    const again = await page.evaluate(
+      async (id) =>
+        (await fetch(`/api/inspections/${id}/submit`, { method: 'POST', headers: { 'Idempotency-Key': 'e2e-repeat' } }))
+          .status,
+      inspectionId,
+    );
     expect(again).toBe(200);
 
     // A photo of the drive side, with its upload progress, once the inspection is on the server.
-    await page.getByTestId('photo-input-drive').setInputFiles({ name: 'drive.jpg', mimeType: 'image/jpeg', buffer: await patternJpeg() });
+    await page
+      .getByTestId('photo-input-drive')
+      .setInputFiles({ name: 'drive.jpg', mimeType: 'image/jpeg', buffer: await patternJpeg() });
     await page.getByTestId('photos-drive').getByTestId('photo-thumbnail').waitFor({ timeout: 20_000 });
 
     // The gear set's page lists it, and the detail page reads back in the reader's unit.
     await page.goto(`${server.baseUrl}/parts/${set.id}`);
-    const row = page.getByTestId('inspection-row').filter({ has: page.locator(`a[href="/inspections/${inspectionId}"]`) });
+    const row = page
+      .getByTestId('inspection-row')
+      .filter({ has: page.locator(`a[href="/inspections/${inspectionId}"]`) });
     expect(await row.count()).toBe(1);
     expect(await row.textContent()).toMatch(/0\.007 in.*0\.002 in.*Submitted/);
     await row.getByRole('link').click();

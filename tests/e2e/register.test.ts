@@ -44,10 +44,16 @@ async function openParts(page: Page, query = ''): Promise<void> {
 
 /** The serials of the rows shown, in order, and one column's cells as text. */
 async function readColumn(page: Page, column: string): Promise<{ serial: string; text: string }[]> {
-  return page.getByTestId('part-row').evaluateAll(
-    (rows, id) => rows.map((row) => ({ serial: (row as HTMLElement).dataset.serial ?? '', text: row.querySelector(`td[data-column="${id}"]`)?.textContent?.trim() ?? '' })),
-    column,
-  );
+  return page
+    .getByTestId('part-row')
+    .evaluateAll(
+      (rows, id) =>
+        rows.map((row) => ({
+          serial: (row as HTMLElement).dataset.serial ?? '',
+          text: row.querySelector(`td[data-column="${id}"]`)?.textContent?.trim() ?? '',
+        })),
+      column,
+    );
 }
 
 /** The search part of the page's URL as an object. */
@@ -76,7 +82,10 @@ async function readPartsTable(page: Page): Promise<Map<string, number>> {
   const rows = page.getByTestId('part-row');
   for (let i = 0; i < (await rows.count()); i += 1) {
     const row = rows.nth(i);
-    totals.set((await row.getAttribute('data-serial'))!, Number(await row.locator('td[data-column="totalRuns"]').textContent()));
+    totals.set(
+      (await row.getAttribute('data-serial'))!,
+      Number(await row.locator('td[data-column="totalRuns"]').textContent()),
+    );
   }
   return totals;
 }
@@ -105,13 +114,17 @@ describe('the parts register and the run log in a real browser', () => {
     await open(page, '/cars');
     const emberAfter = await readCounts(page, '714 Ember');
     for (const [serial, before] of ember) {
-      expect(emberAfter.get(serial), serial).toEqual({ sinceInstall: before.sinceInstall + 1, total: before.total + 1 });
+      expect(emberAfter.get(serial), serial).toEqual({
+        sinceInstall: before.sinceInstall + 1,
+        total: before.total + 1,
+      });
     }
     expect(await readCounts(page, '22 Blackwater')).toEqual(blackwater);
     expect(await readCounts(page, 'RE-03 Spare rear end')).toEqual(shelf);
 
     const tableAfter = await readPartsTable(page);
-    for (const [serial, total] of tableBefore) expect(tableAfter.get(serial), serial).toBe(ember.has(serial) ? total + 1 : total);
+    for (const [serial, total] of tableBefore)
+      expect(tableAfter.get(serial), serial).toBe(ember.has(serial) ? total + 1 : total);
     await page.close();
   });
 
@@ -136,7 +149,9 @@ describe('the parts register and the run log in a real browser', () => {
     const ember = stale.getByRole('region', { name: '714 Ember', exact: true });
     await ember.getByLabel('Fit a part into RE-01').selectOption({ label: 'HB-31 — Hub, 0 runs' });
     await ember.getByRole('button', { name: 'Fit part' }).click();
-    expect(await ember.getByRole('alert').textContent()).toMatch(/^It is already installed in assembly RE-03 \(Spare rear end\) since .*; remove it first\.$/);
+    expect(await ember.getByRole('alert').textContent()).toMatch(
+      /^It is already installed in assembly RE-03 \(Spare rear end\) since .*; remove it first\.$/,
+    );
     await page.close();
     await stale.close();
   });
@@ -147,9 +162,15 @@ describe('the parts register and the run log in a real browser', () => {
     await page.getByRole('button', { name: 'Import a CSV file' }).click();
     const sample = await page.request.get(`${server.baseUrl}/samples/runs-sample.csv`);
     expect(sample.status()).toBe(200);
-    expect(await page.getByRole('link', { name: 'Download a sample file' }).getAttribute('href')).toBe('/samples/runs-sample.csv');
-    await page.getByLabel('Choose a CSV file').setInputFiles({ name: 'runs-sample.csv', mimeType: 'text/csv', buffer: await sample.body() });
-    expect(await page.getByTestId('import-summary').textContent()).toBe('runs-sample.csv: 10 rows read — 10 ready, 0 with problems.');
+    expect(await page.getByRole('link', { name: 'Download a sample file' }).getAttribute('href')).toBe(
+      '/samples/runs-sample.csv',
+    );
+    await page
+      .getByLabel('Choose a CSV file')
+      .setInputFiles({ name: 'runs-sample.csv', mimeType: 'text/csv', buffer: await sample.body() });
+    expect(await page.getByTestId('import-summary').textContent()).toBe(
+      'runs-sample.csv: 10 rows read — 10 ready, 0 with problems.',
+    );
     await page.getByRole('button', { name: 'Import 10 runs' }).click();
     await page.getByText('Imported 10 runs.', { exact: false }).waitFor();
     await page.getByText('Cinder Flats Test Day').first().waitFor();
@@ -237,7 +258,9 @@ describe('the parts register and the run log in a real browser', () => {
     expect(kinds.every((cell) => cell.serial.startsWith('GS-'))).toBe(true);
     const gearTotals = await totals();
     expect(gearTotals).toEqual([...gearTotals].sort((a, b) => b - a));
-    expect(await page.getByTestId('parts-summary').textContent()).toBe(`Parts 1–${kinds.length} of ${kinds.length} (filtered from ${everything}).`);
+    expect(await page.getByTestId('parts-summary').textContent()).toBe(
+      `Parts 1–${kinds.length} of ${kinds.length} (filtered from ${everything}).`,
+    );
 
     // The third press of a header takes the sort off and keeps the filter.
     await header.getByRole('link', { name: /Total runs/ }).click();
@@ -294,11 +317,15 @@ describe('the parts register and the run log in a real browser', () => {
     await page.waitForURL(/added=/);
     // The filters and sort are dropped, so the new part is in the table.
     expect(Object.keys(queryOf(page))).toEqual(['added']);
-    expect((await page.getByTestId('part-added').textContent())?.trim()).toBe('Added gear set GS-4199. It is on the shelf as a spare.');
+    expect((await page.getByTestId('part-added').textContent())?.trim()).toBe(
+      'Added gear set GS-4199. It is on the shelf as a spare.',
+    );
     const row = page.locator('[data-testid="part-row"][data-serial="GS-4199"]');
     expect((await row.locator('td[data-column="status"]').textContent())?.trim()).toBe('Spare');
     expect((await row.locator('td[data-column="where"]').textContent())?.trim()).toBe('Not installed');
-    expect(await page.getByTestId('part-added').getByRole('link', { name: 'GS-4199' }).getAttribute('href')).toBe(`/parts/${queryOf(page).added}`);
+    expect(await page.getByTestId('part-added').getByRole('link', { name: 'GS-4199' }).getAttribute('href')).toBe(
+      `/parts/${queryOf(page).added}`,
+    );
 
     // An id that is not one of this team's parts says nothing.
     await openParts(page, '?added=not-a-part');

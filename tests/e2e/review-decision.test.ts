@@ -7,7 +7,10 @@ let server: RunningServer;
 let browser: Browser;
 beforeAll(async () => {
   // No SMTP server: Lashline's own local mail catcher takes the notices and lists them at /dev/mail.
-  server = await startServer({ demo: true, env: { SMTP_HOST: '', MAIL_CATCHER: 'on', SMTP_PORT: String(await findFreePort()) } });
+  server = await startServer({
+    demo: true,
+    env: { SMTP_HOST: '', MAIL_CATCHER: 'on', SMTP_PORT: String(await findFreePort()) },
+  });
   browser = await launchBrowser();
 });
 afterAll(async () => {
@@ -21,12 +24,20 @@ describe('a crew chief decides a review in the browser', () => {
     await signInOnPage(page, server.baseUrl, 'chief@lashline.test');
 
     await page.goto(`${server.baseUrl}/reviews`);
-    await page.getByTestId('open-review').getByRole('link', { name: /GS-4102/ }).click();
+    await page
+      .getByTestId('open-review')
+      .getByRole('link', { name: /GS-4102/ })
+      .click();
     await page.waitForURL(/\/reviews\/[\w-]+$/);
     const evidence = page.getByTestId('evidence');
     expect(await evidence.getByText(/Lashline suggests: ■ Retire/).count()).toBe(1);
     expect(await evidence.getByText(/reach the life limit of 50/).count()).toBe(1);
-    expect(await evidence.getByRole('row', { name: /Back-face runout \(measured\)/ }).getByText('✕ Out of band').count()).toBe(1);
+    expect(
+      await evidence
+        .getByRole('row', { name: /Back-face runout \(measured\)/ })
+        .getByText('✕ Out of band')
+        .count(),
+    ).toBe(1);
 
     await page.getByLabel('Retire').check();
     await page.getByLabel('Reason').fill('Runout beyond the limit');
@@ -45,7 +56,10 @@ describe('a crew chief decides a review in the browser', () => {
     let notices = 0;
     for (let i = 0; i < 40 && notices < 3; i += 1) {
       await page.goto(`${server.baseUrl}/dev/mail`);
-      notices = await page.getByTestId('caught-mail').filter({ hasText: 'Decision on gear set GS-4102: Retire' }).count();
+      notices = await page
+        .getByTestId('caught-mail')
+        .filter({ hasText: 'Decision on gear set GS-4102: Retire' })
+        .count();
       if (notices < 3) await page.waitForTimeout(500);
     }
     // Everyone in the team but the chief who decided: owner, technician, viewer.

@@ -14,7 +14,8 @@ export class ApiClient {
       if (!pair || index < 0) continue;
       const name = pair.slice(0, index).trim();
       const value = pair.slice(index + 1).trim();
-      if (value === '' || /expires=thu, 01 jan 1970/i.test(header) || /max-age=0/i.test(header)) this.cookies.delete(name);
+      if (value === '' || /expires=thu, 01 jan 1970/i.test(header) || /max-age=0/i.test(header))
+        this.cookies.delete(name);
       else this.cookies.set(name, value);
     }
   }
@@ -39,7 +40,11 @@ export class ApiClient {
     return response;
   }
 
-  async json<T = any>(method: string, path: string, body?: unknown): Promise<{ status: number; body: T; headers: Headers }> {
+  async json<T = any>(
+    method: string,
+    path: string,
+    body?: unknown,
+  ): Promise<{ status: number; body: T; headers: Headers }> {
     const response = await this.request(path, {
       method,
       headers: body === undefined ? {} : { 'content-type': 'application/json' },
@@ -105,7 +110,11 @@ export const TEST_PASSWORD = 'a long enough test passphrase';
 export async function signedInClient(baseUrl: string, options: { team?: string; email?: string; name?: string } = {}) {
   const client = new ApiClient(baseUrl);
   const email = options.email ?? uniqueEmail();
-  const made = await client.post('/api/accounts', { email, password: TEST_PASSWORD, name: options.name ?? 'Test Person' });
+  const made = await client.post('/api/accounts', {
+    email,
+    password: TEST_PASSWORD,
+    name: options.name ?? 'Test Person',
+  });
   if (made.status !== 201) throw new Error(`sign-up failed: ${made.status} ${JSON.stringify(made.body)}`);
   const signedIn = await client.signIn(email, TEST_PASSWORD);
   if (!client.hasSessionCookie()) throw new Error(`sign-in failed: ${signedIn.status}`);

@@ -21,7 +21,12 @@ export function launchBrowser(): Promise<Browser> {
 }
 
 /** Signs in through the sign-in page, as a person would, and waits for the board. */
-export async function signInOnPage(page: Page, baseUrl: string, email: string, password = 'lashline-demo'): Promise<void> {
+export async function signInOnPage(
+  page: Page,
+  baseUrl: string,
+  email: string,
+  password = 'lashline-demo',
+): Promise<void> {
   await page.goto(`${baseUrl}/sign-in`);
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);

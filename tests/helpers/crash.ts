@@ -13,7 +13,9 @@ import { uploadPhoto } from './images';
  */
 
 /** The number of migration files in drizzle/. */
-export const MIGRATION_FILES = readdirSync(join(PROJECT_ROOT, 'drizzle')).filter((name) => name.endsWith('.sql')).length;
+export const MIGRATION_FILES = readdirSync(join(PROJECT_ROOT, 'drizzle')).filter((name) =>
+  name.endsWith('.sql'),
+).length;
 
 export interface Acknowledged {
   runs: string[];
@@ -25,13 +27,23 @@ export interface Acknowledged {
 }
 
 /** Logs runs from `client` until it gets no answer (the server died) or `deadline` passes. */
-async function streamRuns(client: ApiClient, carId: string, tag: string, deadline: number, into: Acknowledged): Promise<void> {
+async function streamRuns(
+  client: ApiClient,
+  carId: string,
+  tag: string,
+  deadline: number,
+  into: Acknowledged,
+): Promise<void> {
   for (let i = 0; Date.now() < deadline && i < 10_000; i += 1) {
     // Distinct times in the past: a run more than a day ahead is refused.
     const at = new Date(Date.UTC(2023, 0, 1) + Math.floor(Math.random() * 50_000_000) * 1000).toISOString();
     let response: Response;
     try {
-      response = await client.request('/api/runs', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ carId, at, notes: `${tag} #${i}` }) });
+      response = await client.request('/api/runs', {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ carId, at, notes: `${tag} #${i}` }),
+      });
     } catch {
       into.cutOff += 1;
       return;
@@ -50,7 +62,13 @@ async function streamRuns(client: ApiClient, carId: string, tag: string, deadlin
 }
 
 /** Uploads `bytes` as photos of the inspection until the server dies or `deadline` passes. */
-async function streamUploads(client: ApiClient, inspectionId: string, bytes: Uint8Array, deadline: number, into: Acknowledged): Promise<void> {
+async function streamUploads(
+  client: ApiClient,
+  inspectionId: string,
+  bytes: Uint8Array,
+  deadline: number,
+  into: Acknowledged,
+): Promise<void> {
   for (let i = 0; Date.now() < deadline && i < 1000; i += 1) {
     let answer: Awaited<ReturnType<typeof uploadPhoto>>;
     try {
@@ -110,22 +128,37 @@ export interface AfterRestart {
 function isWholeJpeg(path: string): boolean {
   if (!existsSync(path)) return false;
   const bytes = readFileSync(path);
-  return bytes.length > 4 && bytes[0] === 0xff && bytes[1] === 0xd8 && bytes[bytes.length - 2] === 0xff && bytes[bytes.length - 1] === 0xd9;
+  return (
+    bytes.length > 4 &&
+    bytes[0] === 0xff &&
+    bytes[1] === 0xd8 &&
+    bytes[bytes.length - 2] === 0xff &&
+    bytes[bytes.length - 1] === 0xd9
+  );
 }
 
 /** The checks after a restart; `client` is a signed-in member of the team. */
-export async function checkAfterRestart(server: RunningServer, client: ApiClient, acknowledged: { runs: Iterable<string>; photos: Iterable<string> }): Promise<AfterRestart> {
+export async function checkAfterRestart(
+  server: RunningServer,
+  client: ApiClient,
+  acknowledged: { runs: Iterable<string>; photos: Iterable<string> },
+): Promise<AfterRestart> {
   const db = createClient({ url: server.databaseUrl });
   try {
     const integrity = (await db.execute('PRAGMA integrity_check')).rows.map((row) => String(row[0])).join('; ');
     const runIds = new Set((await db.execute('SELECT id FROM runs')).rows.map((row) => String(row[0])));
-    const photoRows = (await db.execute('SELECT id, storage_key, thumbnail_key FROM inspection_photos')).rows.map((row) => ({ id: String(row[0]), keys: [String(row[1]), String(row[2])] }));
+    const photoRows = (await db.execute('SELECT id, storage_key, thumbnail_key FROM inspection_photos')).rows.map(
+      (row) => ({ id: String(row[0]), keys: [String(row[1]), String(row[2])] }),
+    );
     const folder = join(server.dataDir, 'photos');
     const files = existsSync(folder) ? readdirSync(folder) : [];
     const partialFiles = files.filter((name) => name.endsWith('.partial'));
     const servedPartials: string[] = [];
     for (const name of partialFiles.slice(0, 5)) {
-      for (const path of [`/api/photos/${encodeURIComponent(name)}`, `/api/photos/${encodeURIComponent(name.replace(/^\./, '').replace(/\.[^.]+\.partial$/, ''))}`]) {
+      for (const path of [
+        `/api/photos/${encodeURIComponent(name)}`,
+        `/api/photos/${encodeURIComponent(name.replace(/^\./, '').replace(/\.[^.]+\.partial$/, ''))}`,
+      ]) {
         const response = await client.request(path);
         await response.arrayBuffer();
         if (response.status !== 404) servedPartials.push(`${path} → ${response.status}`);
@@ -138,7 +171,9 @@ export async function checkAfterRestart(server: RunningServer, client: ApiClient
       migrationsApplied: health.body.migrationsApplied,
       missingRuns: [...acknowledged.runs].filter((id) => !runIds.has(id)),
       missingPhotos: [...acknowledged.photos].filter((id) => !photoIds.has(id)),
-      brokenPhotoRows: photoRows.filter((row) => !row.keys.every((key) => isWholeJpeg(join(folder, key)))).map((row) => row.id),
+      brokenPhotoRows: photoRows
+        .filter((row) => !row.keys.every((key) => isWholeJpeg(join(folder, key))))
+        .map((row) => row.id),
       partialFiles,
       servedPartials,
     };
@@ -152,7 +187,8 @@ export async function assertPhotoColumns(databaseUrl: string): Promise<void> {
   const db = createClient({ url: databaseUrl });
   try {
     const columns = (await db.execute('PRAGMA table_info(inspection_photos)')).rows.map((row) => String(row[1]));
-    for (const name of ['id', 'storage_key', 'thumbnail_key']) if (!columns.includes(name)) throw new Error(`inspection_photos has no column ${name}: ${columns.join(', ')}`);
+    for (const name of ['id', 'storage_key', 'thumbnail_key'])
+      if (!columns.includes(name)) throw new Error(`inspection_photos has no column ${name}: ${columns.join(', ')}`);
   } finally {
     db.close();
   }

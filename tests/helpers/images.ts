@@ -25,7 +25,12 @@ export function cameraJpeg(): Promise<Buffer> {
     .withMetadata({ orientation: 6 })
     .withExifMerge({
       IFD0: { Make: CAMERA_MAKE, Model: 'Pit Camera 9' },
-      IFD3: { GPSLatitudeRef: 'N', GPSLatitude: '40/1 26/1 4614/100', GPSLongitudeRef: 'W', GPSLongitude: '79/1 58/1 3600/100' },
+      IFD3: {
+        GPSLatitudeRef: 'N',
+        GPSLatitude: '40/1 26/1 4614/100',
+        GPSLongitudeRef: 'W',
+        GPSLongitude: '79/1 58/1 3600/100',
+      },
     })
     .withXmp(XMP)
     .jpeg({ quality: 90 })
@@ -34,7 +39,9 @@ export function cameraJpeg(): Promise<Buffer> {
 
 /** A grey-noise photo (noise so that its scan data is large and a cut really cuts pixels). */
 export function noiseImage(format: 'jpeg' | 'png' | 'webp', width = 800, height = 600): Promise<Buffer> {
-  return sharp({ create: { width, height, channels: 3, background: 'black', noise: { type: 'gaussian', mean: 128, sigma: 40 } } })
+  return sharp({
+    create: { width, height, channels: 3, background: 'black', noise: { type: 'gaussian', mean: 128, sigma: 40 } },
+  })
     .toFormat(format)
     .toBuffer();
 }
@@ -82,12 +89,22 @@ export async function pngBomb(side = 30_000): Promise<Buffer> {
   }
   deflate.end();
   await ended;
-  return Buffer.concat([PNG_SIGNATURE, pngChunk('IHDR', pngHeader(side, 0)), pngChunk('IDAT', Buffer.concat(compressed)), pngChunk('IEND', Buffer.alloc(0))]);
+  return Buffer.concat([
+    PNG_SIGNATURE,
+    pngChunk('IHDR', pngHeader(side, 0)),
+    pngChunk('IDAT', Buffer.concat(compressed)),
+    pngChunk('IEND', Buffer.alloc(0)),
+  ]);
 }
 
 /** Under 100 bytes: a PNG header declaring `side`×`side` RGB pixels with almost no data behind it. */
 export function pngHeaderBomb(side = 30_000): Buffer {
-  return Buffer.concat([PNG_SIGNATURE, pngChunk('IHDR', pngHeader(side, 2)), pngChunk('IDAT', deflateSync(Buffer.alloc(1024))), pngChunk('IEND', Buffer.alloc(0))]);
+  return Buffer.concat([
+    PNG_SIGNATURE,
+    pngChunk('IHDR', pngHeader(side, 2)),
+    pngChunk('IDAT', deflateSync(Buffer.alloc(1024))),
+    pngChunk('IEND', Buffer.alloc(0)),
+  ]);
 }
 
 const PNG_SIGNATURE = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
@@ -111,7 +128,11 @@ export function readExifTags(exif: Buffer): { ifd0: number[]; gps: number[] } {
   const little = tiff.toString('latin1', 0, 2) === 'II';
   const u16 = (at: number) => (little ? tiff.readUInt16LE(at) : tiff.readUInt16BE(at));
   const u32 = (at: number) => (little ? tiff.readUInt32LE(at) : tiff.readUInt32BE(at));
-  const entries = (offset: number) => Array.from({ length: u16(offset) }, (_, i) => ({ tag: u16(offset + 2 + i * 12), value: u32(offset + 2 + i * 12 + 8) }));
+  const entries = (offset: number) =>
+    Array.from({ length: u16(offset) }, (_, i) => ({
+      tag: u16(offset + 2 + i * 12),
+      value: u32(offset + 2 + i * 12 + 8),
+    }));
   const ifd0 = entries(u32(4));
   const gpsPointer = ifd0.find((entry) => entry.tag === 0x8825);
   return { ifd0: ifd0.map((e) => e.tag), gps: gpsPointer ? entries(gpsPointer.value).map((e) => e.tag) : [] };
@@ -131,7 +152,12 @@ export async function uploadPhoto(
   options: { side?: string | null; filename?: string; type?: string } = {},
 ): Promise<{ status: number; body: any; headers: Headers }> {
   const form = new FormData();
-  if (bytes) form.set('file', new Blob([new Uint8Array(bytes)], { type: options.type ?? 'image/jpeg' }), options.filename ?? 'pattern.jpg');
+  if (bytes)
+    form.set(
+      'file',
+      new Blob([new Uint8Array(bytes)], { type: options.type ?? 'image/jpeg' }),
+      options.filename ?? 'pattern.jpg',
+    );
   if (options.side !== null) form.set('side', options.side ?? 'drive');
   const response = await client.request(`/api/inspections/${inspectionId}/photos`, { method: 'POST', body: form });
   const text = await response.text();

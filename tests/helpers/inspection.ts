@@ -21,10 +21,17 @@ export function newKey(): string {
 
 /** Creates and submits an inspection; returns its id. */
 export async function submitInspection(client: ApiClient, body: Record<string, unknown>): Promise<string> {
-  const created = await client.request('/api/inspections', { method: 'POST', headers: { 'content-type': 'application/json', 'idempotency-key': newKey() }, body: JSON.stringify(body) });
+  const created = await client.request('/api/inspections', {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', 'idempotency-key': newKey() },
+    body: JSON.stringify(body),
+  });
   const draft = (await created.json()) as { id: string };
   if (created.status !== 201) throw new Error(`create failed ${created.status}: ${JSON.stringify(draft)}`);
-  const submitted = await client.request(`/api/inspections/${draft.id}/submit`, { method: 'POST', headers: { 'idempotency-key': newKey() } });
+  const submitted = await client.request(`/api/inspections/${draft.id}/submit`, {
+    method: 'POST',
+    headers: { 'idempotency-key': newKey() },
+  });
   if (submitted.status !== 200) throw new Error(`submit failed ${submitted.status}: ${await submitted.text()}`);
   return draft.id;
 }

@@ -1,6 +1,12 @@
 import type { ApiClient } from './api-client';
 
-const SHEET = { inspectedAt: '2026-06-01T10:00:00Z', runsAtInspection: 12, unit: 'in', resolution: '0.001in', readings: [0.009, 0.01, 0.011] } as const;
+const SHEET = {
+  inspectedAt: '2026-06-01T10:00:00Z',
+  runsAtInspection: 12,
+  unit: 'in',
+  resolution: '0.001in',
+  readings: [0.009, 0.01, 0.011],
+} as const;
 
 /** A draft inspection of `gearSetId`, recorded through POST /api/inspections by `client`'s person in their current team. */
 export async function createInspection(client: ApiClient, gearSetId: string): Promise<string> {

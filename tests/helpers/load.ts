@@ -67,7 +67,8 @@ export async function runWriteLoad(options: WriteLoadOptions): Promise<WriteLoad
     for (let i = 0; i < options.maxRequestsPerWorker && performance.now() < deadline; i += 1) {
       const isRun = (i + index) % 2 === 0;
       if (!isRun) inspectionRequests += 1;
-      const repeat = !isRun && keys.length > 0 && inspectionRequests % repeatEvery === 0 ? keys[i % keys.length] : undefined;
+      const repeat =
+        !isRun && keys.length > 0 && inspectionRequests % repeatEvery === 0 ? keys[i % keys.length] : undefined;
       const key = repeat?.key ?? `load-${tag}-${index}-${i}`;
       // Distinct times in the past (a run more than a day ahead is refused): a minute apart, 10,000 per worker.
       const at = new Date(Date.UTC(2024, 0, 1) + (index * 10_000 + i) * 60_000).toISOString();
@@ -76,7 +77,11 @@ export async function runWriteLoad(options: WriteLoadOptions): Promise<WriteLoad
       let text = '';
       try {
         const response = isRun
-          ? await client.request('/api/runs', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ carId: options.carId, at, event: 'Load test', notes: `worker ${index} #${i}` }) })
+          ? await client.request('/api/runs', {
+              method: 'POST',
+              headers: { 'content-type': 'application/json' },
+              body: JSON.stringify({ carId: options.carId, at, event: 'Load test', notes: `worker ${index} #${i}` }),
+            })
           : await client.request('/api/inspections', {
               method: 'POST',
               headers: { 'content-type': 'application/json', 'idempotency-key': key },
@@ -85,7 +90,9 @@ export async function runWriteLoad(options: WriteLoadOptions): Promise<WriteLoad
         status = response.status;
         text = await response.text();
       } catch (error) {
-        result.networkErrors.push(`${isRun ? 'run' : 'inspection'}: ${(error as Error).message} ${String((error as Error).cause ?? '')}`);
+        result.networkErrors.push(
+          `${isRun ? 'run' : 'inspection'}: ${(error as Error).message} ${String((error as Error).cause ?? '')}`,
+        );
         continue;
       }
       const ms = performance.now() - t0;
@@ -115,8 +122,11 @@ export async function listAllIds(client: ApiClient, path: string, maxPages = 100
   let cursor: string | null = null;
   for (let page = 0; page < maxPages; page += 1) {
     const separator = path.includes('?') ? '&' : '?';
-    const answer: { status: number; body: { items: { id: string }[]; nextCursor: string | null } } = await client.get(`${path}${separator}limit=500${cursor ? `&cursor=${encodeURIComponent(cursor)}` : ''}`);
-    if (answer.status !== 200) throw new Error(`GET ${path}: ${answer.status} ${JSON.stringify(answer.body).slice(0, 300)}`);
+    const answer: { status: number; body: { items: { id: string }[]; nextCursor: string | null } } = await client.get(
+      `${path}${separator}limit=500${cursor ? `&cursor=${encodeURIComponent(cursor)}` : ''}`,
+    );
+    if (answer.status !== 200)
+      throw new Error(`GET ${path}: ${answer.status} ${JSON.stringify(answer.body).slice(0, 300)}`);
     ids.push(...answer.body.items.map((item) => item.id));
     cursor = answer.body.nextCursor;
     if (!cursor) return ids;
@@ -139,5 +149,8 @@ export function describeLatencies(label: string, values: number[], elapsedMs: nu
 
 /** The statuses as `201×812, 200×40`. */
 export function describeStatuses(statuses: Map<number, number>): string {
-  return [...statuses].sort(([a], [b]) => a - b).map(([status, count]) => `${status}×${count}`).join(', ');
+  return [...statuses]
+    .sort(([a], [b]) => a - b)
+    .map(([status, count]) => `${status}×${count}`)
+    .join(', ');
 }

@@ -35,7 +35,9 @@ export function holdWriteLock(databaseUrl: string, holdMs: number): Promise<Held
     let out = '';
     let held = false;
     const released = new Promise<void>((resolveReleased, rejectReleased) => {
-      child.on('exit', (code) => (code === 0 ? resolveReleased() : rejectReleased(new Error(`lock holder exited ${code}: ${out}`))));
+      child.on('exit', (code) =>
+        code === 0 ? resolveReleased() : rejectReleased(new Error(`lock holder exited ${code}: ${out}`)),
+      );
     });
     released.catch(() => undefined);
     child.stdout.on('data', (chunk) => {

@@ -32,21 +32,34 @@ export function freshSerial(prefix = 'REC'): string {
 
 async function created(answer: Promise<{ status: number; body: any }>, what: string): Promise<string> {
   const { status, body } = await answer;
-  if (status !== 201 || typeof body?.id !== 'string') throw new Error(`making ${what}: ${status} ${JSON.stringify(body).slice(0, 300)}`);
+  if (status !== 201 || typeof body?.id !== 'string')
+    throw new Error(`making ${what}: ${status} ${JSON.stringify(body).slice(0, 300)}`);
   return body.id;
 }
 
 /** A small real PNG, quick to re-encode. */
 export function smallPng(): Promise<Buffer> {
-  return sharp({ create: { width: 48, height: 32, channels: 3, background: { r: 200, g: 120, b: 40 } } }).png().toBuffer();
+  return sharp({ create: { width: 48, height: 32, channels: 3, background: { r: 200, g: 120, b: 40 } } })
+    .png()
+    .toBuffer();
 }
 
 /** Makes a car, assembly, part, gear set, run and review with `manager` (owner or crew chief), and a draft with a photo by `author`. */
-export async function makeTeamRecords(manager: ApiClient, author: ApiClient, ids: { teamId: string; memberId: string }): Promise<TeamRecords> {
+export async function makeTeamRecords(
+  manager: ApiClient,
+  author: ApiClient,
+  ids: { teamId: string; memberId: string },
+): Promise<TeamRecords> {
   const carId = await created(manager.post('/api/cars', { name: freshSerial('Car') }), 'a car');
-  const assemblyId = await created(manager.post('/api/assemblies', { serial: freshSerial('AS'), name: 'Rear end' }), 'an assembly');
+  const assemblyId = await created(
+    manager.post('/api/assemblies', { serial: freshSerial('AS'), name: 'Rear end' }),
+    'an assembly',
+  );
   const partId = await created(manager.post('/api/parts', { kind: 'bearing', serial: freshSerial('BR') }), 'a part');
-  const gearSetId = await created(manager.post('/api/gear-sets', { serial: freshSerial('GS'), ringTeeth: 41, pinionTeeth: 10 }), 'a gear set');
+  const gearSetId = await created(
+    manager.post('/api/gear-sets', { serial: freshSerial('GS'), ringTeeth: 41, pinionTeeth: 10 }),
+    'a gear set',
+  );
   const runId = await created(manager.post('/api/runs', { carId, at: '2026-06-01T10:00:00Z' }), 'a run');
   const inspectionId = await createInspection(author, gearSetId);
   const photo = await uploadPhoto(author, inspectionId, await smallPng(), { type: 'image/png', filename: 'p.png' });
@@ -55,7 +68,19 @@ export async function makeTeamRecords(manager: ApiClient, author: ApiClient, ids
   const profiles = await manager.get<{ items: { profileId: string }[] }>('/api/tolerance-profiles');
   const profileId = profiles.body.items[0]?.profileId;
   if (!profileId) throw new Error(`no tolerance profile: ${JSON.stringify(profiles.body)}`);
-  return { teamId: ids.teamId, memberId: ids.memberId, carId, assemblyId, partId, gearSetId, runId, inspectionId, photoId: photo.body.id as string, reviewId, profileId };
+  return {
+    teamId: ids.teamId,
+    memberId: ids.memberId,
+    carId,
+    assemblyId,
+    partId,
+    gearSetId,
+    runId,
+    inspectionId,
+    photoId: photo.body.id as string,
+    reviewId,
+    profileId,
+  };
 }
 
 /** The values for every [param] of a route (API or page) from a team's records; the first path segment names the kind. */

@@ -29,7 +29,10 @@ function walk(folder: string): string[] {
 
 /** `src/pages/api/runs/index.ts` → `/api/runs`; `[id].csv.ts` → `[id].csv`. */
 export function fileToPattern(path: string): string {
-  const route = relative(PAGES, path).split(sep).join('/').replace(/\.(ts|js|astro)$/, '');
+  const route = relative(PAGES, path)
+    .split(sep)
+    .join('/')
+    .replace(/\.(ts|js|astro)$/, '');
   const pattern = `/${route}`.replace(/\/index$/, '');
   return pattern === '' ? '/' : pattern;
 }
@@ -37,11 +40,15 @@ export function fileToPattern(path: string): string {
 /** The HTTP methods a route file exports: `export const GET = …` and `export const { GET, POST } = …`. */
 export function exportedMethods(source: string): HttpMethod[] {
   const found = new Set<string>();
-  for (const match of source.matchAll(/export\s+(?:const|let|async\s+function|function)\s+(GET|POST|PUT|PATCH|DELETE|ALL)\b/g)) found.add(match[1]!);
+  for (const match of source.matchAll(
+    /export\s+(?:const|let|async\s+function|function)\s+(GET|POST|PUT|PATCH|DELETE|ALL)\b/g,
+  ))
+    found.add(match[1]!);
   for (const match of source.matchAll(/export\s+const\s*\{([^}]*)\}/g)) {
     for (const name of match[1]!.split(',').map((part) => part.split(':')[0]!.trim())) found.add(name);
   }
-  if (found.has('ALL')) throw new Error('A route exports ALL: list its methods one by one so the tests can check each.');
+  if (found.has('ALL'))
+    throw new Error('A route exports ALL: list its methods one by one so the tests can check each.');
   return HTTP_METHODS.filter((method) => found.has(method));
 }
 
@@ -49,7 +56,11 @@ export function exportedMethods(source: string): HttpMethod[] {
 export function listApiRoutes(): RouteFile[] {
   return walk(join(PAGES, 'api'))
     .filter((path) => /\.(ts|js)$/.test(path))
-    .map((path) => ({ pattern: fileToPattern(path), file: relative(PROJECT_ROOT, path), methods: exportedMethods(readFileSync(path, 'utf8')) }))
+    .map((path) => ({
+      pattern: fileToPattern(path),
+      file: relative(PROJECT_ROOT, path),
+      methods: exportedMethods(readFileSync(path, 'utf8')),
+    }))
     .sort((a, b) => a.pattern.localeCompare(b.pattern));
 }
 
@@ -65,7 +76,11 @@ export function listPageRoutes(): RouteFile[] {
 export function listOtherEndpoints(): RouteFile[] {
   return walk(PAGES)
     .filter((path) => /\.(ts|js)$/.test(path) && !relative(PAGES, path).startsWith(`api${sep}`))
-    .map((path) => ({ pattern: fileToPattern(path), file: relative(PROJECT_ROOT, path), methods: exportedMethods(readFileSync(path, 'utf8')) }))
+    .map((path) => ({
+      pattern: fileToPattern(path),
+      file: relative(PROJECT_ROOT, path),
+      methods: exportedMethods(readFileSync(path, 'utf8')),
+    }))
     .sort((a, b) => a.pattern.localeCompare(b.pattern));
 }
 

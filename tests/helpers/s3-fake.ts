@@ -17,17 +17,35 @@ export class S3Fake {
 
   static async start(): Promise<S3Fake> {
     const directory = mkdtempSync(join(tmpdir(), 'lashline-s3-'));
-    const server = new S3rver({ address: '127.0.0.1', port: 0, silent: true, directory, configureBuckets: [{ name: TEST_BUCKET, configs: [] }] });
+    const server = new S3rver({
+      address: '127.0.0.1',
+      port: 0,
+      silent: true,
+      directory,
+      configureBuckets: [{ name: TEST_BUCKET, configs: [] }],
+    });
     const { port } = await server.run();
     const endpoint = `http://127.0.0.1:${port}`;
     // s3rver accepts the keys S3RVER / S3RVER.
-    const client = new S3Client({ endpoint, region: 'us-east-1', forcePathStyle: true, credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' } });
+    const client = new S3Client({
+      endpoint,
+      region: 'us-east-1',
+      forcePathStyle: true,
+      credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' },
+    });
     return new S3Fake(server, directory, endpoint, client);
   }
 
   /** The S3_* variables that point the server at this bucket. */
   environment(): Record<string, string> {
-    return { S3_BUCKET: TEST_BUCKET, S3_ENDPOINT: this.endpoint, S3_REGION: 'us-east-1', S3_ACCESS_KEY_ID: 'S3RVER', S3_SECRET_ACCESS_KEY: 'S3RVER', S3_FORCE_PATH_STYLE: 'true' };
+    return {
+      S3_BUCKET: TEST_BUCKET,
+      S3_ENDPOINT: this.endpoint,
+      S3_REGION: 'us-east-1',
+      S3_ACCESS_KEY_ID: 'S3RVER',
+      S3_SECRET_ACCESS_KEY: 'S3RVER',
+      S3_FORCE_PATH_STYLE: 'true',
+    };
   }
 
   /** Every key in the bucket, sorted. */

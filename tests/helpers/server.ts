@@ -57,7 +57,9 @@ function runToEnd(command: string, args: string[], env: NodeJS.ProcessEnv): Prom
     let out = '';
     child.stdout.on('data', (chunk) => (out += chunk));
     child.stderr.on('data', (chunk) => (out += chunk));
-    child.on('exit', (code) => (code === 0 ? resolveRun(out) : reject(new Error(`${command} ${args.join(' ')} failed:\n${out}`))));
+    child.on('exit', (code) =>
+      code === 0 ? resolveRun(out) : reject(new Error(`${command} ${args.join(' ')} failed:\n${out}`)),
+    );
   });
 }
 

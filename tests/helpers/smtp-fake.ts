@@ -48,6 +48,8 @@ export class SmtpFake {
       if (found) return found;
       await new Promise((r) => setTimeout(r, 100));
     }
-    throw new Error(`no matching mail within ${timeoutMs} ms; received: ${JSON.stringify(this.received.map((m) => m.subject))}`);
+    throw new Error(
+      `no matching mail within ${timeoutMs} ms; received: ${JSON.stringify(this.received.map((m) => m.subject))}`,
+    );
   }
 }

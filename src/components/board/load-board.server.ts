@@ -28,7 +28,12 @@ export interface BoardData {
 export async function loadBoard(access: TeamAccess): Promise<BoardData> {
   const teamId = access.team.id;
   const units = readerUnitsOf(access);
-  const [sets, assemblies, cars, settings] = await Promise.all([listParts(teamId, 'gear-set'), listAssemblies(teamId), listCars(teamId), readTeamSettings(teamId)]);
+  const [sets, assemblies, cars, settings] = await Promise.all([
+    listParts(teamId, 'gear-set'),
+    listAssemblies(teamId),
+    listCars(teamId),
+    readTeamSettings(teamId),
+  ]);
   const inUse = sets.filter((s) => s.status !== 'retired' && s.status !== 'scrapped');
   const analyses = await Promise.all(inUse.map((s) => analyseStoredGearSet(teamId, s.id, units)));
   const carName = (carId: string) => cars.find((c) => c.id === carId)?.name ?? null;
@@ -40,8 +45,14 @@ export async function loadBoard(access: TeamAccess): Promise<BoardData> {
   const entries = inUse.map((set, i): BoardEntry => {
     const analysis = analyses[i]!;
     const mean = analysis.trends.find((t) => t.measure === 'backlash-mean');
-    const band = mean && mean.limits.min !== undefined && mean.limits.max !== undefined ? { min: mean.limits.min, max: mean.limits.max } : null;
-    return { ...toBoardRow(set, analysis, carOf, carName), spark: { points: mean?.points.map((p) => ({ runs: p.runs, value: p.value })) ?? [], band } };
+    const band =
+      mean && mean.limits.min !== undefined && mean.limits.max !== undefined
+        ? { min: mean.limits.min, max: mean.limits.max }
+        : null;
+    return {
+      ...toBoardRow(set, analysis, carOf, carName),
+      spark: { points: mean?.points.map((p) => ({ runs: p.runs, value: p.value })) ?? [], band },
+    };
   });
   return {
     gearSetCount: sets.length,

@@ -14,13 +14,19 @@ export function AddRecords({ say, onSaved }: Props) {
   return (
     <div className="grid gap-6 md:grid-cols-2">
       <section aria-labelledby="add-car-heading" className="card">
-        <h2 id="add-car-heading" className="mb-3">Add a car</h2>
+        <h2 id="add-car-heading" className="mb-3">
+          Add a car
+        </h2>
         {say('new-car')}
         <RecordForm<CarView>
           endpoint="/api/cars"
           submitLabel="Add the car"
           fields={[
-            { name: 'name', label: 'Number or name', hint: 'As the crew says it, e.g. 714 Ember. CSV imports match it exactly.' },
+            {
+              name: 'name',
+              label: 'Number or name',
+              hint: 'As the crew says it, e.g. 714 Ember. CSV imports match it exactly.',
+            },
             { name: 'carClass', label: 'Class', optional: true },
             { name: 'notes', label: 'Notes', optional: true, multiline: true },
           ]}
@@ -28,7 +34,9 @@ export function AddRecords({ say, onSaved }: Props) {
         />
       </section>
       <section aria-labelledby="add-assembly-heading" className="card">
-        <h2 id="add-assembly-heading" className="mb-3">Add a rear-end assembly</h2>
+        <h2 id="add-assembly-heading" className="mb-3">
+          Add a rear-end assembly
+        </h2>
         {say('new-assembly')}
         <RecordForm<AssemblyView>
           endpoint="/api/assemblies"

@@ -23,7 +23,10 @@ export function AssemblyContents({ assembly, inside, loose, dueWithin, canInstal
   const holdsGearSet = inside.find((p) => p.kind === 'gear-set');
   const options = loose
     .filter((p) => !(holdsGearSet && p.kind === 'gear-set'))
-    .map((p) => ({ value: p.id, label: `${p.serial} — ${PART_KIND_LABELS[p.kind]}${p.ratioLabel ? ` ${p.ratioLabel}` : ''}, ${p.totalRuns} runs` }));
+    .map((p) => ({
+      value: p.id,
+      label: `${p.serial} — ${PART_KIND_LABELS[p.kind]}${p.ratioLabel ? ` ${p.ratioLabel}` : ''}, ${p.totalRuns} runs`,
+    }));
   return (
     <div className="flex flex-col gap-3">
       <AssemblyParts
@@ -32,7 +35,9 @@ export function AssemblyContents({ assembly, inside, loose, dueWithin, canInstal
         dueWithin={dueWithin}
         canInstall={canInstall}
         busy={busy}
-        onRemove={(part) => onMove({ action: 'remove', partId: part.id }, assembly.id, `${part.serial} is out of ${assembly.serial}.`)}
+        onRemove={(part) =>
+          onMove({ action: 'remove', partId: part.id }, assembly.id, `${part.serial} is out of ${assembly.serial}.`)
+        }
       />
       {canInstall && (
         <FitPicker
@@ -43,11 +48,19 @@ export function AssemblyContents({ assembly, inside, loose, dueWithin, canInstal
           busy={busy}
           onFit={(partId) => {
             const part = loose.find((p) => p.id === partId);
-            void onMove({ action: 'install', partId, assemblyId: assembly.id }, assembly.id, `${part?.serial ?? 'The part'} is in ${assembly.serial}.`);
+            void onMove(
+              { action: 'install', partId, assemblyId: assembly.id },
+              assembly.id,
+              `${part?.serial ?? 'The part'} is in ${assembly.serial}.`,
+            );
           }}
         />
       )}
-      {canInstall && holdsGearSet && <p className="text-sm text-ink-soft">{assembly.serial} holds gear set {holdsGearSet.serial}; take it out to fit another.</p>}
+      {canInstall && holdsGearSet && (
+        <p className="text-sm text-ink-soft">
+          {assembly.serial} holds gear set {holdsGearSet.serial}; take it out to fit another.
+        </p>
+      )}
     </div>
   );
 }

@@ -19,12 +19,20 @@ export function AssemblyParts({ placeName, parts, dueWithin, canInstall, busy, o
   return (
     <ul className="flex flex-col divide-y divide-rule border-y border-rule">
       {parts.map((part) => (
-        <li key={part.id} className="flex flex-wrap items-center gap-x-4 gap-y-2 py-2" data-testid="installed-part" data-serial={part.serial}>
+        <li
+          key={part.id}
+          className="flex flex-wrap items-center gap-x-4 gap-y-2 py-2"
+          data-testid="installed-part"
+          data-serial={part.serial}
+        >
           <div className="min-w-40 flex-1">
             <a href={`/parts/${encodeURIComponent(part.id)}`} className="text-lg font-bold">
               {part.serial}
             </a>{' '}
-            <span className="text-ink-soft">{PART_KIND_LABELS[part.kind]}{part.ratioLabel ? ` ${part.ratioLabel}` : ''}</span>
+            <span className="text-ink-soft">
+              {PART_KIND_LABELS[part.kind]}
+              {part.ratioLabel ? ` ${part.ratioLabel}` : ''}
+            </span>
             <div>
               <StatusMark status={part.status} />
             </div>
@@ -32,16 +40,22 @@ export function AssemblyParts({ placeName, parts, dueWithin, canInstall, busy, o
           <dl className="grid w-full grid-cols-3 gap-x-2 text-center sm:w-72">
             <div>
               <dt className="text-sm text-ink-soft">Since install</dt>
-              <dd className="text-lg font-bold tabular-nums" data-testid="since-install">{part.runsSinceInstall}</dd>
+              <dd className="text-lg font-bold tabular-nums" data-testid="since-install">
+                {part.runsSinceInstall}
+              </dd>
             </div>
             <div>
               <dt className="text-sm text-ink-soft">Total</dt>
-              <dd className="text-lg font-bold tabular-nums" data-testid="total-runs">{part.totalRuns}</dd>
+              <dd className="text-lg font-bold tabular-nums" data-testid="total-runs">
+                {part.totalRuns}
+              </dd>
             </div>
             <div>
               <dt className="text-sm text-ink-soft">Left</dt>
               <dd className="text-lg font-bold tabular-nums">{runsLeftToText(part.runsLeft)}</dd>
-              <dd><LifeMark state={lifeStateOf(part.runsLeft, dueWithin)} /></dd>
+              <dd>
+                <LifeMark state={lifeStateOf(part.runsLeft, dueWithin)} />
+              </dd>
             </div>
           </dl>
           {canInstall && (

@@ -61,24 +61,41 @@ export default function CarsIsland({ canInstall, canEdit, dueWithin, ...initial 
     // Refresh either way: a 409 usually means someone else moved it first.
     const fresh = await refresh();
     setBusy(false);
-    if (answer.ok) setMessage({ placeId, tone: 'ok', text: fresh ? done : `${done} The lists could not be refreshed; reload the page.` });
+    if (answer.ok)
+      setMessage({
+        placeId,
+        tone: 'ok',
+        text: fresh ? done : `${done} The lists could not be refreshed; reload the page.`,
+      });
     else setMessage({ placeId, tone: 'error', text: messageWithoutField(answer.problem) });
   };
 
-  const partsIn = (type: 'assembly' | 'car', id: string) => data.parts.filter((p) => p.location?.targetType === type && p.location.targetId === id);
+  const partsIn = (type: 'assembly' | 'car', id: string) =>
+    data.parts.filter((p) => p.location?.targetType === type && p.location.targetId === id);
   const loose = data.parts.filter((p) => !p.location && !OUT_OF_USE.includes(p.status));
   const shelf = data.assemblies.filter((a) => !a.carId);
   const freeCars = data.cars.filter((c) => !data.assemblies.some((a) => a.carId === c.id));
 
   const say = (placeId: string) =>
     message?.placeId === placeId ? (
-      <p className={`notice mb-3 ${message.tone === 'error' ? 'notice-error' : ''}`} role={message.tone === 'error' ? 'alert' : 'status'}>
+      <p
+        className={`notice mb-3 ${message.tone === 'error' ? 'notice-error' : ''}`}
+        role={message.tone === 'error' ? 'alert' : 'status'}
+      >
         {message.text}
       </p>
     ) : null;
 
   const assemblyBlock = (assembly: AssemblyView) => (
-    <AssemblyContents assembly={assembly} inside={partsIn('assembly', assembly.id)} loose={loose} dueWithin={dueWithin} canInstall={canInstall} busy={busy} onMove={move} />
+    <AssemblyContents
+      assembly={assembly}
+      inside={partsIn('assembly', assembly.id)}
+      loose={loose}
+      dueWithin={dueWithin}
+      canInstall={canInstall}
+      busy={busy}
+      onMove={move}
+    />
   );
 
   return (
@@ -89,9 +106,17 @@ export default function CarsIsland({ canInstall, canEdit, dueWithin, ...initial 
         const direct = partsIn('car', car.id);
         return (
           <section key={car.id} aria-labelledby={`car-${car.id}`} className="card" data-testid="car-card">
-            <h2 id={`car-${car.id}`} className="text-2xl">{car.name}</h2>
+            <h2 id={`car-${car.id}`} className="text-2xl">
+              {car.name}
+            </h2>
             <p className="mb-3 text-ink-soft">
-              {[car.carClass, `${car.totalRuns} runs logged`, car.lastRunAt ? `last ${isoToText(car.lastRunAt, hydrated)}` : null].filter(Boolean).join(' · ')}
+              {[
+                car.carClass,
+                `${car.totalRuns} runs logged`,
+                car.lastRunAt ? `last ${isoToText(car.lastRunAt, hydrated)}` : null,
+              ]
+                .filter(Boolean)
+                .join(' · ')}
             </p>
             {say(car.id)}
             {assembly ? (
@@ -109,7 +134,13 @@ export default function CarsIsland({ canInstall, canEdit, dueWithin, ...initial 
                       question={`Take ${assembly.serial} out of ${car.name}? Its parts stay in it, and stop counting this car’s runs.`}
                       confirmLabel="Yes, take it out"
                       busy={busy}
-                      onConfirm={() => move({ action: 'remove', assemblyId: assembly.id }, car.id, `${assembly.serial} is out of ${car.name} and on the shelf.`)}
+                      onConfirm={() =>
+                        move(
+                          { action: 'remove', assemblyId: assembly.id },
+                          car.id,
+                          `${assembly.serial} is out of ${car.name} and on the shelf.`,
+                        )
+                      }
                     />
                   )}
                 </div>
@@ -128,7 +159,11 @@ export default function CarsIsland({ canInstall, canEdit, dueWithin, ...initial 
                     busy={busy}
                     onFit={(assemblyId) => {
                       const a = data.assemblies.find((x) => x.id === assemblyId);
-                      void move({ action: 'install', assemblyId, carId: car.id }, car.id, `${a?.serial ?? 'The rear end'} is in ${car.name}.`);
+                      void move(
+                        { action: 'install', assemblyId, carId: car.id },
+                        car.id,
+                        `${a?.serial ?? 'The rear end'} is in ${car.name}.`,
+                      );
                     }}
                   />
                 )}
@@ -143,7 +178,9 @@ export default function CarsIsland({ canInstall, canEdit, dueWithin, ...initial 
                   dueWithin={dueWithin}
                   canInstall={canInstall}
                   busy={busy}
-                  onRemove={(part) => move({ action: 'remove', partId: part.id }, car.id, `${part.serial} is out of ${car.name}.`)}
+                  onRemove={(part) =>
+                    move({ action: 'remove', partId: part.id }, car.id, `${part.serial} is out of ${car.name}.`)
+                  }
                 />
               </div>
             )}
@@ -172,7 +209,11 @@ export default function CarsIsland({ canInstall, canEdit, dueWithin, ...initial 
                   busy={busy}
                   onFit={(carId) => {
                     const car = data.cars.find((c) => c.id === carId);
-                    void move({ action: 'install', assemblyId: assembly.id, carId }, assembly.id, `${assembly.serial} is in ${car?.name ?? 'the car'}.`);
+                    void move(
+                      { action: 'install', assemblyId: assembly.id, carId },
+                      assembly.id,
+                      `${assembly.serial} is in ${car?.name ?? 'the car'}.`,
+                    );
                   }}
                 />
               )}
@@ -184,21 +225,30 @@ export default function CarsIsland({ canInstall, canEdit, dueWithin, ...initial 
       </section>
 
       <section aria-labelledby="loose-heading" className="card">
-        <h2 id="loose-heading" className="mb-2">Parts not installed</h2>
+        <h2 id="loose-heading" className="mb-2">
+          Parts not installed
+        </h2>
         {loose.length === 0 ? (
           <p className="text-ink-soft">None: every usable part is in an assembly or a car.</p>
         ) : (
           <ul className="grid gap-2 sm:grid-cols-2">
             {loose.map((part) => (
               <li key={part.id} className="flex flex-wrap items-center gap-2">
-                <a href={`/parts/${encodeURIComponent(part.id)}`} className="font-bold">{part.serial}</a>
-                <span className="text-ink-soft">{PART_KIND_LABELS[part.kind]}{part.ratioLabel ? ` ${part.ratioLabel}` : ''}</span>
+                <a href={`/parts/${encodeURIComponent(part.id)}`} className="font-bold">
+                  {part.serial}
+                </a>
+                <span className="text-ink-soft">
+                  {PART_KIND_LABELS[part.kind]}
+                  {part.ratioLabel ? ` ${part.ratioLabel}` : ''}
+                </span>
                 <StatusMark status={part.status} />
               </li>
             ))}
           </ul>
         )}
-        <p className="mt-2 text-sm text-ink-soft">Retired and scrapped parts are listed on the <a href="/parts">parts page</a>.</p>
+        <p className="mt-2 text-sm text-ink-soft">
+          Retired and scrapped parts are listed on the <a href="/parts">parts page</a>.
+        </p>
       </section>
 
       {canEdit && (

@@ -28,7 +28,9 @@ export function FitPicker({ label, options, buttonLabel, emptyText, busy, onFit 
         <select id={id} value={chosen} onChange={(e) => setValue(e.target.value)}>
           <option value="">Choose…</option>
           {options.map((o) => (
-            <option key={o.value} value={o.value}>{o.label}</option>
+            <option key={o.value} value={o.value}>
+              {o.label}
+            </option>
           ))}
         </select>
       </div>

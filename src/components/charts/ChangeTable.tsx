@@ -14,9 +14,19 @@ export interface ChangeTableProps {
   linkColumns?: boolean;
 }
 
-export default function ChangeTable({ comparison, beforeLabel, afterLabel, caption = 'Change since the previous inspection', linkColumns = true }: ChangeTableProps) {
+export default function ChangeTable({
+  comparison,
+  beforeLabel,
+  afterLabel,
+  caption = 'Change since the previous inspection',
+  linkColumns = true,
+}: ChangeTableProps) {
   if (!comparison) {
-    return <p className="text-ink-soft" data-testid="change-table-empty">This is the set’s first inspection: the change shows from the next one on.</p>;
+    return (
+      <p className="text-ink-soft" data-testid="change-table-empty">
+        This is the set’s first inspection: the change shows from the next one on.
+      </p>
+    );
   }
   const { before, after } = comparison;
   const head = (side: { id: string; title: string }, label: string | undefined) =>
@@ -29,15 +39,28 @@ export default function ChangeTable({ comparison, beforeLabel, afterLabel, capti
           <thead>
             <tr>
               <th scope="col">Measure</th>
-              <th scope="col" className="num !whitespace-normal">{head(before, beforeLabel)}</th>
-              <th scope="col" className="num !whitespace-normal">{head(after, afterLabel)}</th>
-              <th scope="col" className="num">Change</th>
+              <th scope="col" className="num !whitespace-normal">
+                {head(before, beforeLabel)}
+              </th>
+              <th scope="col" className="num !whitespace-normal">
+                {head(after, afterLabel)}
+              </th>
+              <th scope="col" className="num">
+                Change
+              </th>
             </tr>
           </thead>
           <tbody>
             {comparison.rows.map((row) => (
-              <tr key={row.measure} data-measure={row.measure} data-flagged={row.flagged ? 'true' : 'false'} className={row.flagged ? 'bg-amber-wash' : undefined}>
-                <th scope="row" className="font-semibold">{row.label}</th>
+              <tr
+                key={row.measure}
+                data-measure={row.measure}
+                data-flagged={row.flagged ? 'true' : 'false'}
+                className={row.flagged ? 'bg-amber-wash' : undefined}
+              >
+                <th scope="row" className="font-semibold">
+                  {row.label}
+                </th>
                 <td className="num">{row.beforeText}</td>
                 <td className="num">{row.afterText}</td>
                 <td className="num" data-testid="change-delta">
@@ -60,7 +83,8 @@ export default function ChangeTable({ comparison, beforeLabel, afterLabel, capti
         </table>
       </div>
       <p className="mt-1 text-sm text-ink-soft" data-testid="change-summary">
-        {comparison.summary} A change is marked “changed” only when it is larger than {comparison.thresholdText} (two graduations of the coarser indicator); anything smaller the indicator could account for.
+        {comparison.summary} A change is marked “changed” only when it is larger than {comparison.thresholdText} (two
+        graduations of the coarser indicator); anything smaller the indicator could account for.
       </p>
     </div>
   );

@@ -23,15 +23,46 @@ function Legend({ shape }: { shape: TrendChartShape }) {
     .filter((s) => shape.points.some((p) => p.series === s.key))
     .map((s) => ({
       key: s.key,
-      mark: s.mark === 'circle' ? <circle cx="11" cy="8" r="5.5" fill="#15181c" /> : <path d="M11 1.5 L17.5 8 L11 14.5 L4.5 8 Z" fill="#fff" stroke="#0d4a5c" strokeWidth="2.2" />,
+      mark:
+        s.mark === 'circle' ? (
+          <circle cx="11" cy="8" r="5.5" fill="#15181c" />
+        ) : (
+          <path d="M11 1.5 L17.5 8 L11 14.5 L4.5 8 Z" fill="#fff" stroke="#0d4a5c" strokeWidth="2.2" />
+        ),
       text: s.name,
     }));
-  if (shape.points.some((p) => p.range)) items.push({ key: 'range', mark: <path d="M11 1 V15 M7 1 H15 M7 15 H15" stroke="#15181c" strokeWidth="2" />, text: 'min–max bar' });
-  if (shape.fit) items.push({ key: 'fit', mark: <path d="M1 8 H21" stroke="#0d4a5c" strokeWidth="2.5" />, text: 'fitted line' });
-  if (shape.projection) items.push({ key: 'projection', mark: <path d="M1 8 H21" stroke="#0d4a5c" strokeWidth="2.5" strokeDasharray="5 3" />, text: 'projection to the limit' });
-  for (const band of shape.bands.slice(0, 2)) items.push({ key: `band-${band.label}`, mark: <rect x="1" y="2" width="20" height="12" fill="#dcecef" stroke="#0d4a5c" strokeDasharray="3 2" />, text: band.label });
-  for (const limit of shape.limitLines) items.push({ key: `limit-${limit.label}`, mark: <path d="M1 8 H21" stroke="#9e1b1b" strokeWidth="2.5" strokeDasharray="6 3" />, text: limit.label });
-  if (shape.lifeLimit) items.push({ key: 'life', mark: <path d="M11 0 V16" stroke="#3d444d" strokeWidth="2" strokeDasharray="2 3" />, text: `${shape.lifeLimit.label} runs` });
+  if (shape.points.some((p) => p.range))
+    items.push({
+      key: 'range',
+      mark: <path d="M11 1 V15 M7 1 H15 M7 15 H15" stroke="#15181c" strokeWidth="2" />,
+      text: 'min–max bar',
+    });
+  if (shape.fit)
+    items.push({ key: 'fit', mark: <path d="M1 8 H21" stroke="#0d4a5c" strokeWidth="2.5" />, text: 'fitted line' });
+  if (shape.projection)
+    items.push({
+      key: 'projection',
+      mark: <path d="M1 8 H21" stroke="#0d4a5c" strokeWidth="2.5" strokeDasharray="5 3" />,
+      text: 'projection to the limit',
+    });
+  for (const band of shape.bands.slice(0, 2))
+    items.push({
+      key: `band-${band.label}`,
+      mark: <rect x="1" y="2" width="20" height="12" fill="#dcecef" stroke="#0d4a5c" strokeDasharray="3 2" />,
+      text: band.label,
+    });
+  for (const limit of shape.limitLines)
+    items.push({
+      key: `limit-${limit.label}`,
+      mark: <path d="M1 8 H21" stroke="#9e1b1b" strokeWidth="2.5" strokeDasharray="6 3" />,
+      text: limit.label,
+    });
+  if (shape.lifeLimit)
+    items.push({
+      key: 'life',
+      mark: <path d="M11 0 V16" stroke="#3d444d" strokeWidth="2" strokeDasharray="2 3" />,
+      text: `${shape.lifeLimit.label} runs`,
+    });
   return (
     <ul className="mb-1 flex flex-wrap gap-x-4 gap-y-1 text-sm" aria-label="Legend">
       {items.map((item) => (
@@ -48,7 +79,10 @@ function Legend({ shape }: { shape: TrendChartShape }) {
 
 /** Every figure of the chart, one row per inspection, each row a link to it. */
 export function ChartTable({ shape }: { shape: TrendChartShape }) {
-  const rows = new Map<string, { href: string; dayText: string; runs: number; cells: Map<string, { value: string; range: string | null }> }>();
+  const rows = new Map<
+    string,
+    { href: string; dayText: string; runs: number; cells: Map<string, { value: string; range: string | null }> }
+  >();
   for (const p of shape.points) {
     const row = rows.get(p.href) ?? { href: p.href, dayText: p.dayText, runs: p.runs, cells: new Map() };
     row.cells.set(p.series, { value: p.valueText, range: p.rangeText });
@@ -62,13 +96,19 @@ export function ChartTable({ shape }: { shape: TrendChartShape }) {
       <thead>
         <tr>
           <th scope="col">Inspection</th>
-          <th scope="col" className="num">Runs</th>
+          <th scope="col" className="num">
+            Runs
+          </th>
           {series.map((s) => (
             <th key={s.key} scope="col" className="num">
               {series.length === 1 ? shape.columns.value : s.name}
             </th>
           ))}
-          {withRange && <th scope="col" className="num">{shape.columns.range}</th>}
+          {withRange && (
+            <th scope="col" className="num">
+              {shape.columns.range}
+            </th>
+          )}
         </tr>
       </thead>
       <tbody>
@@ -114,12 +154,17 @@ export function ChartFigure({ shape, height, width, level = 3, action = null }: 
         <>
           <Legend shape={shape} />
           <TrendChart shape={shape} height={height} width={width} />
-          <figcaption className={`font-semibold ${shape.state === 'sparse' ? 'notice' : ''}`} data-testid={`message-${shape.key}`}>
+          <figcaption
+            className={`font-semibold ${shape.state === 'sparse' ? 'notice' : ''}`}
+            data-testid={`message-${shape.key}`}
+          >
             {shape.message}
           </figcaption>
           <p className="sr-only">{shape.summary}</p>
           <details className="mt-2">
-            <summary className="inline-flex min-h-11 cursor-pointer items-center font-semibold text-petrol">The numbers ({new Set(shape.points.map((p) => p.href)).size} inspections)</summary>
+            <summary className="inline-flex min-h-11 cursor-pointer items-center font-semibold text-petrol">
+              The numbers ({new Set(shape.points.map((p) => p.href)).size} inspections)
+            </summary>
             <div className="relative overflow-x-auto">
               <ChartTable shape={shape} />
             </div>

@@ -14,9 +14,18 @@ export interface VerdictTableProps {
   caption?: string;
 }
 
-export default function VerdictTable({ verdicts, engineCount, resolution, caption = 'Verdicts against the tolerance profile' }: VerdictTableProps) {
+export default function VerdictTable({
+  verdicts,
+  engineCount,
+  resolution,
+  caption = 'Verdicts against the tolerance profile',
+}: VerdictTableProps) {
   if (verdicts.length === 0) {
-    return <p className="text-ink-soft" data-testid="verdict-table-empty">Nothing to judge yet: the verdicts come with the readings.</p>;
+    return (
+      <p className="text-ink-soft" data-testid="verdict-table-empty">
+        Nothing to judge yet: the verdicts come with the readings.
+      </p>
+    );
   }
   const rows = verdictsToRows(verdicts, engineCount, resolution);
   return (
@@ -26,16 +35,24 @@ export default function VerdictTable({ verdicts, engineCount, resolution, captio
         <thead>
           <tr>
             <th scope="col">Measure</th>
-            <th scope="col" className="num">Value</th>
-            <th scope="col" className="num">Limit</th>
-            <th scope="col" className="num">Margin</th>
+            <th scope="col" className="num">
+              Value
+            </th>
+            <th scope="col" className="num">
+              Limit
+            </th>
+            <th scope="col" className="num">
+              Margin
+            </th>
             <th scope="col">Verdict</th>
           </tr>
         </thead>
         <tbody>
           {rows.map((row) => (
             <tr key={row.key} data-verdict={row.verdict}>
-              <th scope="row" className="font-semibold">{row.label}</th>
+              <th scope="row" className="font-semibold">
+                {row.label}
+              </th>
               <td className="num">{row.valueText}</td>
               <td className="num">{row.limitText}</td>
               <td className="num">{row.marginText}</td>

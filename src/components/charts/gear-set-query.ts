@@ -1,5 +1,12 @@
 import { QueryClient } from '@tanstack/react-query';
-import { toGearSetChartInput, type AnalysisAnswer, type GearSetChartInput, type InspectionAnswer, type ProfileAnswer, type TorqueUnitId } from '../../lib/charts/gear-set-input';
+import {
+  toGearSetChartInput,
+  type AnalysisAnswer,
+  type GearSetChartInput,
+  type InspectionAnswer,
+  type ProfileAnswer,
+  type TorqueUnitId,
+} from '../../lib/charts/gear-set-input';
 import type { LengthUnit } from '../../lib/units';
 import { getJson, type Page } from '../shared/api';
 
@@ -10,14 +17,19 @@ import { getJson, type Page } from '../shared/api';
 let client: QueryClient | null = null;
 
 export function getChartQueryClient(): QueryClient {
-  client ??= new QueryClient({ defaultOptions: { queries: { staleTime: 60_000, retry: 2, refetchOnWindowFocus: true } } });
+  client ??= new QueryClient({
+    defaultOptions: { queries: { staleTime: 60_000, retry: 2, refetchOnWindowFocus: true } },
+  });
   return client;
 }
 
 export const gearSetChartKey = (gearSetId: string) => ['gear-set-charts', gearSetId] as const;
 
 /** The three answers the charts read, trimmed to what they draw (the same function the server ran). */
-export async function fetchGearSetChartInput(gearSetId: string, units: { lengthUnit: LengthUnit; torqueUnit: TorqueUnitId }): Promise<GearSetChartInput> {
+export async function fetchGearSetChartInput(
+  gearSetId: string,
+  units: { lengthUnit: LengthUnit; torqueUnit: TorqueUnitId },
+): Promise<GearSetChartInput> {
   const id = encodeURIComponent(gearSetId);
   const [analysis, inspections, profile] = await Promise.all([
     getJson<AnalysisAnswer>(`/api/gear-sets/${id}/analysis`),

@@ -13,7 +13,11 @@ export interface PolarSource {
 }
 
 /** One inspection as a polar series in the reader's unit. */
-export function inspectionToPolarSeries(view: PolarSource, unit: LengthUnit, name = inspectionToTitle(view)): PolarSeriesInput {
+export function inspectionToPolarSeries(
+  view: PolarSource,
+  unit: LengthUnit,
+  name = inspectionToTitle(view),
+): PolarSeriesInput {
   return {
     key: view.id,
     name,

@@ -3,7 +3,12 @@ import type { GearSetAnalysis } from '../../lib/inspection/gear-set-analysis';
 import type { TeamAccess } from '../../lib/server/guard';
 import { HttpError } from '../../lib/server/http';
 import { analyseStoredGearSet } from '../../lib/server/inspections/gear-set-analysis';
-import { listInspectionRows, readerUnitsOf, toInspectionView, type InspectionView } from '../../lib/server/inspections/inspections';
+import {
+  listInspectionRows,
+  readerUnitsOf,
+  toInspectionView,
+  type InspectionView,
+} from '../../lib/server/inspections/inspections';
 import { profileForGearSet, type ProfileView } from '../../lib/server/inspections/profiles';
 import { listAssemblies } from '../../lib/server/register/assemblies';
 import { listCars } from '../../lib/server/register/cars';
@@ -51,7 +56,11 @@ export async function loadGearSetPage(access: TeamAccess, gearSetId: string): Pr
   const submitted = rows.filter((r) => r.status === 'submitted');
   const inspections = await Promise.all(submitted.map((row) => toInspectionView(teamId, row, units)));
   const loc = set.location;
-  const carId = !loc ? null : loc.targetType === 'car' ? loc.targetId : (assemblies.find((a) => a.id === loc.targetId)?.carId ?? null);
+  const carId = !loc
+    ? null
+    : loc.targetType === 'car'
+      ? loc.targetId
+      : (assemblies.find((a) => a.id === loc.targetId)?.carId ?? null);
   const car = carId ? (cars.find((c) => c.id === carId) ?? null) : null;
   return {
     set,

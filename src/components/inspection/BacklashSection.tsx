@@ -16,8 +16,13 @@ export function BacklashSection({ context, disabled }: { context: SheetContext; 
   const [readings, unit, resolution] = useWatch({ control, name: ['readings', 'unit', 'resolution'] });
   const profile = context.profile?.values ?? null;
   const set = context.gearSet;
-  const figures = computeLiveFigures(readings, unit, profile, { ringTeeth: set?.ringTeeth, pinionTeeth: set?.pinionTeeth, pressureAngleDeg: set?.pressureAngleDeg });
-  const format = (value: number) => formatLength(lengthToMm(value, unit), unit as LengthUnit, resolution as IndicatorResolutionId);
+  const figures = computeLiveFigures(readings, unit, profile, {
+    ringTeeth: set?.ringTeeth,
+    pinionTeeth: set?.pinionTeeth,
+    pressureAngleDeg: set?.pressureAngleDeg,
+  });
+  const format = (value: number) =>
+    formatLength(lengthToMm(value, unit), unit as LengthUnit, resolution as IndicatorResolutionId);
   const count = readings.length;
 
   const texts = useContext(EntryTextsContext);
@@ -38,12 +43,21 @@ export function BacklashSection({ context, disabled }: { context: SheetContext; 
   return (
     <SheetSection id="backlash" title="Backlash">
       <p className="mb-3 text-sm text-ink-soft">
-        Indicator stem at the heel end of a ring-gear tooth, in line with rotation; hold the pinion and rock the ring gear. Type thousandths as whole numbers: 10 is read as 0.010 in, 13 as 0.13 mm.
+        Indicator stem at the heel end of a ring-gear tooth, in line with rotation; hold the pinion and rock the ring
+        gear. Type thousandths as whole numbers: 10 is read as 0.010 in, 13 as 0.13 mm.
       </p>
       <div className="mb-4 flex max-w-xs flex-col gap-1">
         <label htmlFor="positions-count">Positions around the ring gear</label>
-        <p className="text-sm text-ink-soft">Position 1 is the marked tooth; the rest follow in the order of rotation.</p>
-        <select id="positions-count" value={count} onChange={(e) => changeCount(Number(e.target.value))} disabled={disabled} data-enter-next>
+        <p className="text-sm text-ink-soft">
+          Position 1 is the marked tooth; the rest follow in the order of rotation.
+        </p>
+        <select
+          id="positions-count"
+          value={count}
+          onChange={(e) => changeCount(Number(e.target.value))}
+          disabled={disabled}
+          data-enter-next
+        >
           {POSITION_CHOICES.map((n) => (
             <option key={n} value={n}>
               {n} positions, {Math.round((360 / n) * 10) / 10}° apart
@@ -52,7 +66,7 @@ export function BacklashSection({ context, disabled }: { context: SheetContext; 
         </select>
       </div>
       <div className="grid gap-5 lg:grid-cols-[1fr_auto]">
-        <fieldset className="grid content-start grid-cols-2 gap-3" disabled={disabled}>
+        <fieldset className="grid grid-cols-2 content-start gap-3" disabled={disabled}>
           <legend className="sr-only">Readings, position 1 at the marked tooth</legend>
           {readings.map((_, i) => (
             <EntryField
@@ -88,7 +102,8 @@ export function BacklashSection({ context, disabled }: { context: SheetContext; 
                   <dt>Once-per-turn part</dt>
                   <dd className="font-semibold">
                     ±{format(figures.harmonic.amplitude)} {unit}
-                    {figures.harmonic.tightestAngleDeg !== null && `, tight at ${Math.round(figures.harmonic.tightestAngleDeg)}°`}
+                    {figures.harmonic.tightestAngleDeg !== null &&
+                      `, tight at ${Math.round(figures.harmonic.tightestAngleDeg)}°`}
                   </dd>
                 </>
               )}
@@ -104,10 +119,25 @@ export function BacklashSection({ context, disabled }: { context: SheetContext; 
           )}
         </div>
         <div>
-          <h3 className="mb-1 font-bold">Against {context.profile ? `“${context.profile.name}” v${context.profile.version}` : 'the bands'}</h3>
-          {!context.profile && <p className="text-ink-soft">The set’s tolerance profile has not loaded (no connection yet); the figures are shown without verdicts.</p>}
-          {context.profile && figures.verdicts.length === 0 && <p className="text-ink-soft">Verdicts appear with the first reading.</p>}
-          {context.profile && <VerdictList verdicts={figures.verdicts} format={(v) => `${format(v)} ${unit}`} profile={context.profile} provisional={!figures.complete} />}
+          <h3 className="mb-1 font-bold">
+            Against {context.profile ? `“${context.profile.name}” v${context.profile.version}` : 'the bands'}
+          </h3>
+          {!context.profile && (
+            <p className="text-ink-soft">
+              The set’s tolerance profile has not loaded (no connection yet); the figures are shown without verdicts.
+            </p>
+          )}
+          {context.profile && figures.verdicts.length === 0 && (
+            <p className="text-ink-soft">Verdicts appear with the first reading.</p>
+          )}
+          {context.profile && (
+            <VerdictList
+              verdicts={figures.verdicts}
+              format={(v) => `${format(v)} ${unit}`}
+              profile={context.profile}
+              provisional={!figures.complete}
+            />
+          )}
         </div>
       </div>
     </SheetSection>

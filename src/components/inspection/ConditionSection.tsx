@@ -12,8 +12,17 @@ export const FINDING_LABELS: Record<(typeof TOOTH_FINDINGS)[number], string> = {
   cracked: 'Cracked teeth',
   'heat-discolouration': 'Heat discolouration',
 };
-export const AREA_LABELS: Record<(typeof CONDITION_AREAS)[number], string> = { splines: 'Splines', bearings: 'Bearings', seals: 'Seals' };
-export const SEVERITY_LABELS: Record<Severity, string> = { none: 'None', light: 'Light', moderate: 'Moderate', severe: 'Severe' };
+export const AREA_LABELS: Record<(typeof CONDITION_AREAS)[number], string> = {
+  splines: 'Splines',
+  bearings: 'Bearings',
+  seals: 'Seals',
+};
+export const SEVERITY_LABELS: Record<Severity, string> = {
+  none: 'None',
+  light: 'Light',
+  moderate: 'Moderate',
+  severe: 'Severe',
+};
 
 /** Tooth findings with a severity each, the splines, bearings and seals, and free notes. */
 export function ConditionSection({ disabled }: { disabled: boolean }) {
@@ -39,7 +48,13 @@ export function ConditionSection({ disabled }: { disabled: boolean }) {
             {TOOTH_FINDINGS.map((finding) => (
               <div key={finding} className="flex flex-col gap-1">
                 <label htmlFor={`${id}-${finding}`}>{FINDING_LABELS[finding]}</label>
-                <select id={`${id}-${finding}`} value={severityOf(finding)} onChange={(e) => setSeverity(finding, e.target.value as Severity)} data-enter-next data-testid={`finding-${finding}`}>
+                <select
+                  id={`${id}-${finding}`}
+                  value={severityOf(finding)}
+                  onChange={(e) => setSeverity(finding, e.target.value as Severity)}
+                  data-enter-next
+                  data-testid={`finding-${finding}`}
+                >
                   {SEVERITIES.map((s) => (
                     <option key={s} value={s}>
                       {SEVERITY_LABELS[s]}
@@ -56,7 +71,12 @@ export function ConditionSection({ disabled }: { disabled: boolean }) {
             {CONDITION_AREAS.map((area) => (
               <div key={area} className="flex flex-col gap-1">
                 <label htmlFor={`${id}-${area}`}>{AREA_LABELS[area]}</label>
-                <select id={`${id}-${area}`} {...register(`condition.${area}`)} data-enter-next data-testid={`area-${area}`}>
+                <select
+                  id={`${id}-${area}`}
+                  {...register(`condition.${area}`)}
+                  data-enter-next
+                  data-testid={`area-${area}`}
+                >
                   {SEVERITIES.map((s) => (
                     <option key={s} value={s}>
                       {s === 'none' ? 'No wear or damage' : SEVERITY_LABELS[s]}

@@ -51,14 +51,20 @@ function Sheet({ props, boot, store }: { props: SheetProps; boot: BootResult; st
   const textsRef = useRef<Record<string, string>>({ ...boot.draft.texts });
   const [shimRows, setShimRows] = useState<string[]>(boot.draft.shimRows);
   const shimRowsRef = useRef(shimRows);
-  const countedRef = useRef<number | null>(boot.draft.countedRuns ?? (props.mode === 'edit' ? (props.inspection?.runsAtInspection ?? null) : null));
+  const countedRef = useRef<number | null>(
+    boot.draft.countedRuns ?? (props.mode === 'edit' ? (props.inspection?.runsAtInspection ?? null) : null),
+  );
   const [online, setOnline] = useState(() => navigator.onLine);
   const [offlineReady, setOfflineReady] = useState(false);
   const [submitted, setSubmitted] = useState<InspectionViewLite | null>(null);
   const applyFieldsRef = useRef<(fields: Record<string, string>) => void>(() => {});
 
   const resolver = useMemo(() => sheetResolver(() => countedRef.current), []);
-  const form = useForm<SheetValues, unknown, InspectionDraft>({ defaultValues: boot.draft.values, resolver, mode: 'onTouched' });
+  const form = useForm<SheetValues, unknown, InspectionDraft>({
+    defaultValues: boot.draft.values,
+    resolver,
+    mode: 'onTouched',
+  });
   const [sync] = useState(
     () =>
       new DraftSync({
@@ -73,11 +79,30 @@ function Sheet({ props, boot, store }: { props: SheetProps; boot: BootResult; st
         newKey: newUuid,
       }),
   );
-  const [syncState, setSyncState] = useState<SyncState>({ serverId: boot.draft.serverId, status: boot.draft.status, savedLocallyAt: boot.restored ? boot.draft.savedLocallyAt : null, localSaveFailed: false, savedToServerAt: boot.draft.savedToServerAt, dirty: boot.draft.dirty, phase: 'idle', problem: null, submitPending: boot.draft.submitPending });
-  const { context, countedRuns } = useSheetContext({ form, sync, initial: boot.draft.context, countedRef, online, fresh: boot.fresh, countRuns: props.mode === 'new' });
+  const [syncState, setSyncState] = useState<SyncState>({
+    serverId: boot.draft.serverId,
+    status: boot.draft.status,
+    savedLocallyAt: boot.restored ? boot.draft.savedLocallyAt : null,
+    localSaveFailed: false,
+    savedToServerAt: boot.draft.savedToServerAt,
+    dirty: boot.draft.dirty,
+    phase: 'idle',
+    problem: null,
+    submitPending: boot.draft.submitPending,
+  });
+  const { context, countedRuns } = useSheetContext({
+    form,
+    sync,
+    initial: boot.draft.context,
+    countedRef,
+    online,
+    fresh: boot.fresh,
+    countRuns: props.mode === 'new',
+  });
 
   applyFieldsRef.current = (fields) => {
-    for (const [path, message] of Object.entries(fields)) form.setError(path as FieldPath<SheetValues>, { type: 'server', message });
+    for (const [path, message] of Object.entries(fields))
+      form.setError(path as FieldPath<SheetValues>, { type: 'server', message });
   };
 
   const texts = useMemo<EntryTexts>(
@@ -92,7 +117,9 @@ function Sheet({ props, boot, store }: { props: SheetProps; boot: BootResult; st
   );
 
   useEffect(() => {
-    const subscription = form.watch((values) => sync.change({ values: values as SheetValues, texts: { ...textsRef.current }, shimRows: shimRowsRef.current }));
+    const subscription = form.watch((values) =>
+      sync.change({ values: values as SheetValues, texts: { ...textsRef.current }, shimRows: shimRowsRef.current }),
+    );
     const up = () => {
       setOnline(true);
       void sync.resume();
@@ -143,7 +170,8 @@ function Sheet({ props, boot, store }: { props: SheetProps; boot: BootResult; st
     }
     const missing = findMissingForSubmit(data);
     if (missing.length) {
-      for (const m of missing) form.setError(m.path.join('.') as FieldPath<SheetValues>, { type: 'submit', message: m.message });
+      for (const m of missing)
+        form.setError(m.path.join('.') as FieldPath<SheetValues>, { type: 'submit', message: m.message });
       form.setFocus(missing[0]!.path.join('.') as FieldPath<SheetValues>);
       return;
     }
@@ -153,10 +181,22 @@ function Sheet({ props, boot, store }: { props: SheetProps; boot: BootResult; st
   return (
     <FormProvider {...form}>
       <EntryTextsContext.Provider value={texts}>
-        <form onSubmit={onSubmit} onKeyDown={moveOnEnter} noValidate data-testid="inspection-sheet" data-offline-ready={offlineReady ? 'true' : 'false'} data-server-id={serverId ?? ''} data-status={status}>
+        <form
+          onSubmit={onSubmit}
+          onKeyDown={moveOnEnter}
+          noValidate
+          data-testid="inspection-sheet"
+          data-offline-ready={offlineReady ? 'true' : 'false'}
+          data-server-id={serverId ?? ''}
+          data-status={status}
+        >
           {boot.restored && (
             <p className="notice mb-4" role="status" data-testid="restored">
-              Opened from this device’s copy{boot.draft.savedLocallyAt ? `, saved ${new Date(boot.draft.savedLocallyAt).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })}` : ''}.
+              Opened from this device’s copy
+              {boot.draft.savedLocallyAt
+                ? `, saved ${new Date(boot.draft.savedLocallyAt).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })}`
+                : ''}
+              .
             </p>
           )}
           {(submitted || status === 'submitted') && serverId && (
@@ -169,11 +209,20 @@ function Sheet({ props, boot, store }: { props: SheetProps; boot: BootResult; st
             <p className="font-bold">Before you start</p>
             <ul className="ml-5 list-disc">
               <li>Support the car on rated stands; never work under a jack alone.</li>
-              <li>Wear gloves for thread-locker (may cause an allergic skin reaction: H317, P280) and gear oil; dispose of used oil under local rules.</li>
+              <li>
+                Wear gloves for thread-locker (may cause an allergic skin reaction: H317, P280) and gear oil; dispose of
+                used oil under local rules.
+              </li>
               <li>Torque values come from the part maker; Lashline shows the team’s own figures, not specs.</li>
             </ul>
           </aside>
-          <SetupSection props={props} context={context} countedRuns={countedRuns} gearSetLocked={Boolean(serverId)} disabled={readOnly} />
+          <SetupSection
+            props={props}
+            context={context}
+            countedRuns={countedRuns}
+            gearSetLocked={Boolean(serverId)}
+            disabled={readOnly}
+          />
           <BacklashSection context={context} disabled={readOnly} />
           <MeasuresSection context={context} disabled={readOnly} shimRows={shimRows} onShimRows={onShimRows} />
           <PreloadSection context={context} disabled={readOnly} />
@@ -181,17 +230,35 @@ function Sheet({ props, boot, store }: { props: SheetProps; boot: BootResult; st
           <PhotosSection inspectionId={serverId} online={online} canChange={canChangePhotos} />
           <ConditionSection disabled={readOnly} />
           <div className="sticky bottom-0 z-10 -mx-4 flex items-center gap-3 border-t-2 border-ink-soft bg-panel px-4 py-2">
-            <p role="status" aria-live="polite" className={`min-w-0 flex-1 text-sm font-semibold sm:text-base ${saveStatus.tone === 'problem' ? 'text-alarm' : ''}`} data-testid="save-status">
-              <span aria-hidden="true">{saveStatus.tone === 'ok' ? '✓ ' : saveStatus.tone === 'problem' ? '✕ ' : '… '}</span>
+            <p
+              role="status"
+              aria-live="polite"
+              className={`min-w-0 flex-1 text-sm font-semibold sm:text-base ${saveStatus.tone === 'problem' ? 'text-alarm' : ''}`}
+              data-testid="save-status"
+            >
+              <span aria-hidden="true">
+                {saveStatus.tone === 'ok' ? '✓ ' : saveStatus.tone === 'problem' ? '✕ ' : '… '}
+              </span>
               {saveStatus.text}
             </p>
             {!readOnly && (
-              <button type="submit" className="btn" disabled={syncState.phase === 'submitting' || syncState.phase === 'saving'} data-testid="submit">
-                {editingSubmitted ? 'Save changes' : syncState.submitPending ? 'Submit (waiting for a connection)' : 'Submit inspection'}
+              <button
+                type="submit"
+                className="btn"
+                disabled={syncState.phase === 'submitting' || syncState.phase === 'saving'}
+                data-testid="submit"
+              >
+                {editingSubmitted
+                  ? 'Save changes'
+                  : syncState.submitPending
+                    ? 'Submit (waiting for a connection)'
+                    : 'Submit inspection'}
               </button>
             )}
           </div>
-          {offlineReady && <p className="mt-2 text-sm text-ink-soft">This sheet opens on this device even without a connection.</p>}
+          {offlineReady && (
+            <p className="mt-2 text-sm text-ink-soft">This sheet opens on this device even without a connection.</p>
+          )}
         </form>
       </EntryTextsContext.Provider>
     </FormProvider>
@@ -204,7 +271,10 @@ function sheetResolver(counted: () => number | null): Resolver<SheetValues, unkn
   return async (values, context, options) => {
     const result = await base(values, context, options);
     if (needsRunsReason(values.runsAtInspection, counted()) && !values.runsChangeReason?.trim()) {
-      return { values: {}, errors: { ...result.errors, runsChangeReason: { type: 'required', message: RUNS_REASON_MESSAGE } } };
+      return {
+        values: {},
+        errors: { ...result.errors, runsChangeReason: { type: 'required', message: RUNS_REASON_MESSAGE } },
+      };
     }
     return result;
   };
@@ -217,8 +287,15 @@ function moveOnEnter(event: KeyboardEvent<HTMLFormElement>): void {
   if (!(target instanceof HTMLInputElement || target instanceof HTMLSelectElement)) return;
   if (target instanceof HTMLInputElement && ['submit', 'button', 'file', 'reset'].includes(target.type)) return;
   event.preventDefault();
-  const fields = Array.from(event.currentTarget.querySelectorAll<HTMLInputElement | HTMLSelectElement>('[data-enter-next]')).filter((el) => !el.disabled && !el.closest('fieldset:disabled'));
-  const sameGroup = (el: Element) => target instanceof HTMLInputElement && target.type === 'radio' && el instanceof HTMLInputElement && el.type === 'radio' && el.name === target.name;
+  const fields = Array.from(
+    event.currentTarget.querySelectorAll<HTMLInputElement | HTMLSelectElement>('[data-enter-next]'),
+  ).filter((el) => !el.disabled && !el.closest('fieldset:disabled'));
+  const sameGroup = (el: Element) =>
+    target instanceof HTMLInputElement &&
+    target.type === 'radio' &&
+    el instanceof HTMLInputElement &&
+    el.type === 'radio' &&
+    el.name === target.name;
   const next = fields.slice(fields.indexOf(target) + 1).find((el) => !sameGroup(el));
   if (!next) return;
   next.focus();

@@ -9,20 +9,47 @@ import type { SheetContext } from './sheet-context';
 import { VerdictList } from './VerdictList';
 
 /** Ring-gear runout, the pinion depth shim stack and the carrier shims. */
-export function MeasuresSection({ context, disabled, shimRows, onShimRows }: { context: SheetContext; disabled: boolean; shimRows: string[]; onShimRows: (rows: string[]) => void }) {
+export function MeasuresSection({
+  context,
+  disabled,
+  shimRows,
+  onShimRows,
+}: {
+  context: SheetContext;
+  disabled: boolean;
+  shimRows: string[];
+  onShimRows: (rows: string[]) => void;
+}) {
   const { control } = useFormContext<SheetValues>();
   const [unit, resolution, backFace] = useWatch({ control, name: ['unit', 'resolution', 'runout.backFace'] });
-  const format = (v: number) => `${formatLength(lengthToMm(v, unit), unit as LengthUnit, resolution as IndicatorResolutionId)} ${unit}`;
+  const format = (v: number) =>
+    `${formatLength(lengthToMm(v, unit), unit as LengthUnit, resolution as IndicatorResolutionId)} ${unit}`;
   const profile = context.profile;
-  const runoutVerdict = profile && typeof backFace === 'number' ? [{ measure: 'runout-measured', value: backFace, ...judgeMeasuredRunout(backFace, unit, profile.values) }] : [];
+  const runoutVerdict =
+    profile && typeof backFace === 'number'
+      ? [{ measure: 'runout-measured', value: backFace, ...judgeMeasuredRunout(backFace, unit, profile.values) }]
+      : [];
 
   return (
     <>
       <SheetSection id="runout" title="Ring-gear runout">
         <fieldset disabled={disabled} className="grid gap-4 md:grid-cols-2">
           <legend className="sr-only">Runout</legend>
-          <EntryField name="runout.backFace" label="Back-face runout (TIR)" kind="indicator" unitLabel={unit} testId="runout-back-face" hint="Total indicated runout of the ring-gear back face over one turn." />
-          <EntryField name="runout.radial" label="Radial runout (optional)" kind="indicator" unitLabel={unit} testId="runout-radial" />
+          <EntryField
+            name="runout.backFace"
+            label="Back-face runout (TIR)"
+            kind="indicator"
+            unitLabel={unit}
+            testId="runout-back-face"
+            hint="Total indicated runout of the ring-gear back face over one turn."
+          />
+          <EntryField
+            name="runout.radial"
+            label="Radial runout (optional)"
+            kind="indicator"
+            unitLabel={unit}
+            testId="runout-radial"
+          />
         </fieldset>
         {profile && runoutVerdict.length > 0 && (
           <div className="mt-3" aria-live="polite">
@@ -52,10 +79,25 @@ export function MeasuresSection({ context, disabled, shimRows, onShimRows }: { c
       <SheetSection id="carrier" title="Carrier shims">
         <fieldset disabled={disabled} className="grid gap-4 md:grid-cols-2">
           <legend className="sr-only">Carrier shims (optional)</legend>
-          <EntryField name="carrierShims.left" label="Left carrier shim (optional)" kind="length" unitLabel={unit} testId="carrier-left" />
-          <EntryField name="carrierShims.right" label="Right carrier shim (optional)" kind="length" unitLabel={unit} testId="carrier-right" />
+          <EntryField
+            name="carrierShims.left"
+            label="Left carrier shim (optional)"
+            kind="length"
+            unitLabel={unit}
+            testId="carrier-left"
+          />
+          <EntryField
+            name="carrierShims.right"
+            label="Right carrier shim (optional)"
+            kind="length"
+            unitLabel={unit}
+            testId="carrier-right"
+          />
         </fieldset>
-        <p className="mt-2 text-sm text-ink-soft">Moving 0.05 mm (0.002 in) of shim from one side to the other changes backlash by about 0.03 mm (0.001 in) (GM 1996).</p>
+        <p className="mt-2 text-sm text-ink-soft">
+          Moving 0.05 mm (0.002 in) of shim from one side to the other changes backlash by about 0.03 mm (0.001 in) (GM
+          1996).
+        </p>
       </SheetSection>
     </>
   );
@@ -68,13 +110,31 @@ function MarkingField() {
     <div className="flex flex-col gap-1">
       <label htmlFor={id}>Pinion marking (optional)</label>
       <p className="text-sm text-ink-soft">As etched on the pinion, e.g. +2 or a depth code.</p>
-      <input id={id} type="text" maxLength={20} autoComplete="off" {...register('pinion.marking')} data-enter-next data-testid="pinion-marking" />
+      <input
+        id={id}
+        type="text"
+        maxLength={20}
+        autoComplete="off"
+        {...register('pinion.marking')}
+        data-enter-next
+        data-testid="pinion-marking"
+      />
     </div>
   );
 }
 
 /** The shim stack as rows; the form holds the thicknesses that read as numbers. */
-function ShimStack({ rows, onRows, unit, format }: { rows: string[]; onRows: (rows: string[]) => void; unit: string; format: (v: number) => string }) {
+function ShimStack({
+  rows,
+  onRows,
+  unit,
+  format,
+}: {
+  rows: string[];
+  onRows: (rows: string[]) => void;
+  unit: string;
+  format: (v: number) => string;
+}) {
   const { control } = useFormContext<SheetValues>();
   const { field, fieldState } = useController({ control, name: 'pinion.shims' });
   const [focusLast, setFocusLast] = useState(false);
@@ -94,7 +154,9 @@ function ShimStack({ rows, onRows, unit, format }: { rows: string[]; onRows: (ro
       <ol className="mb-2 flex flex-col gap-2">
         {rows.map((text, i) => {
           const id = `shim-${i}`;
-          const error = parsed[i]?.error ?? (fieldState.error as unknown as Record<number, { message?: string }> | undefined)?.[i]?.message;
+          const error =
+            parsed[i]?.error ??
+            (fieldState.error as unknown as Record<number, { message?: string }> | undefined)?.[i]?.message;
           return (
             <li key={i} className="flex flex-wrap items-end gap-2">
               <div className="flex flex-col gap-1">
@@ -117,7 +179,12 @@ function ShimStack({ rows, onRows, unit, format }: { rows: string[]; onRows: (ro
                   <span className="font-semibold text-ink-soft">{unit}</span>
                 </div>
               </div>
-              <button type="button" className="btn btn-quiet" onClick={() => update(rows.filter((_, j) => j !== i))} aria-label={`Remove shim ${i + 1}`}>
+              <button
+                type="button"
+                className="btn btn-quiet"
+                onClick={() => update(rows.filter((_, j) => j !== i))}
+                aria-label={`Remove shim ${i + 1}`}
+              >
                 Remove
               </button>
               <FieldError id={`${id}-error`} message={error} />
@@ -138,7 +205,8 @@ function ShimStack({ rows, onRows, unit, format }: { rows: string[]; onRows: (ro
           Add a shim
         </button>
         <p aria-live="polite" data-testid="shim-total">
-          Total: <strong className="tabular-nums">{shims.length ? format(total) : '—'}</strong> ({shims.length} shim{shims.length === 1 ? '' : 's'})
+          Total: <strong className="tabular-nums">{shims.length ? format(total) : '—'}</strong> ({shims.length} shim
+          {shims.length === 1 ? '' : 's'})
         </p>
       </div>
     </div>

@@ -30,7 +30,12 @@ const clamp = (n: number) => Math.min(1, Math.max(0, Math.round(n * 100) / 100))
  */
 export function movePattern(value: PatternValue | null, key: string, fine: boolean): PatternValue | null | 'clear' {
   if (key === 'Delete' || key === 'Backspace') return 'clear';
-  const moves: Record<string, [number, number]> = { ArrowLeft: [-1, 0], ArrowRight: [1, 0], ArrowUp: [0, 1], ArrowDown: [0, -1] };
+  const moves: Record<string, [number, number]> = {
+    ArrowLeft: [-1, 0],
+    ArrowRight: [1, 0],
+    ArrowUp: [0, 1],
+    ArrowDown: [0, -1],
+  };
   const move = moves[key];
   if (!move) return null;
   if (!value) return { along: 0.5, up: 0.5, length: 0.4 };
@@ -44,7 +49,17 @@ export function patternToWords(value: PatternValue | null): string {
   return `${Math.round(value.along * 100)} % from toe to heel, ${Math.round(value.up * 100)} % from flank to face`;
 }
 
-export function PatternPicker({ side, value, onChange, disabled }: { side: 'drive' | 'coast'; value: PatternValue | null; onChange: (value: PatternValue | null) => void; disabled?: boolean }) {
+export function PatternPicker({
+  side,
+  value,
+  onChange,
+  disabled,
+}: {
+  side: 'drive' | 'coast';
+  value: PatternValue | null;
+  onChange: (value: PatternValue | null) => void;
+  disabled?: boolean;
+}) {
   const id = useId();
   const place = (event: PointerEvent<SVGSVGElement>) => {
     if (disabled) return;
@@ -80,21 +95,55 @@ export function PatternPicker({ side, value, onChange, disabled }: { side: 'driv
         data-testid={`pattern-${side}`}
       >
         {/* A bevel tooth: narrower at the toe. */}
-        <path d={`M${X0} ${Y1 + 18} L${X1} ${Y1} L${X1} ${Y0} L${X0} ${Y0 - 14} Z`} fill="#f4f1ea" stroke="#3d444d" strokeWidth="2" />
-        <rect x={X0 + 0.3 * (X1 - X0)} y={Y0 - 0.7 * (Y0 - Y1)} width={0.4 * (X1 - X0)} height={0.4 * (Y0 - Y1)} fill="none" stroke="#0d4a5c" strokeWidth="1.5" strokeDasharray="5 4" />
-        <text x={X0} y={H - 6} fontSize="13" fontWeight="700" fill="#15181c">TOE</text>
-        <text x={X1} y={H - 6} fontSize="13" fontWeight="700" fill="#15181c" textAnchor="end">HEEL</text>
-        <text x={W / 2} y={18} fontSize="13" fontWeight="700" fill="#15181c" textAnchor="middle">FACE (top)</text>
-        <text x={W / 2} y={H - 6} fontSize="13" fontWeight="700" fill="#15181c" textAnchor="middle">FLANK (root)</text>
+        <path
+          d={`M${X0} ${Y1 + 18} L${X1} ${Y1} L${X1} ${Y0} L${X0} ${Y0 - 14} Z`}
+          fill="#f4f1ea"
+          stroke="#3d444d"
+          strokeWidth="2"
+        />
+        <rect
+          x={X0 + 0.3 * (X1 - X0)}
+          y={Y0 - 0.7 * (Y0 - Y1)}
+          width={0.4 * (X1 - X0)}
+          height={0.4 * (Y0 - Y1)}
+          fill="none"
+          stroke="#0d4a5c"
+          strokeWidth="1.5"
+          strokeDasharray="5 4"
+        />
+        <text x={X0} y={H - 6} fontSize="13" fontWeight="700" fill="#15181c">
+          TOE
+        </text>
+        <text x={X1} y={H - 6} fontSize="13" fontWeight="700" fill="#15181c" textAnchor="end">
+          HEEL
+        </text>
+        <text x={W / 2} y={18} fontSize="13" fontWeight="700" fill="#15181c" textAnchor="middle">
+          FACE (top)
+        </text>
+        <text x={W / 2} y={H - 6} fontSize="13" fontWeight="700" fill="#15181c" textAnchor="middle">
+          FLANK (root)
+        </text>
         {value && (
           <g data-testid={`pattern-${side}-mark`}>
-            <ellipse cx={cx} cy={cy} rx={rx} ry={0.16 * (Y0 - Y1)} fill="#0d4a5c" fillOpacity="0.35" stroke="#0d4a5c" strokeWidth="2.5" />
+            <ellipse
+              cx={cx}
+              cy={cy}
+              rx={rx}
+              ry={0.16 * (Y0 - Y1)}
+              fill="#0d4a5c"
+              fillOpacity="0.35"
+              stroke="#0d4a5c"
+              strokeWidth="2.5"
+            />
             <path d={`M${cx - 7} ${cy} H${cx + 7} M${cx} ${cy - 7} V${cy + 7}`} stroke="#15181c" strokeWidth="2.5" />
           </g>
         )}
       </svg>
       <p id={`${id}-words`} className="mt-1 text-sm" aria-live="polite" data-testid={`pattern-${side}-words`}>
-        {value ? `Placed ${patternToWords(value)}.` : 'Not placed yet: tap the tooth where the pattern sits, or focus it and press an arrow key.'} Dashed box: the usual central region.
+        {value
+          ? `Placed ${patternToWords(value)}.`
+          : 'Not placed yet: tap the tooth where the pattern sits, or focus it and press an arrow key.'}{' '}
+        Dashed box: the usual central region.
       </p>
     </div>
   );

@@ -25,7 +25,8 @@ export function PatternSection({ disabled }: { disabled: boolean }) {
         Keep hands clear of the gear mesh when turning the gears for a pattern check.
       </p>
       <p className="mb-4 text-sm text-ink-soft">
-        Drive side: the convex side of the ring-gear tooth; coast side: the concave side. Check the pattern under load (about 54–68 N·m / 40–50 lbf·ft of pinion turning resistance, GM 9-1/2 in manual).
+        Drive side: the convex side of the ring-gear tooth; coast side: the concave side. Check the pattern under load
+        (about 54–68 N·m / 40–50 lbf·ft of pinion turning resistance, GM 9-1/2 in manual).
       </p>
       <div className="grid gap-6 lg:grid-cols-2">
         <PatternSide side="drive" disabled={disabled} />
@@ -57,15 +58,50 @@ function PatternSide({ side, disabled }: { side: 'drive' | 'coast'; disabled: bo
       <div className="grid grid-cols-2 gap-3 sm:grid-cols-3">
         <div className="flex flex-col gap-1">
           <label htmlFor={`${id}-along`}>Toe → heel, %</label>
-          <input id={`${id}-along`} type="number" inputMode="numeric" min={0} max={100} step={1} value={percent(value?.along)} onChange={(e) => setPart('along', e.target.value)} data-enter-next data-testid={`pattern-${side}-along`} />
+          <input
+            id={`${id}-along`}
+            type="number"
+            inputMode="numeric"
+            min={0}
+            max={100}
+            step={1}
+            value={percent(value?.along)}
+            onChange={(e) => setPart('along', e.target.value)}
+            data-enter-next
+            data-testid={`pattern-${side}-along`}
+          />
         </div>
         <div className="flex flex-col gap-1">
           <label htmlFor={`${id}-up`}>Flank → face, %</label>
-          <input id={`${id}-up`} type="number" inputMode="numeric" min={0} max={100} step={1} value={percent(value?.up)} onChange={(e) => setPart('up', e.target.value)} data-enter-next data-testid={`pattern-${side}-up`} />
+          <input
+            id={`${id}-up`}
+            type="number"
+            inputMode="numeric"
+            min={0}
+            max={100}
+            step={1}
+            value={percent(value?.up)}
+            onChange={(e) => setPart('up', e.target.value)}
+            data-enter-next
+            data-testid={`pattern-${side}-up`}
+          />
         </div>
         <div className="col-span-2 flex flex-col gap-1 sm:col-span-1">
-          <label htmlFor={`${id}-length`}>Length: {value ? `${percent(value.length ?? 0.4)} % of the tooth` : '—'}</label>
-          <input id={`${id}-length`} type="range" min={5} max={100} step={5} value={percent(value?.length ?? 0.4)} onChange={(e) => setPart('length', e.target.value)} disabled={disabled || !value} className="!min-h-0 !border-0 !p-0 accent-petrol" data-testid={`pattern-${side}-length`} />
+          <label htmlFor={`${id}-length`}>
+            Length: {value ? `${percent(value.length ?? 0.4)} % of the tooth` : '—'}
+          </label>
+          <input
+            id={`${id}-length`}
+            type="range"
+            min={5}
+            max={100}
+            step={5}
+            value={percent(value?.length ?? 0.4)}
+            onChange={(e) => setPart('length', e.target.value)}
+            disabled={disabled || !value}
+            className="!min-h-0 !border-0 !p-0 accent-petrol"
+            data-testid={`pattern-${side}-length`}
+          />
         </div>
       </div>
       {value && (
@@ -78,7 +114,9 @@ function PatternSide({ side, disabled }: { side: 'drive' | 'coast'; disabled: bo
         <div className="notice text-sm" data-testid={`pattern-${side}-guidance`}>
           <p className="font-bold">{PLACE_WORDS[guidance.code] ?? guidance.code}</p>
           <p>{guidance.guidance}</p>
-          <p className="mt-1 text-ink-soft">Guidance only: the axle maker’s procedure and the team’s own figures govern.</p>
+          <p className="mt-1 text-ink-soft">
+            Guidance only: the axle maker’s procedure and the team’s own figures govern.
+          </p>
         </div>
       )}
     </fieldset>

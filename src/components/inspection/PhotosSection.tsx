@@ -17,7 +17,15 @@ interface Upload {
   retryable?: boolean;
 }
 
-export function PhotosSection({ inspectionId, online, canChange }: { inspectionId: string | null; online: boolean; canChange: boolean }) {
+export function PhotosSection({
+  inspectionId,
+  online,
+  canChange,
+}: {
+  inspectionId: string | null;
+  online: boolean;
+  canChange: boolean;
+}) {
   const [photos, setPhotos] = useState<PhotoView[]>([]);
   const [uploads, setUploads] = useState<Upload[]>([]);
   const [problem, setProblem] = useState('');
@@ -36,21 +44,31 @@ export function PhotosSection({ inspectionId, online, canChange }: { inspectionI
 
   const start = (upload: Upload) => {
     if (!inspectionId) return;
-    setUploads((list) => [...list.filter((u) => u.key !== upload.key), { ...upload, state: 'uploading', progress: 0, message: undefined }]);
-    const job = uploadPhoto(inspectionId, upload.file, upload.side, (progress) => setUploads((list) => list.map((u) => (u.key === upload.key ? { ...u, progress } : u))));
+    setUploads((list) => [
+      ...list.filter((u) => u.key !== upload.key),
+      { ...upload, state: 'uploading', progress: 0, message: undefined },
+    ]);
+    const job = uploadPhoto(inspectionId, upload.file, upload.side, (progress) =>
+      setUploads((list) => list.map((u) => (u.key === upload.key ? { ...u, progress } : u))),
+    );
     void job.done.then((answer) => {
       if (answer.ok) {
         setPhotos((list) => [...list, answer.data]);
         setUploads((list) => list.filter((u) => u.key !== upload.key));
       } else {
         const retryable = answer.problem.status === 0 || answer.problem.status >= 500 || answer.problem.status === 429;
-        setUploads((list) => list.map((u) => (u.key === upload.key ? { ...u, state: 'failed', message: answer.problem.message, retryable } : u)));
+        setUploads((list) =>
+          list.map((u) =>
+            u.key === upload.key ? { ...u, state: 'failed', message: answer.problem.message, retryable } : u,
+          ),
+        );
       }
     });
   };
 
   const add = (side: 'drive' | 'coast', files: FileList | null) => {
-    for (const file of Array.from(files ?? [])) start({ key: next.current++, file, side, progress: 0, state: 'uploading' });
+    for (const file of Array.from(files ?? []))
+      start({ key: next.current++, file, side, progress: 0, state: 'uploading' });
   };
 
   const remove = async (photo: PhotoView) => {
@@ -82,14 +100,42 @@ export function PhotosSection({ inspectionId, online, canChange }: { inspectionI
       )}
       <div className="grid gap-6 md:grid-cols-2">
         {(['drive', 'coast'] as const).map((side) => (
-          <PhotoSide key={side} side={side} photos={photos.filter((p) => p.side === side)} uploads={uploads.filter((u) => u.side === side)} enabled={!why} onAdd={(files) => add(side, files)} onRetry={start} onDismiss={(u) => setUploads((list) => list.filter((x) => x.key !== u.key))} onRemove={remove} />
+          <PhotoSide
+            key={side}
+            side={side}
+            photos={photos.filter((p) => p.side === side)}
+            uploads={uploads.filter((u) => u.side === side)}
+            enabled={!why}
+            onAdd={(files) => add(side, files)}
+            onRetry={start}
+            onDismiss={(u) => setUploads((list) => list.filter((x) => x.key !== u.key))}
+            onRemove={remove}
+          />
         ))}
       </div>
     </SheetSection>
   );
 }
 
-function PhotoSide({ side, photos, uploads, enabled, onAdd, onRetry, onDismiss, onRemove }: { side: 'drive' | 'coast'; photos: PhotoView[]; uploads: Upload[]; enabled: boolean; onAdd: (files: FileList | null) => void; onRetry: (u: Upload) => void; onDismiss: (u: Upload) => void; onRemove: (p: PhotoView) => void }) {
+function PhotoSide({
+  side,
+  photos,
+  uploads,
+  enabled,
+  onAdd,
+  onRetry,
+  onDismiss,
+  onRemove,
+}: {
+  side: 'drive' | 'coast';
+  photos: PhotoView[];
+  uploads: Upload[];
+  enabled: boolean;
+  onAdd: (files: FileList | null) => void;
+  onRetry: (u: Upload) => void;
+  onDismiss: (u: Upload) => void;
+  onRemove: (p: PhotoView) => void;
+}) {
   const id = useId();
   const title = side === 'drive' ? 'Drive side' : 'Coast side';
   return (
@@ -100,9 +146,21 @@ function PhotoSide({ side, photos, uploads, enabled, onAdd, onRetry, onDismiss, 
         {photos.map((photo, i) => (
           <li key={photo.id} className="flex flex-col gap-1">
             <a href={photo.url} target="_blank" rel="noopener">
-              <img src={photo.thumbnailUrl} alt={`${title} pattern photo ${i + 1} (opens the full size)`} className="aspect-square w-full rounded-md border border-rule object-cover" loading="lazy" data-testid="photo-thumbnail" />
+              <img
+                src={photo.thumbnailUrl}
+                alt={`${title} pattern photo ${i + 1} (opens the full size)`}
+                className="aspect-square w-full rounded-md border border-rule object-cover"
+                loading="lazy"
+                data-testid="photo-thumbnail"
+              />
             </a>
-            <button type="button" className="btn btn-quiet !min-h-10 !px-2 text-sm" onClick={() => onRemove(photo)} disabled={!enabled} aria-label={`Remove ${title.toLowerCase()} photo ${i + 1}`}>
+            <button
+              type="button"
+              className="btn btn-quiet !min-h-10 !px-2 text-sm"
+              onClick={() => onRemove(photo)}
+              disabled={!enabled}
+              aria-label={`Remove ${title.toLowerCase()} photo ${i + 1}`}
+            >
               Remove
             </button>
           </li>
@@ -122,7 +180,12 @@ function PhotoSide({ side, photos, uploads, enabled, onAdd, onRetry, onDismiss, 
                 <span aria-hidden="true">✕ </span>Not uploaded: {u.message}
               </p>
               {u.retryable ? (
-                <button type="button" className="btn btn-quiet !min-h-10" onClick={() => onRetry(u)} disabled={!enabled}>
+                <button
+                  type="button"
+                  className="btn btn-quiet !min-h-10"
+                  onClick={() => onRetry(u)}
+                  disabled={!enabled}
+                >
                   Retry
                 </button>
               ) : (
@@ -147,7 +210,10 @@ function PhotoSide({ side, photos, uploads, enabled, onAdd, onRetry, onDismiss, 
         }}
         data-testid={`photo-input-${side}`}
       />
-      <label htmlFor={id} className={`btn btn-quiet peer-focus-visible:outline-[3px] peer-focus-visible:outline-offset-2 peer-focus-visible:outline-amber ${enabled ? '' : 'pointer-events-none opacity-50'}`}>
+      <label
+        htmlFor={id}
+        className={`btn btn-quiet peer-focus-visible:outline-[3px] peer-focus-visible:outline-offset-2 peer-focus-visible:outline-amber ${enabled ? '' : 'pointer-events-none opacity-50'}`}
+      >
         Add {side} photos
       </label>
     </div>

@@ -10,13 +10,25 @@ import { VerdictList } from './VerdictList';
 /** Bearing preload: the pinion turning torque against its band, and the hub check on each side. */
 export function PreloadSection({ context, disabled }: { context: SheetContext; disabled: boolean }) {
   const { control, register } = useFormContext<SheetValues>();
-  const [torqueUnit, bearings, pinionTorque] = useWatch({ control, name: ['torqueUnit', 'preload.bearings', 'preload.pinionTorque'] });
+  const [torqueUnit, bearings, pinionTorque] = useWatch({
+    control,
+    name: ['torqueUnit', 'preload.bearings', 'preload.pinionTorque'],
+  });
   const unit = torqueUnit ?? 'lbf-in';
   const kind = bearings ?? 'used';
   const profile = context.profile;
   const field = kind === 'new' ? 'pinionPreloadNew' : 'pinionPreloadUsed';
   const band = profile ? preloadBandIn(profile.values, kind, unit) : null;
-  const verdicts = profile && typeof pinionTorque === 'number' ? [{ measure: `pinion-preload-${kind}`, value: pinionTorque, ...judgePreload(pinionTorque, kind, unit, profile.values) }] : [];
+  const verdicts =
+    profile && typeof pinionTorque === 'number'
+      ? [
+          {
+            measure: `pinion-preload-${kind}`,
+            value: pinionTorque,
+            ...judgePreload(pinionTorque, kind, unit, profile.values),
+          },
+        ]
+      : [];
 
   return (
     <SheetSection id="preload" title="Bearing preload">
@@ -34,19 +46,33 @@ export function PreloadSection({ context, disabled }: { context: SheetContext; d
           </div>
           {band && profile && (
             <p className="text-sm" data-testid="preload-band">
-              Band for {kind} bearings: <strong>{band.min.toFixed(1)}–{formatTorque(band.max, unit)}</strong>. {bandToSourceText(profile.values, field, profile.sources, profile.name)}.
+              Band for {kind} bearings:{' '}
+              <strong>
+                {band.min.toFixed(1)}–{formatTorque(band.max, unit)}
+              </strong>
+              . {bandToSourceText(profile.values, field, profile.sources, profile.name)}.
             </p>
           )}
         </fieldset>
-        <EntryField name="preload.pinionTorque" label="Pinion turning torque" kind="decimal" unitLabel={torqueUnitToLabel(unit)} testId="pinion-torque" hint="Turning the pinion with an inch-pound dial wrench, seal in or out as the team’s procedure says." />
+        <EntryField
+          name="preload.pinionTorque"
+          label="Pinion turning torque"
+          kind="decimal"
+          unitLabel={torqueUnitToLabel(unit)}
+          testId="pinion-torque"
+          hint="Turning the pinion with an inch-pound dial wrench, seal in or out as the team’s procedure says."
+        />
       </fieldset>
       {profile && verdicts.length > 0 && (
         <div className="mt-3" aria-live="polite">
           <VerdictList verdicts={verdicts} format={(v) => formatTorque(v, unit)} profile={profile} />
         </div>
       )}
-      <h3 className="mb-1 mt-5 font-bold">Hub check (solid spacer)</h3>
-      <p className="mb-3 text-sm text-ink-soft">Does the turning effort stay the same from medium to full nut torque? It should when the spacer length is right (common practice).</p>
+      <h3 className="mt-5 mb-1 font-bold">Hub check (solid spacer)</h3>
+      <p className="mb-3 text-sm text-ink-soft">
+        Does the turning effort stay the same from medium to full nut torque? It should when the spacer length is right
+        (common practice).
+      </p>
       <fieldset disabled={disabled} className="grid gap-4 md:grid-cols-2">
         <legend className="sr-only">Hub check on each side</legend>
         <HubCheck side="Left" name="preload.hubLeft" unitLabel={torqueUnitToLabel(unit)} />
@@ -56,7 +82,15 @@ export function PreloadSection({ context, disabled }: { context: SheetContext; d
   );
 }
 
-function HubCheck({ side, name, unitLabel }: { side: string; name: 'preload.hubLeft' | 'preload.hubRight'; unitLabel: string }) {
+function HubCheck({
+  side,
+  name,
+  unitLabel,
+}: {
+  side: string;
+  name: 'preload.hubLeft' | 'preload.hubRight';
+  unitLabel: string;
+}) {
   const { control } = useFormContext<SheetValues>();
   const { field } = useController({ control, name: `${name}.unchanged` });
   const options: [boolean | null, string][] = [
@@ -71,13 +105,27 @@ function HubCheck({ side, name, unitLabel }: { side: string; name: 'preload.hubL
         <div className="flex flex-wrap gap-2">
           {options.map(([value, label]) => (
             <label key={label} className="choice">
-              <input type="radio" name={`${name}.unchanged`} className="sr-only" checked={field.value === value} onChange={() => field.onChange(value)} data-enter-next />
+              <input
+                type="radio"
+                name={`${name}.unchanged`}
+                className="sr-only"
+                checked={field.value === value}
+                onChange={() => field.onChange(value)}
+                data-enter-next
+              />
               {label}
             </label>
           ))}
         </div>
       </fieldset>
-      <EntryField name={`${name}.torque`} label={`${side} hub turning torque, if measured`} kind="decimal" unitLabel={unitLabel} empty={undefined} testId={`hub-${side.toLowerCase()}-torque`} />
+      <EntryField
+        name={`${name}.torque`}
+        label={`${side} hub turning torque, if measured`}
+        kind="decimal"
+        unitLabel={unitLabel}
+        empty={undefined}
+        testId={`hub-${side.toLowerCase()}-torque`}
+      />
     </div>
   );
 }

@@ -40,14 +40,23 @@ export function SetupSection({ props, context, countedRuns, gearSetLocked, disab
           label="Gear set"
           disabled={gearSetLocked}
           hint={gearSetLocked ? 'Fixed once the draft is on Lashline.' : undefined}
-          options={[{ value: '', label: 'Choose a gear set…' }, ...props.gearSets.map((g) => ({ value: g.id, label: `${g.serial}${g.ratioLabel ? ` · ${g.ratioLabel}` : ''}${g.status === 'in-service' ? '' : ` · ${g.status}`}` }))]}
+          options={[
+            { value: '', label: 'Choose a gear set…' },
+            ...props.gearSets.map((g) => ({
+              value: g.id,
+              label: `${g.serial}${g.ratioLabel ? ` · ${g.ratioLabel}` : ''}${g.status === 'in-service' ? '' : ` · ${g.status}`}`,
+            })),
+          ]}
         />
         <SelectField
           name="assemblyId"
           label="Rear-end assembly"
           nullable
           hint={set?.location ? `The set is in ${set.location.label}.` : 'The set is not in an assembly now.'}
-          options={[{ value: '', label: 'Not in an assembly' }, ...props.assemblies.map((a) => ({ value: a.id, label: `${a.serial} ${a.name}` }))]}
+          options={[
+            { value: '', label: 'Not in an assembly' },
+            ...props.assemblies.map((a) => ({ value: a.id, label: `${a.serial} ${a.name}` })),
+          ]}
         />
         <div className="flex flex-col gap-1">
           <label htmlFor={whenId}>Date and time of the inspection</label>
@@ -78,13 +87,36 @@ export function SetupSection({ props, context, countedRuns, gearSetLocked, disab
         />
         {showReason && (
           <div className="flex flex-col gap-1 md:col-span-2">
-            <label htmlFor={reasonId}>{props.mode === 'edit' ? `Why does the runs figure change from the recorded ${countedRuns}?` : `Why does the runs figure differ from Lashline’s count of ${countedRuns}?`}</label>
-            <textarea id={reasonId} rows={2} {...register('runsChangeReason')} aria-invalid={reasonError ? 'true' : undefined} aria-describedby={reasonError ? `${reasonId}-error` : undefined} />
+            <label htmlFor={reasonId}>
+              {props.mode === 'edit'
+                ? `Why does the runs figure change from the recorded ${countedRuns}?`
+                : `Why does the runs figure differ from Lashline’s count of ${countedRuns}?`}
+            </label>
+            <textarea
+              id={reasonId}
+              rows={2}
+              {...register('runsChangeReason')}
+              aria-invalid={reasonError ? 'true' : undefined}
+              aria-describedby={reasonError ? `${reasonId}-error` : undefined}
+            />
             <FieldError id={`${reasonId}-error`} message={reasonError} />
           </div>
         )}
-        <SelectField name="technicianId" label="Technician" nullable options={props.members.map((m) => ({ value: m.id, label: m.id === props.user.id ? `${m.name} (you)` : m.name }))} />
-        <SelectField name="resolution" label="Indicator resolution" options={INDICATOR_RESOLUTIONS.map((r) => ({ value: r.id, label: `${r.label} per graduation` }))} hint="Figures never show more digits than this." />
+        <SelectField
+          name="technicianId"
+          label="Technician"
+          nullable
+          options={props.members.map((m) => ({
+            value: m.id,
+            label: m.id === props.user.id ? `${m.name} (you)` : m.name,
+          }))}
+        />
+        <SelectField
+          name="resolution"
+          label="Indicator resolution"
+          options={INDICATOR_RESOLUTIONS.map((r) => ({ value: r.id, label: `${r.label} per graduation` }))}
+          hint="Figures never show more digits than this."
+        />
         <fieldset className="flex flex-col gap-1">
           <legend className="font-semibold">Entry unit for lengths</legend>
           <div className="flex gap-2">

@@ -13,7 +13,17 @@ export interface ShownVerdict {
 }
 
 /** Verdicts with their limit, margin and the source of each band. */
-export function VerdictList({ verdicts, format, profile, provisional }: { verdicts: ShownVerdict[]; format: (value: number) => string; profile: ProfileInfo; provisional?: boolean }) {
+export function VerdictList({
+  verdicts,
+  format,
+  profile,
+  provisional,
+}: {
+  verdicts: ShownVerdict[];
+  format: (value: number) => string;
+  profile: ProfileInfo;
+  provisional?: boolean;
+}) {
   if (verdicts.length === 0) return null;
   return (
     <ul className="flex flex-col gap-2" data-testid="verdicts">

@@ -90,7 +90,8 @@ export function createDraftStore(storage: Storage | null): DraftStore {
     prune: (now) => {
       for (const key of keys()) {
         const d = read(key);
-        if (d && d.status === 'submitted' && !d.dirty && now - Date.parse(d.savedLocallyAt) > KEEP_SUBMITTED_MS) storage?.removeItem(key);
+        if (d && d.status === 'submitted' && !d.dirty && now - Date.parse(d.savedLocallyAt) > KEEP_SUBMITTED_MS)
+          storage?.removeItem(key);
       }
     },
   };

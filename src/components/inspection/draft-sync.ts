@@ -76,11 +76,21 @@ export class DraftSync {
 
   private emit(patch: Partial<SyncState>): void {
     const before = this.state;
-    const next = { ...before, ...patch, serverId: this.draft.serverId, status: this.draft.status, savedToServerAt: this.draft.savedToServerAt, dirty: this.draft.dirty, submitPending: this.draft.submitPending };
+    const next = {
+      ...before,
+      ...patch,
+      serverId: this.draft.serverId,
+      status: this.draft.status,
+      savedToServerAt: this.draft.savedToServerAt,
+      dirty: this.draft.dirty,
+      submitPending: this.draft.submitPending,
+    };
     this.state = next;
     // A keystroke only moves the local save time, which the status line does not show: no re-render for it.
     const keys = Object.keys(next) as (keyof SyncState)[];
-    const changed = keys.some((k) => k !== 'savedLocallyAt' && next[k] !== before[k]) || (before.savedLocallyAt === null) !== (next.savedLocallyAt === null);
+    const changed =
+      keys.some((k) => k !== 'savedLocallyAt' && next[k] !== before[k]) ||
+      (before.savedLocallyAt === null) !== (next.savedLocallyAt === null);
     if (changed) this.o.onState(next);
   }
 
@@ -91,7 +101,10 @@ export class DraftSync {
   }
 
   /** Records a change: on this device now, on the server after a pause in typing. */
-  change(update: Partial<Pick<LocalDraft, 'values' | 'texts' | 'shimRows' | 'countedRuns' | 'context'>>, content = true): void {
+  change(
+    update: Partial<Pick<LocalDraft, 'values' | 'texts' | 'shimRows' | 'countedRuns' | 'context'>>,
+    content = true,
+  ): void {
     this.draft = { ...this.draft, ...update, dirty: this.draft.dirty || content };
     if (content) this.seq++;
     this.persist();
@@ -126,17 +139,28 @@ export class DraftSync {
     if (this.draft.serverId && !this.draft.dirty) return true;
     const fields = this.o.validate(this.draft.values);
     if (fields) {
-      this.emit({ phase: 'invalid', problem: { status: 400, message: 'Some fields need fixing before the sheet can go to Lashline.', fields } });
+      this.emit({
+        phase: 'invalid',
+        problem: { status: 400, message: 'Some fields need fixing before the sheet can go to Lashline.', fields },
+      });
       return false;
     }
     if (!this.o.isOnline()) return this.failed({ status: 0, message: 'Offline.', fields: {} });
     const seq = this.seq;
     this.emit({ phase: 'saving' });
     const id = this.draft.serverId;
-    const answer = id ? await this.o.api.patch(id, sheetToPatchBody(this.draft.values)) : await this.o.api.create(sheetToCreateBody(this.draft.values), this.draft.localId);
+    const answer = id
+      ? await this.o.api.patch(id, sheetToPatchBody(this.draft.values))
+      : await this.o.api.create(sheetToCreateBody(this.draft.values), this.draft.localId);
     if (!answer.ok) return this.failed(answer.problem);
     const repeatedCreate = !id && answer.status === 200;
-    this.draft = { ...this.draft, serverId: answer.data.id, status: answer.data.status, savedToServerAt: this.now(), dirty: repeatedCreate || seq !== this.seq };
+    this.draft = {
+      ...this.draft,
+      serverId: answer.data.id,
+      status: answer.data.status,
+      savedToServerAt: this.now(),
+      dirty: repeatedCreate || seq !== this.seq,
+    };
     this.persist();
     this.emit({ phase: 'saved', problem: null });
     // A repeated create answers the draft as first sent; this sheet may hold more since.

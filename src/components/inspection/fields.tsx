@@ -47,14 +47,28 @@ interface EntryFieldProps {
 }
 
 /** A number typed as text; indicator fields apply the thousandths rule and say how they read it. */
-export function EntryField({ name, label, kind, unitLabel, hint, empty = null, large, testId, disabled }: EntryFieldProps) {
+export function EntryField({
+  name,
+  label,
+  kind,
+  unitLabel,
+  hint,
+  empty = null,
+  large,
+  testId,
+  disabled,
+}: EntryFieldProps) {
   const { control } = useFormContext<SheetValues>();
   const texts = useContext(EntryTextsContext);
   const { field, fieldState } = useController({ control, name });
   const [unit, resolution] = useWatch({ control, name: ['unit', 'resolution'] });
   const value = field.value as number | null | undefined;
   const decimals = kind === 'whole' ? 0 : kind === 'decimal' ? 2 : entryDecimals(resolution, unit);
-  const [text, setText] = useState(() => texts.get(name) ?? (kind === 'whole' || kind === 'decimal' ? (value ?? '').toString() : valueToEntryText(value, decimals)));
+  const [text, setText] = useState(
+    () =>
+      texts.get(name) ??
+      (kind === 'whole' || kind === 'decimal' ? (value ?? '').toString() : valueToEntryText(value, decimals)),
+  );
   const parsed = parseFor(kind, text, unit, resolution);
   const first = useRef(true);
   const id = useId();
@@ -75,7 +89,8 @@ export function EntryField({ name, label, kind, unitLabel, hint, empty = null, l
     }
     const current = parseFor(kind, text, unit, resolution).value;
     if (current !== (value ?? null)) {
-      const next = kind === 'whole' || kind === 'decimal' ? (value ?? '').toString() : valueToEntryText(value, decimals);
+      const next =
+        kind === 'whole' || kind === 'decimal' ? (value ?? '').toString() : valueToEntryText(value, decimals);
       setText(next);
       texts.set(name, next);
     }
@@ -115,7 +130,9 @@ export function EntryField({ name, label, kind, unitLabel, hint, empty = null, l
           onChange={(e) => onText(e.target.value)}
           onBlur={field.onBlur}
           aria-invalid={error ? 'true' : undefined}
-          aria-describedby={[hint ? hintId : '', parsed.note ? noteId : '', error ? errorId : ''].filter(Boolean).join(' ') || undefined}
+          aria-describedby={
+            [hint ? hintId : '', parsed.note ? noteId : '', error ? errorId : ''].filter(Boolean).join(' ') || undefined
+          }
           className={`tabular-nums ${large ? 'text-xl font-semibold' : ''} ${unitLabel ? 'max-w-[11rem]' : ''}`}
           data-testid={testId}
           data-enter-next
@@ -133,7 +150,21 @@ export function EntryField({ name, label, kind, unitLabel, hint, empty = null, l
 }
 
 /** A labelled select bound to the form. */
-export function SelectField({ name, label, options, hint, disabled, nullable }: { name: FieldPath<SheetValues>; label: ReactNode; options: readonly { value: string; label: string }[]; hint?: ReactNode; disabled?: boolean; nullable?: boolean }) {
+export function SelectField({
+  name,
+  label,
+  options,
+  hint,
+  disabled,
+  nullable,
+}: {
+  name: FieldPath<SheetValues>;
+  label: ReactNode;
+  options: readonly { value: string; label: string }[];
+  hint?: ReactNode;
+  disabled?: boolean;
+  nullable?: boolean;
+}) {
   const { register, getFieldState, formState } = useFormContext<SheetValues>();
   const id = useId();
   const error = getFieldState(name, formState).error?.message;
@@ -141,7 +172,14 @@ export function SelectField({ name, label, options, hint, disabled, nullable }: 
     <div className="flex flex-col gap-1">
       <label htmlFor={id}>{label}</label>
       {hint && <p className="text-sm text-ink-soft">{hint}</p>}
-      <select id={id} {...register(name, nullable ? { setValueAs: (v: string | null) => (v === '' || v === null ? null : v) } : {})} disabled={disabled} aria-invalid={error ? 'true' : undefined} aria-describedby={error ? `${id}-error` : undefined} data-enter-next>
+      <select
+        id={id}
+        {...register(name, nullable ? { setValueAs: (v: string | null) => (v === '' || v === null ? null : v) } : {})}
+        disabled={disabled}
+        aria-invalid={error ? 'true' : undefined}
+        aria-describedby={error ? `${id}-error` : undefined}
+        data-enter-next
+      >
         {options.map((o) => (
           <option key={o.value} value={o.value}>
             {o.label}
@@ -154,7 +192,17 @@ export function SelectField({ name, label, options, hint, disabled, nullable }: 
 }
 
 /** A section of the sheet: a landmark with its heading. */
-export function SheetSection({ id, title, children, aside }: { id: string; title: string; children: ReactNode; aside?: ReactNode }) {
+export function SheetSection({
+  id,
+  title,
+  children,
+  aside,
+}: {
+  id: string;
+  title: string;
+  children: ReactNode;
+  aside?: ReactNode;
+}) {
   return (
     <section aria-labelledby={`${id}-heading`} className="card mb-5" id={id}>
       <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2">

@@ -7,7 +7,12 @@ import type { GearSetInfo, ProfileInfo } from './sheet-context';
  * answer is status 0), plus the Idempotency-Key header, and photo uploads through XMLHttpRequest
  * because fetch cannot report upload progress.
  */
-export type InspectionViewLite = InspectionEntryView & { id: string; status: 'draft' | 'submitted'; createdBy: string; revision: number };
+export type InspectionViewLite = InspectionEntryView & {
+  id: string;
+  status: 'draft' | 'submitted';
+  createdBy: string;
+  revision: number;
+};
 
 export interface PhotoView {
   id: string;
@@ -29,14 +34,23 @@ function toProblem(status: number, body: unknown): Problem {
 
 const LOST: Problem = { status: 0, message: 'No answer from Lashline (offline or no signal).', fields: {} };
 
-async function request<T>(path: string, method: string, body?: unknown, headers: Record<string, string> = {}): Promise<Answer<T>> {
+async function request<T>(
+  path: string,
+  method: string,
+  body?: unknown,
+  headers: Record<string, string> = {},
+): Promise<Answer<T>> {
   const controller = new AbortController();
   const timer = setTimeout(() => controller.abort(), TIMEOUT_MS);
   try {
     const response = await fetch(path, {
       method,
       credentials: 'same-origin',
-      headers: { Accept: 'application/json', ...(body === undefined ? {} : { 'Content-Type': 'application/json' }), ...headers },
+      headers: {
+        Accept: 'application/json',
+        ...(body === undefined ? {} : { 'Content-Type': 'application/json' }),
+        ...headers,
+      },
       body: body === undefined ? undefined : JSON.stringify(body),
       signal: controller.signal,
     });
@@ -47,7 +61,9 @@ async function request<T>(path: string, method: string, body?: unknown, headers:
     } catch {
       parsed = undefined;
     }
-    return response.ok ? { ok: true, status: response.status, data: parsed as T } : { ok: false, problem: toProblem(response.status, parsed) };
+    return response.ok
+      ? { ok: true, status: response.status, data: parsed as T }
+      : { ok: false, problem: toProblem(response.status, parsed) };
   } catch {
     return { ok: false, problem: LOST };
   } finally {
@@ -56,21 +72,37 @@ async function request<T>(path: string, method: string, body?: unknown, headers:
 }
 
 export const inspectionApi = {
-  create: (body: unknown, key: string) => request<InspectionViewLite>('/api/inspections', 'POST', body, { 'Idempotency-Key': key }),
-  patch: (id: string, body: unknown) => request<InspectionViewLite>(`/api/inspections/${encodeURIComponent(id)}`, 'PATCH', body),
-  submit: (id: string, key: string) => request<InspectionViewLite>(`/api/inspections/${encodeURIComponent(id)}/submit`, 'POST', undefined, { 'Idempotency-Key': key }),
+  create: (body: unknown, key: string) =>
+    request<InspectionViewLite>('/api/inspections', 'POST', body, { 'Idempotency-Key': key }),
+  patch: (id: string, body: unknown) =>
+    request<InspectionViewLite>(`/api/inspections/${encodeURIComponent(id)}`, 'PATCH', body),
+  submit: (id: string, key: string) =>
+    request<InspectionViewLite>(`/api/inspections/${encodeURIComponent(id)}/submit`, 'POST', undefined, {
+      'Idempotency-Key': key,
+    }),
   get: (id: string) => request<InspectionViewLite>(`/api/inspections/${encodeURIComponent(id)}`, 'GET'),
   gearSet: (id: string) => request<GearSetInfo>(`/api/gear-sets/${encodeURIComponent(id)}`, 'GET'),
-  profile: (gearSetId: string) => request<ProfileInfo>(`/api/tolerance-profiles/for-gear-set/${encodeURIComponent(gearSetId)}`, 'GET'),
-  runCount: (gearSetId: string, at: string) => request<{ totalRuns: number; runsSinceInstall: number }>(`/api/gear-sets/${encodeURIComponent(gearSetId)}/run-count?at=${encodeURIComponent(at)}`, 'GET'),
+  profile: (gearSetId: string) =>
+    request<ProfileInfo>(`/api/tolerance-profiles/for-gear-set/${encodeURIComponent(gearSetId)}`, 'GET'),
+  runCount: (gearSetId: string, at: string) =>
+    request<{ totalRuns: number; runsSinceInstall: number }>(
+      `/api/gear-sets/${encodeURIComponent(gearSetId)}/run-count?at=${encodeURIComponent(at)}`,
+      'GET',
+    ),
   photos: (id: string) => request<{ items: PhotoView[] }>(`/api/inspections/${encodeURIComponent(id)}/photos`, 'GET'),
-  deletePhoto: (id: string, photoId: string) => request<unknown>(`/api/inspections/${encodeURIComponent(id)}/photos/${encodeURIComponent(photoId)}`, 'DELETE'),
+  deletePhoto: (id: string, photoId: string) =>
+    request<unknown>(`/api/inspections/${encodeURIComponent(id)}/photos/${encodeURIComponent(photoId)}`, 'DELETE'),
 };
 
 export type InspectionApi = typeof inspectionApi;
 
 /** Uploads one photo, reporting progress 0–1; resolves with the answer, never rejects. */
-export function uploadPhoto(inspectionId: string, file: File, side: 'drive' | 'coast', onProgress: (share: number) => void): { done: Promise<Answer<PhotoView>>; abort: () => void } {
+export function uploadPhoto(
+  inspectionId: string,
+  file: File,
+  side: 'drive' | 'coast',
+  onProgress: (share: number) => void,
+): { done: Promise<Answer<PhotoView>>; abort: () => void } {
   const xhr = new XMLHttpRequest();
   const done = new Promise<Answer<PhotoView>>((resolve) => {
     xhr.open('POST', `/api/inspections/${encodeURIComponent(inspectionId)}/photos`);
@@ -88,7 +120,8 @@ export function uploadPhoto(inspectionId: string, file: File, side: 'drive' | 'c
       if (xhr.status >= 200 && xhr.status < 300) resolve({ ok: true, status: xhr.status, data: body as PhotoView });
       else resolve({ ok: false, problem: toProblem(xhr.status, body) });
     };
-    xhr.onerror = () => resolve({ ok: false, problem: { ...LOST, message: 'The upload stopped: no connection to Lashline.' } });
+    xhr.onerror = () =>
+      resolve({ ok: false, problem: { ...LOST, message: 'The upload stopped: no connection to Lashline.' } });
     xhr.onabort = () => resolve({ ok: false, problem: { status: 0, message: 'Upload cancelled.', fields: {} } });
     xhr.ontimeout = () => resolve({ ok: false, problem: { ...LOST, message: 'The upload timed out.' } });
     xhr.timeout = 5 * 60_000;

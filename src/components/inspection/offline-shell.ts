@@ -9,7 +9,8 @@ export const SHELL_CACHE = 'lashline-sheet-v1';
 
 /** Registers the worker and caches this page; resolves true when the sheet can open offline. */
 export async function prepareOfflineShell(): Promise<boolean> {
-  if (typeof navigator === 'undefined' || !('serviceWorker' in navigator) || typeof caches === 'undefined') return false;
+  if (typeof navigator === 'undefined' || !('serviceWorker' in navigator) || typeof caches === 'undefined')
+    return false;
   try {
     await navigator.serviceWorker.register('/inspections/sw.js', { scope: '/inspections/' });
     const cache = await caches.open(SHELL_CACHE);

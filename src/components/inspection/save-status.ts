@@ -14,11 +14,24 @@ const hhmm = (iso: string) => {
 /**
  * @example describeSaveStatus({ …, savedLocallyAt, savedToServerAt: '…14:02…', phase: 'saved' }, true) // 'Saved on this device · Saved to Lashline 14:02'
  */
-export function describeSaveStatus(state: SyncState, online: boolean, time: (iso: string) => string = hhmm): SaveStatus {
-  if (state.localSaveFailed) return { text: 'Could not save on this device (storage is full or blocked) — keep this tab open until it reaches Lashline.', tone: 'problem' };
+export function describeSaveStatus(
+  state: SyncState,
+  online: boolean,
+  time: (iso: string) => string = hhmm,
+): SaveStatus {
+  if (state.localSaveFailed)
+    return {
+      text: 'Could not save on this device (storage is full or blocked) — keep this tab open until it reaches Lashline.',
+      tone: 'problem',
+    };
   const local = state.savedLocallyAt ? 'Saved on this device' : 'Not changed yet';
   if (!online || state.phase === 'offline') {
-    return { text: state.submitPending ? 'Offline — saved on this device; it submits when the connection is back' : 'Offline — saved on this device', tone: 'waiting' };
+    return {
+      text: state.submitPending
+        ? 'Offline — saved on this device; it submits when the connection is back'
+        : 'Offline — saved on this device',
+      tone: 'waiting',
+    };
   }
   if (state.phase === 'saving') return { text: `${local} · Saving to Lashline…`, tone: 'waiting' };
   if (state.phase === 'submitting') return { text: `${local} · Submitting…`, tone: 'waiting' };
@@ -27,8 +40,17 @@ export function describeSaveStatus(state: SyncState, online: boolean, time: (iso
     const more = messages.length > 1 ? ` (and ${messages.length - 1} more)` : '';
     return { text: `${local} · Not on Lashline yet: ${messages[0] ?? 'a field needs fixing'}${more}`, tone: 'problem' };
   }
-  if (state.phase === 'error') return { text: `${local} · Lashline did not take the last change: ${state.problem?.message ?? 'unknown error'}`, tone: 'problem' };
-  if (state.status === 'submitted' && state.dirty) return { text: `${local} · Changes not yet saved to Lashline`, tone: 'waiting' };
-  if (state.savedToServerAt) return { text: `${local} · Saved to Lashline ${time(state.savedToServerAt)}${state.dirty ? ' (newer changes waiting)' : ''}`, tone: state.dirty ? 'waiting' : 'ok' };
+  if (state.phase === 'error')
+    return {
+      text: `${local} · Lashline did not take the last change: ${state.problem?.message ?? 'unknown error'}`,
+      tone: 'problem',
+    };
+  if (state.status === 'submitted' && state.dirty)
+    return { text: `${local} · Changes not yet saved to Lashline`, tone: 'waiting' };
+  if (state.savedToServerAt)
+    return {
+      text: `${local} · Saved to Lashline ${time(state.savedToServerAt)}${state.dirty ? ' (newer changes waiting)' : ''}`,
+      tone: state.dirty ? 'waiting' : 'ok',
+    };
   return { text: `${local} · Not on Lashline yet`, tone: 'waiting' };
 }

@@ -28,7 +28,22 @@ export function newUuid(): string {
 }
 
 function emptyDraft(localId: string, values: LocalDraft['values'], now: string): LocalDraft {
-  return { v: 1, localId, serverId: null, status: 'draft', values, texts: {}, shimRows: [], countedRuns: null, context: null, savedLocallyAt: now, savedToServerAt: null, dirty: false, submitKey: null, submitPending: false };
+  return {
+    v: 1,
+    localId,
+    serverId: null,
+    status: 'draft',
+    values,
+    texts: {},
+    shimRows: [],
+    countedRuns: null,
+    context: null,
+    savedLocallyAt: now,
+    savedToServerAt: null,
+    dirty: false,
+    submitKey: null,
+    submitPending: false,
+  };
 }
 
 /** Opens the sheet for `url`; may give back a URL to put in the address bar (a new ?draft= id). */
@@ -67,5 +82,10 @@ export function bootSheet(props: SheetProps, url: URL, store: DraftStore, now: D
   });
   const next = new URL(url);
   next.searchParams.set('draft', localId);
-  return { draft: emptyDraft(localId, values, iso), restored: false, fresh: true, url: next.toString() === url.toString() ? undefined : next };
+  return {
+    draft: emptyDraft(localId, values, iso),
+    restored: false,
+    fresh: true,
+    url: next.toString() === url.toString() ? undefined : next,
+  };
 }

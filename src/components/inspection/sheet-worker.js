@@ -10,7 +10,8 @@ self.addEventListener('install', () => self.skipWaiting());
 self.addEventListener('activate', (event) => {
   event.waitUntil(
     (async () => {
-      for (const name of await caches.keys()) if (name.startsWith('lashline-sheet-') && name !== SHELL_CACHE) await caches.delete(name);
+      for (const name of await caches.keys())
+        if (name.startsWith('lashline-sheet-') && name !== SHELL_CACHE) await caches.delete(name);
       await self.clients.claim();
     })(),
   );
@@ -36,7 +37,13 @@ self.addEventListener('fetch', (event) => {
           return response;
         } catch {
           const cached = await caches.match(url.pathname);
-          return cached ?? new Response('Offline, and this sheet has not been opened on this device before.', { status: 503, headers: { 'Content-Type': 'text/plain; charset=utf-8' } });
+          return (
+            cached ??
+            new Response('Offline, and this sheet has not been opened on this device before.', {
+              status: 503,
+              headers: { 'Content-Type': 'text/plain; charset=utf-8' },
+            })
+          );
         }
       })(),
     );

@@ -13,7 +13,15 @@ const NONE: SheetContext = { gearSet: null, profile: null };
  * the inspection time. Fetched when there is a connection, kept with the browser copy for when
  * there is not. A fresh sheet is prefilled (assembly, runs) unless the technician already chose.
  */
-export function useSheetContext(o: { form: UseFormReturn<SheetValues, unknown, InspectionDraft>; sync: DraftSync; initial: SheetContext | null; countedRef: RefObject<number | null>; online: boolean; fresh: boolean; countRuns: boolean }) {
+export function useSheetContext(o: {
+  form: UseFormReturn<SheetValues, unknown, InspectionDraft>;
+  sync: DraftSync;
+  initial: SheetContext | null;
+  countedRef: RefObject<number | null>;
+  online: boolean;
+  fresh: boolean;
+  countRuns: boolean;
+}) {
   const { form, sync, online } = o;
   const [context, setContext] = useState<SheetContext>(o.initial ?? NONE);
   const countedRef = o.countedRef;
@@ -27,12 +35,20 @@ export function useSheetContext(o: { form: UseFormReturn<SheetValues, unknown, I
     void Promise.all([inspectionApi.gearSet(gearSetId), inspectionApi.profile(gearSetId)]).then(([set, profile]) => {
       if (!live) return;
       const prev = contextRef.current.gearSet?.id === gearSetId ? contextRef.current : NONE;
-      const next: SheetContext = { gearSet: set.ok ? set.data : prev.gearSet, profile: profile.ok ? profile.data : prev.profile };
+      const next: SheetContext = {
+        gearSet: set.ok ? set.data : prev.gearSet,
+        profile: profile.ok ? profile.data : prev.profile,
+      };
       contextRef.current = next;
       setContext(next);
       sync.change({ context: next }, false);
       const place = set.ok ? set.data.location : null;
-      if (o.fresh && place?.targetType === 'assembly' && !form.getValues('assemblyId') && !form.getFieldState('assemblyId').isDirty) {
+      if (
+        o.fresh &&
+        place?.targetType === 'assembly' &&
+        !form.getValues('assemblyId') &&
+        !form.getFieldState('assemblyId').isDirty
+      ) {
         form.setValue('assemblyId', place.targetId);
       }
     });
@@ -55,7 +71,8 @@ export function useSheetContext(o: { form: UseFormReturn<SheetValues, unknown, I
         setCountedRuns(counted);
         sync.change({ countedRuns: counted }, false);
         // Follow the count until the technician types their own figure.
-        if (current === null || current === undefined || current === previous) form.setValue('runsAtInspection', counted);
+        if (current === null || current === undefined || current === previous)
+          form.setValue('runsAtInspection', counted);
       });
     }, 250);
     return () => {

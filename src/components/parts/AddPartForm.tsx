@@ -15,9 +15,20 @@ import { fetchTeamSettings, SETTINGS_KEY, type TeamSettingsAnswer } from './team
 type PartFormInput = z.input<typeof partCreateSchema>;
 type PartFormOutput = z.output<typeof partCreateSchema>;
 
-const FIELDS = ['kind', 'serial', 'ringTeeth', 'pinionTeeth', 'maker', 'model', 'material', 'lifeLimitRuns', 'notes'] as const;
+const FIELDS = [
+  'kind',
+  'serial',
+  'ringTeeth',
+  'pinionTeeth',
+  'maker',
+  'model',
+  'material',
+  'lifeLimitRuns',
+  'notes',
+] as const;
 
-const blankToUndefined = (value: unknown) => (value === '' || value === null || value === undefined ? undefined : Number(value));
+const blankToUndefined = (value: unknown) =>
+  value === '' || value === null || value === undefined ? undefined : Number(value);
 const blankToNull = (value: unknown) => (value === '' || value === null || value === undefined ? null : Number(value));
 
 /** The life limit a new part of `kind` starts with, and where that figure comes from. */
@@ -38,7 +49,15 @@ export default function AddPartForm({ onCreated, onCancel }: Props) {
   const [problem, setProblem] = useState<Problem | null>(null);
   const form = useForm<PartFormInput, unknown, PartFormOutput>({
     resolver: zodResolver(partCreateSchema),
-    defaultValues: { kind: 'gear-set', serial: '', maker: '', model: '', material: '', notes: '', lifeLimitRuns: DEFAULT_LIFE_LIMITS['gear-set'].runs },
+    defaultValues: {
+      kind: 'gear-set',
+      serial: '',
+      maker: '',
+      model: '',
+      material: '',
+      notes: '',
+      lifeLimitRuns: DEFAULT_LIFE_LIMITS['gear-set'].runs,
+    },
     mode: 'onTouched',
   });
   const { register, handleSubmit, watch, setValue, setError, getFieldState, formState } = form;
@@ -52,7 +71,15 @@ export default function AddPartForm({ onCreated, onCancel }: Props) {
     if (!getFieldState('lifeLimitRuns').isDirty) setValue('lifeLimitRuns', limit.runs);
   }, [kind, limit.runs, getFieldState, setValue]);
 
-  const ratio = typeof ring === 'number' && typeof pinion === 'number' && Number.isInteger(ring) && Number.isInteger(pinion) && pinion > 0 && ring > pinion ? ratioToLabel(teethToRatio(ring, pinion)) : null;
+  const ratio =
+    typeof ring === 'number' &&
+    typeof pinion === 'number' &&
+    Number.isInteger(ring) &&
+    Number.isInteger(pinion) &&
+    pinion > 0 &&
+    ring > pinion
+      ? ratioToLabel(teethToRatio(ring, pinion))
+      : null;
   const error = (field: (typeof FIELDS)[number]) => formState.errors[field]?.message;
 
   const submit = handleSubmit(async (values) => {
@@ -70,7 +97,10 @@ export default function AddPartForm({ onCreated, onCancel }: Props) {
     }
   });
 
-  const describedBy = (field: string, hint?: boolean) => [hint ? `part-${field}-hint` : '', formState.errors[field as keyof PartFormInput] ? `part-${field}-error` : ''].filter(Boolean).join(' ') || undefined;
+  const describedBy = (field: string, hint?: boolean) =>
+    [hint ? `part-${field}-hint` : '', formState.errors[field as keyof PartFormInput] ? `part-${field}-error` : '']
+      .filter(Boolean)
+      .join(' ') || undefined;
   const fieldError = (field: (typeof FIELDS)[number]) =>
     error(field) ? (
       <p id={`part-${field}-error`} className="field-error">
@@ -87,16 +117,30 @@ export default function AddPartForm({ onCreated, onCancel }: Props) {
       )}
       <div className="flex flex-col gap-1">
         <label htmlFor="part-kind">Kind</label>
-        <select id="part-kind" {...register('kind')} aria-invalid={error('kind') ? true : undefined} aria-describedby={describedBy('kind')}>
+        <select
+          id="part-kind"
+          {...register('kind')}
+          aria-invalid={error('kind') ? true : undefined}
+          aria-describedby={describedBy('kind')}
+        >
           {PART_KINDS.map((k) => (
-            <option key={k} value={k}>{PART_KIND_LABELS[k]}</option>
+            <option key={k} value={k}>
+              {PART_KIND_LABELS[k]}
+            </option>
           ))}
         </select>
         {fieldError('kind')}
       </div>
       <div className="flex flex-col gap-1">
         <label htmlFor="part-serial">Serial</label>
-        <input id="part-serial" autoComplete="off" spellCheck={false} {...register('serial')} aria-invalid={error('serial') ? true : undefined} aria-describedby={describedBy('serial')} />
+        <input
+          id="part-serial"
+          autoComplete="off"
+          spellCheck={false}
+          {...register('serial')}
+          aria-invalid={error('serial') ? true : undefined}
+          aria-describedby={describedBy('serial')}
+        />
         {fieldError('serial')}
       </div>
 
@@ -105,12 +149,26 @@ export default function AddPartForm({ onCreated, onCancel }: Props) {
           <legend className="px-1 font-semibold">Tooth counts</legend>
           <div className="flex flex-col gap-1">
             <label htmlFor="part-ringTeeth">Ring gear teeth</label>
-            <input id="part-ringTeeth" inputMode="numeric" autoComplete="off" {...register('ringTeeth', { setValueAs: blankToUndefined, shouldUnregister: true })} aria-invalid={error('ringTeeth') ? true : undefined} aria-describedby={describedBy('ringTeeth')} />
+            <input
+              id="part-ringTeeth"
+              inputMode="numeric"
+              autoComplete="off"
+              {...register('ringTeeth', { setValueAs: blankToUndefined, shouldUnregister: true })}
+              aria-invalid={error('ringTeeth') ? true : undefined}
+              aria-describedby={describedBy('ringTeeth')}
+            />
             {fieldError('ringTeeth')}
           </div>
           <div className="flex flex-col gap-1">
             <label htmlFor="part-pinionTeeth">Pinion teeth</label>
-            <input id="part-pinionTeeth" inputMode="numeric" autoComplete="off" {...register('pinionTeeth', { setValueAs: blankToUndefined, shouldUnregister: true })} aria-invalid={error('pinionTeeth') ? true : undefined} aria-describedby={describedBy('pinionTeeth')} />
+            <input
+              id="part-pinionTeeth"
+              inputMode="numeric"
+              autoComplete="off"
+              {...register('pinionTeeth', { setValueAs: blankToUndefined, shouldUnregister: true })}
+              aria-invalid={error('pinionTeeth') ? true : undefined}
+              aria-describedby={describedBy('pinionTeeth')}
+            />
             {fieldError('pinionTeeth')}
           </div>
           <p className="min-h-11 self-center text-lg" aria-live="polite" data-testid="ratio">
@@ -126,23 +184,54 @@ export default function AddPartForm({ onCreated, onCancel }: Props) {
       )}
 
       <div className="flex flex-col gap-1">
-        <label htmlFor="part-maker">Maker <span className="font-normal text-ink-soft">(optional)</span></label>
-        <input id="part-maker" autoComplete="off" {...register('maker')} aria-invalid={error('maker') ? true : undefined} aria-describedby={describedBy('maker')} />
+        <label htmlFor="part-maker">
+          Maker <span className="font-normal text-ink-soft">(optional)</span>
+        </label>
+        <input
+          id="part-maker"
+          autoComplete="off"
+          {...register('maker')}
+          aria-invalid={error('maker') ? true : undefined}
+          aria-describedby={describedBy('maker')}
+        />
         {fieldError('maker')}
       </div>
       <div className="flex flex-col gap-1">
-        <label htmlFor="part-model">Model <span className="font-normal text-ink-soft">(optional)</span></label>
-        <input id="part-model" autoComplete="off" {...register('model')} aria-invalid={error('model') ? true : undefined} aria-describedby={describedBy('model')} />
+        <label htmlFor="part-model">
+          Model <span className="font-normal text-ink-soft">(optional)</span>
+        </label>
+        <input
+          id="part-model"
+          autoComplete="off"
+          {...register('model')}
+          aria-invalid={error('model') ? true : undefined}
+          aria-describedby={describedBy('model')}
+        />
         {fieldError('model')}
       </div>
       <div className="flex flex-col gap-1">
-        <label htmlFor="part-material">Material <span className="font-normal text-ink-soft">(optional)</span></label>
-        <input id="part-material" autoComplete="off" {...register('material')} aria-invalid={error('material') ? true : undefined} aria-describedby={describedBy('material')} />
+        <label htmlFor="part-material">
+          Material <span className="font-normal text-ink-soft">(optional)</span>
+        </label>
+        <input
+          id="part-material"
+          autoComplete="off"
+          {...register('material')}
+          aria-invalid={error('material') ? true : undefined}
+          aria-describedby={describedBy('material')}
+        />
         {fieldError('material')}
       </div>
       <div className="flex flex-col gap-1">
         <label htmlFor="part-lifeLimitRuns">Life limit, in runs</label>
-        <input id="part-lifeLimitRuns" inputMode="numeric" autoComplete="off" {...register('lifeLimitRuns', { setValueAs: blankToNull })} aria-invalid={error('lifeLimitRuns') ? true : undefined} aria-describedby={describedBy('lifeLimitRuns', true)} />
+        <input
+          id="part-lifeLimitRuns"
+          inputMode="numeric"
+          autoComplete="off"
+          {...register('lifeLimitRuns', { setValueAs: blankToNull })}
+          aria-invalid={error('lifeLimitRuns') ? true : undefined}
+          aria-describedby={describedBy('lifeLimitRuns', true)}
+        />
         <p id="part-lifeLimitRuns-hint" className="text-sm text-ink-soft">
           {limit.runs === null ? 'No default for this kind. ' : `Default ${limit.runs} runs. `}
           {limit.source} Leave empty for no limit.
@@ -151,8 +240,16 @@ export default function AddPartForm({ onCreated, onCancel }: Props) {
         {fieldError('lifeLimitRuns')}
       </div>
       <div className="flex flex-col gap-1 md:col-span-2">
-        <label htmlFor="part-notes">Notes <span className="font-normal text-ink-soft">(optional)</span></label>
-        <textarea id="part-notes" rows={2} {...register('notes')} aria-invalid={error('notes') ? true : undefined} aria-describedby={describedBy('notes')} />
+        <label htmlFor="part-notes">
+          Notes <span className="font-normal text-ink-soft">(optional)</span>
+        </label>
+        <textarea
+          id="part-notes"
+          rows={2}
+          {...register('notes')}
+          aria-invalid={error('notes') ? true : undefined}
+          aria-describedby={describedBy('notes')}
+        />
         {fieldError('notes')}
       </div>
       <div className="flex flex-wrap gap-3 md:col-span-2">

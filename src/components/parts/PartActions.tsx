@@ -28,7 +28,13 @@ export default function PartActions({ onAdded = goTo }: Props): ReactElement {
   if (!settings) {
     return (
       <div className="mb-4">
-        <button type="button" className="btn" onClick={open} onPointerEnter={() => void loadAddPart()} onFocus={() => void loadAddPart()}>
+        <button
+          type="button"
+          className="btn"
+          onClick={open}
+          onPointerEnter={() => void loadAddPart()}
+          onFocus={() => void loadAddPart()}
+        >
           Add a part
         </button>
       </div>
@@ -40,7 +46,11 @@ export default function PartActions({ onAdded = goTo }: Props): ReactElement {
         Add a part
       </h2>
       <Suspense fallback={<p role="status">Loading the form…</p>}>
-        <AddPartPanel settings={settings} onCancel={() => setSettings(null)} onCreated={(part) => onAdded(addedPartToHref(part.id))} />
+        <AddPartPanel
+          settings={settings}
+          onCancel={() => setSettings(null)}
+          onCreated={(part) => onAdded(addedPartToHref(part.id))}
+        />
       </Suspense>
     </section>
   );

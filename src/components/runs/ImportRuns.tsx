@@ -16,7 +16,12 @@ interface Props {
   send?: (records: Record<string, string>[], onProgress: (share: number) => void) => Promise<Answer<ImportAnswer>>;
 }
 
-type Phase = { name: 'idle' } | { name: 'reading'; share: number } | { name: 'checked' } | { name: 'sending'; share: number } | { name: 'done'; imported: number };
+type Phase =
+  | { name: 'idle' }
+  | { name: 'reading'; share: number }
+  | { name: 'checked' }
+  | { name: 'sending'; share: number }
+  | { name: 'done'; imported: number };
 
 /**
  * Import: read and check the whole file here, show what is wrong line by line, and send only the
@@ -55,8 +60,12 @@ export default function ImportRuns({ cars, onImported, send = sendRunRecords }: 
 
   const importRows = async () => {
     if (blocked) return;
-    if (kept.length > MAX_ROWS) return setProblem(`One import takes at most ${MAX_ROWS.toLocaleString()} rows; this file has ${kept.length.toLocaleString()}. Split it and import each part.`);
-    if (JSON.stringify({ records: kept }).length > MAX_BYTES) return setProblem('These rows come to more than 5 MB; split the file and import each part.');
+    if (kept.length > MAX_ROWS)
+      return setProblem(
+        `One import takes at most ${MAX_ROWS.toLocaleString()} rows; this file has ${kept.length.toLocaleString()}. Split it and import each part.`,
+      );
+    if (JSON.stringify({ records: kept }).length > MAX_BYTES)
+      return setProblem('These rows come to more than 5 MB; split the file and import each part.');
     setProblem('');
     setPhase({ name: 'sending', share: 0 });
     const answer = await send(kept, (share) => setPhase({ name: 'sending', share }));
@@ -68,7 +77,12 @@ export default function ImportRuns({ cars, onImported, send = sendRunRecords }: 
     setPhase({ name: 'checked' });
     setProblem(answer.problem.message);
     // A 422 lists each line of what was sent; nothing was written.
-    setServerProblems(Object.entries(answer.problem.fields).map(([key, text]) => ({ line: Number(key.replace(/\D/g, '')) || 0, fields: { row: text } })));
+    setServerProblems(
+      Object.entries(answer.problem.fields).map(([key, text]) => ({
+        line: Number(key.replace(/\D/g, '')) || 0,
+        fields: { row: text },
+      })),
+    );
   };
 
   return (
@@ -76,12 +90,16 @@ export default function ImportRuns({ cars, onImported, send = sendRunRecords }: 
       <details className="rounded-md border border-rule p-3">
         <summary className="min-h-11 cursor-pointer font-semibold">What the file needs</summary>
         <p className="mt-2">
-          A header line with the columns <code>{RUN_CSV_COLUMNS.join(', ')}</code>; only <code>car</code> and <code>at</code> are required. <code>car</code> is the
-          car’s name exactly as on the cars page; <code>at</code> is a date and time with its offset, e.g. <code>2026-11-07T14:20:00Z</code>.
+          A header line with the columns <code>{RUN_CSV_COLUMNS.join(', ')}</code>; only <code>car</code> and{' '}
+          <code>at</code> are required. <code>car</code> is the car’s name exactly as on the cars page; <code>at</code>{' '}
+          is a date and time with its offset, e.g. <code>2026-11-07T14:20:00Z</code>.
         </p>
       </details>
       <p>
-        <a href="/samples/runs-sample.csv" download>Download a sample file</a> (ten invented runs for the demo cars) to see the layout.
+        <a href="/samples/runs-sample.csv" download>
+          Download a sample file
+        </a>{' '}
+        (ten invented runs for the demo cars) to see the layout.
       </p>
 
       <div className="flex flex-col gap-1">
@@ -115,18 +133,38 @@ export default function ImportRuns({ cars, onImported, send = sendRunRecords }: 
           <ImportPreview check={check} />
           {check.headerOk && bad > 0 && kept.length > 0 && (
             <label className="flex min-h-11 items-center gap-3 font-semibold">
-              <input type="checkbox" className="!min-h-0 !w-6 h-6" checked={leaveOut} onChange={(e) => setLeaveOut(e.target.checked)} disabled={phase.name === 'sending'} />
+              <input
+                type="checkbox"
+                className="h-6 !min-h-0 !w-6"
+                checked={leaveOut}
+                onChange={(e) => setLeaveOut(e.target.checked)}
+                disabled={phase.name === 'sending'}
+              />
               Leave out the {bad} row{bad === 1 ? '' : 's'} with problems
             </label>
           )}
           {phase.name !== 'done' && (
             <div className="flex flex-wrap items-center gap-3">
-              <button type="button" className="btn" onClick={() => void importRows()} disabled={blocked || phase.name === 'sending'}>
+              <button
+                type="button"
+                className="btn"
+                onClick={() => void importRows()}
+                disabled={blocked || phase.name === 'sending'}
+              >
                 {phase.name === 'sending' ? 'Importing…' : `Import ${kept.length} run${kept.length === 1 ? '' : 's'}`}
               </button>
-              {check.headerOk && bad > 0 && !leaveOut && kept.length > 0 && <p className="text-ink-soft">Nothing is imported while rows have problems: fix the file and choose it again, or leave those rows out.</p>}
-              {check.headerOk && kept.length === 0 && check.records.length > 0 && <p className="text-ink-soft">No row is ready to import.</p>}
-              {check.records.length === 0 && check.headerOk && <p className="text-ink-soft">The file has no rows under its header.</p>}
+              {check.headerOk && bad > 0 && !leaveOut && kept.length > 0 && (
+                <p className="text-ink-soft">
+                  Nothing is imported while rows have problems: fix the file and choose it again, or leave those rows
+                  out.
+                </p>
+              )}
+              {check.headerOk && kept.length === 0 && check.records.length > 0 && (
+                <p className="text-ink-soft">No row is ready to import.</p>
+              )}
+              {check.records.length === 0 && check.headerOk && (
+                <p className="text-ink-soft">The file has no rows under its header.</p>
+              )}
             </div>
           )}
         </>
@@ -155,7 +193,9 @@ export default function ImportRuns({ cars, onImported, send = sendRunRecords }: 
           {serverProblems.length > 0 && (
             <ul className="mt-1 list-disc pl-5">
               {serverProblems.slice(0, 20).map((p) => (
-                <li key={p.line}>Sent row {p.line}: {p.fields.row}</li>
+                <li key={p.line}>
+                  Sent row {p.line}: {p.fields.row}
+                </li>
               ))}
             </ul>
           )}

@@ -3,7 +3,15 @@ import type { RunView } from '../../lib/server/register/runs';
 import { fieldMessage, problemToSummary, type Answer, type Problem } from '../shared/api';
 import { useHydrated } from '../shared/use-hydrated';
 import { dateToLocalInput, isoToLocalText } from '../shared/when';
-import { checkBeforeSending, emptyRunForm, LANE_PICKS, ROUND_PICKS, runFormToBody, runToForm, type RunFormValues } from './run-form';
+import {
+  checkBeforeSending,
+  emptyRunForm,
+  LANE_PICKS,
+  ROUND_PICKS,
+  runFormToBody,
+  runToForm,
+  type RunFormValues,
+} from './run-form';
 import { clearDraft, readDraft, saveDraft } from './run-draft';
 
 export interface RunCar {
@@ -67,7 +75,8 @@ export function LogRunForm({ cars, run, lastEvent, draftKey, send, onSaved, onCa
   };
   const car = cars.find((c) => c.id === values.carId);
   const message = (field: string) => fieldMessage(problem, field);
-  const describe = (field: string, hint?: string) => [hint, message(field) ? `${id}-${field}-error` : ''].filter(Boolean).join(' ') || undefined;
+  const describe = (field: string, hint?: string) =>
+    [hint, message(field) ? `${id}-${field}-error` : ''].filter(Boolean).join(' ') || undefined;
   const errorText = (field: string) =>
     message(field) ? (
       <p id={`${id}-${field}-error`} className="field-error">
@@ -99,12 +108,19 @@ export function LogRunForm({ cars, run, lastEvent, draftKey, send, onSaved, onCa
     if (editing) return;
     if (draftKey) clearDraft(draftKey);
     setRestored(false);
-    setDone(`Run logged for ${car?.name ?? 'the car'} at ${isoToLocalText(answer.data.at)}. Every part in the car counts it.`);
+    setDone(
+      `Run logged for ${car?.name ?? 'the car'} at ${isoToLocalText(answer.data.at)}. Every part in the car counts it.`,
+    );
     setValues({ ...emptyRunForm(values.event), at: dateToLocalInput(new Date()) });
   };
 
   return (
-    <form onSubmit={submit} noValidate className="flex flex-col gap-5" aria-label={editing ? 'Edit the run' : 'Log a run'}>
+    <form
+      onSubmit={submit}
+      noValidate
+      className="flex flex-col gap-5"
+      aria-label={editing ? 'Edit the run' : 'Log a run'}
+    >
       <div ref={summaryRef} tabIndex={-1} className="outline-none focus-visible:outline-3">
         {problem && (
           <p className="notice notice-error" role="alert">
@@ -115,7 +131,15 @@ export function LogRunForm({ cars, run, lastEvent, draftKey, send, onSaved, onCa
       {restored && (
         <p className="notice flex flex-wrap items-center gap-3" role="status">
           This is the run you were logging on this device; it has not been sent yet.
-          <button type="button" className="btn btn-quiet" onClick={() => { if (draftKey) clearDraft(draftKey); setRestored(false); setValues({ ...emptyRunForm(lastEvent ?? ''), at: dateToLocalInput(new Date()) }); }}>
+          <button
+            type="button"
+            className="btn btn-quiet"
+            onClick={() => {
+              if (draftKey) clearDraft(draftKey);
+              setRestored(false);
+              setValues({ ...emptyRunForm(lastEvent ?? ''), at: dateToLocalInput(new Date()) });
+            }}
+          >
             Start again
           </button>
         </p>
@@ -126,7 +150,14 @@ export function LogRunForm({ cars, run, lastEvent, draftKey, send, onSaved, onCa
         <div className="grid grid-cols-2 gap-3 lg:grid-cols-3">
           {cars.map((c) => (
             <label key={c.id} className="choice !justify-start text-lg">
-              <input type="radio" className="sr-only" name={`${id}-car`} value={c.id} checked={values.carId === c.id} onChange={() => set({ carId: c.id })} />
+              <input
+                type="radio"
+                className="sr-only"
+                name={`${id}-car`}
+                value={c.id}
+                checked={values.carId === c.id}
+                onChange={() => set({ carId: c.id })}
+              />
               <span>
                 {c.name}
                 {c.carClass && <span className="block text-sm font-normal">{c.carClass}</span>}
@@ -134,7 +165,11 @@ export function LogRunForm({ cars, run, lastEvent, draftKey, send, onSaved, onCa
             </label>
           ))}
         </div>
-        {cars.length === 0 && <p>No cars yet: a crew chief adds them on the <a href="/cars">cars page</a>.</p>}
+        {cars.length === 0 && (
+          <p>
+            No cars yet: a crew chief adds them on the <a href="/cars">cars page</a>.
+          </p>
+        )}
         {errorText('carId')}
       </fieldset>
 
@@ -152,48 +187,99 @@ export function LogRunForm({ cars, run, lastEvent, draftKey, send, onSaved, onCa
               aria-describedby={describe('at', `${id}-at-hint`)}
             />
             {!editing && (
-              <button type="button" className="btn btn-quiet shrink-0" onClick={() => set({ at: dateToLocalInput(new Date()), atEdited: false })}>
+              <button
+                type="button"
+                className="btn btn-quiet shrink-0"
+                onClick={() => set({ at: dateToLocalInput(new Date()), atEdited: false })}
+              >
                 Now
               </button>
             )}
           </div>
           <p id={`${id}-at-hint`} className="text-sm text-ink-soft">
-            {editing ? 'In this device’s time zone.' : values.atEdited ? 'Set by hand. Tap Now to follow the clock again.' : 'Follows the clock: the run is logged at the moment you send it.'}
+            {editing
+              ? 'In this device’s time zone.'
+              : values.atEdited
+                ? 'Set by hand. Tap Now to follow the clock again.'
+                : 'Follows the clock: the run is logged at the moment you send it.'}
           </p>
           {errorText('at')}
         </div>
         <div className="flex min-w-0 flex-col gap-1">
           <label htmlFor={`${id}-event`}>Event</label>
           <div className="flex gap-2">
-            <input id={`${id}-event`} className="min-w-0 flex-1" autoComplete="off" value={values.event} onChange={(e) => set({ event: e.target.value })} aria-invalid={message('event') ? true : undefined} aria-describedby={describe('event', `${id}-event-hint`)} />
-            <button type="button" className="btn btn-quiet shrink-0" onClick={() => set({ event: '' })} disabled={!values.event} aria-label="Clear the event">
+            <input
+              id={`${id}-event`}
+              className="min-w-0 flex-1"
+              autoComplete="off"
+              value={values.event}
+              onChange={(e) => set({ event: e.target.value })}
+              aria-invalid={message('event') ? true : undefined}
+              aria-describedby={describe('event', `${id}-event-hint`)}
+            />
+            <button
+              type="button"
+              className="btn btn-quiet shrink-0"
+              onClick={() => set({ event: '' })}
+              disabled={!values.event}
+              aria-label="Clear the event"
+            >
               Clear
             </button>
           </div>
-          <p id={`${id}-event-hint`} className="text-sm text-ink-soft">{editing ? 'Optional.' : 'The last event used, until you change it.'}</p>
+          <p id={`${id}-event-hint`} className="text-sm text-ink-soft">
+            {editing ? 'Optional.' : 'The last event used, until you change it.'}
+          </p>
           {errorText('event')}
         </div>
       </div>
 
       <fieldset>
-        <legend className="mb-2 font-semibold">Round <span className="font-normal text-ink-soft">(optional)</span></legend>
+        <legend className="mb-2 font-semibold">
+          Round <span className="font-normal text-ink-soft">(optional)</span>
+        </legend>
         <div className="flex flex-wrap gap-2">
           {ROUND_PICKS.map((round) => (
-            <button key={round} type="button" className="chip" aria-pressed={values.round === round} onClick={() => set({ round: values.round === round ? '' : round })}>
+            <button
+              key={round}
+              type="button"
+              className="chip"
+              aria-pressed={values.round === round}
+              onClick={() => set({ round: values.round === round ? '' : round })}
+            >
               {round}
             </button>
           ))}
-          <label className="sr-only" htmlFor={`${id}-round`}>Round, typed</label>
-          <input id={`${id}-round`} className="!w-32" placeholder="other" autoComplete="off" value={values.round} onChange={(e) => set({ round: e.target.value })} aria-invalid={message('round') ? true : undefined} aria-describedby={describe('round')} />
+          <label className="sr-only" htmlFor={`${id}-round`}>
+            Round, typed
+          </label>
+          <input
+            id={`${id}-round`}
+            className="!w-32"
+            placeholder="other"
+            autoComplete="off"
+            value={values.round}
+            onChange={(e) => set({ round: e.target.value })}
+            aria-invalid={message('round') ? true : undefined}
+            aria-describedby={describe('round')}
+          />
         </div>
         {errorText('round')}
       </fieldset>
 
       <fieldset>
-        <legend className="mb-2 font-semibold">Lane <span className="font-normal text-ink-soft">(optional)</span></legend>
+        <legend className="mb-2 font-semibold">
+          Lane <span className="font-normal text-ink-soft">(optional)</span>
+        </legend>
         <div className="flex flex-wrap gap-2">
           {LANE_PICKS.map((lane) => (
-            <button key={lane.value} type="button" className="chip" aria-pressed={values.lane === lane.value} onClick={() => set({ lane: values.lane === lane.value ? '' : lane.value })}>
+            <button
+              key={lane.value}
+              type="button"
+              className="chip"
+              aria-pressed={values.lane === lane.value}
+              onClick={() => set({ lane: values.lane === lane.value ? '' : lane.value })}
+            >
               {lane.label}
             </button>
           ))}
@@ -203,20 +289,51 @@ export function LogRunForm({ cars, run, lastEvent, draftKey, send, onSaved, onCa
 
       <div className="grid grid-cols-2 gap-4">
         <div className="flex min-w-0 flex-col gap-1">
-          <label htmlFor={`${id}-et`}>ET, seconds <span className="font-normal text-ink-soft">(optional)</span></label>
-          <input id={`${id}-et`} inputMode="decimal" autoComplete="off" placeholder="e.g. 5.981" value={values.elapsed} onChange={(e) => set({ elapsed: e.target.value })} aria-invalid={message('elapsedSeconds') ? true : undefined} aria-describedby={describe('elapsedSeconds')} />
+          <label htmlFor={`${id}-et`}>
+            ET, seconds <span className="font-normal text-ink-soft">(optional)</span>
+          </label>
+          <input
+            id={`${id}-et`}
+            inputMode="decimal"
+            autoComplete="off"
+            placeholder="e.g. 5.981"
+            value={values.elapsed}
+            onChange={(e) => set({ elapsed: e.target.value })}
+            aria-invalid={message('elapsedSeconds') ? true : undefined}
+            aria-describedby={describe('elapsedSeconds')}
+          />
           {errorText('elapsedSeconds')}
         </div>
         <div className="flex min-w-0 flex-col gap-1">
-          <label htmlFor={`${id}-mph`}>Speed, mph <span className="font-normal text-ink-soft">(optional)</span></label>
-          <input id={`${id}-mph`} inputMode="decimal" autoComplete="off" placeholder="e.g. 248.6" value={values.speed} onChange={(e) => set({ speed: e.target.value })} aria-invalid={message('speedMph') ? true : undefined} aria-describedby={describe('speedMph')} />
+          <label htmlFor={`${id}-mph`}>
+            Speed, mph <span className="font-normal text-ink-soft">(optional)</span>
+          </label>
+          <input
+            id={`${id}-mph`}
+            inputMode="decimal"
+            autoComplete="off"
+            placeholder="e.g. 248.6"
+            value={values.speed}
+            onChange={(e) => set({ speed: e.target.value })}
+            aria-invalid={message('speedMph') ? true : undefined}
+            aria-describedby={describe('speedMph')}
+          />
           {errorText('speedMph')}
         </div>
       </div>
 
       <div className="flex flex-col gap-1">
-        <label htmlFor={`${id}-notes`}>Notes <span className="font-normal text-ink-soft">(optional)</span></label>
-        <textarea id={`${id}-notes`} rows={2} value={values.notes} onChange={(e) => set({ notes: e.target.value })} aria-invalid={message('notes') ? true : undefined} aria-describedby={describe('notes')} />
+        <label htmlFor={`${id}-notes`}>
+          Notes <span className="font-normal text-ink-soft">(optional)</span>
+        </label>
+        <textarea
+          id={`${id}-notes`}
+          rows={2}
+          value={values.notes}
+          onChange={(e) => set({ notes: e.target.value })}
+          aria-invalid={message('notes') ? true : undefined}
+          aria-describedby={describe('notes')}
+        />
         {errorText('notes')}
       </div>
 

@@ -35,7 +35,8 @@ export function RecentRuns({ runs, cars, canEdit, onChanged, onDeleted }: Props)
             <div className="flex flex-wrap items-start justify-between gap-3">
               <div className="min-w-52 flex-1">
                 <p>
-                  <strong className="text-lg">{carName(run.carId)}</strong> · <time dateTime={run.at}>{isoToText(run.at, hydrated)}</time>
+                  <strong className="text-lg">{carName(run.carId)}</strong> ·{' '}
+                  <time dateTime={run.at}>{isoToText(run.at, hydrated)}</time>
                 </p>
                 <p className="flex flex-wrap gap-x-4">
                   {details && <span>{details}</span>}
@@ -45,7 +46,12 @@ export function RecentRuns({ runs, cars, canEdit, onChanged, onDeleted }: Props)
               </div>
               {canEdit && editing !== run.id && (
                 <div className="flex flex-wrap gap-2">
-                  <button type="button" className="btn btn-quiet" onClick={() => setEditing(run.id)} aria-label={`Edit the run of ${carName(run.carId)} at ${isoToText(run.at, hydrated)}`}>
+                  <button
+                    type="button"
+                    className="btn btn-quiet"
+                    onClick={() => setEditing(run.id)}
+                    aria-label={`Edit the run of ${carName(run.carId)} at ${isoToText(run.at, hydrated)}`}
+                  >
                     Edit
                   </button>
                   <ConfirmAction
@@ -75,7 +81,9 @@ export function RecentRuns({ runs, cars, canEdit, onChanged, onDeleted }: Props)
                 <LogRunForm
                   cars={cars}
                   run={run}
-                  send={(body) => callApi<RunView>(`/api/runs/${encodeURIComponent(run.id)}`, { method: 'PATCH', body })}
+                  send={(body) =>
+                    callApi<RunView>(`/api/runs/${encodeURIComponent(run.id)}`, { method: 'PATCH', body })
+                  }
                   onSaved={(saved) => {
                     setEditing(null);
                     onChanged(saved);

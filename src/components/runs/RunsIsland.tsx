@@ -34,30 +34,48 @@ export default function RunsIsland({ teamId, cars, initialPage, canRecord, canEd
     const answer = await callApi<Page<RunView>>(next ? `${PAGE_PATH}&cursor=${encodeURIComponent(next)}` : PAGE_PATH);
     setLoading(false);
     if (!answer.ok) return setListProblem(answer.problem.message);
-    setRuns((current) => (next ? [...current, ...answer.data.items.filter((r) => !current.some((c) => c.id === r.id))] : answer.data.items));
+    setRuns((current) =>
+      next ? [...current, ...answer.data.items.filter((r) => !current.some((c) => c.id === r.id))] : answer.data.items,
+    );
     setCursor(answer.data.nextCursor);
   };
-  const upsert = (run: RunView) => setRuns((current) => [run, ...current.filter((r) => r.id !== run.id)].sort(byNewest));
+  const upsert = (run: RunView) =>
+    setRuns((current) => [run, ...current.filter((r) => r.id !== run.id)].sort(byNewest));
 
   return (
     <div className="flex flex-col gap-6">
       {canRecord && (
         <section aria-labelledby="log-heading" className="card">
-          <h2 id="log-heading" className="mb-3">Log a run</h2>
-          <LogRunForm cars={cars} lastEvent={lastEvent} draftKey={`lashline:run-draft:${teamId}`} send={(body) => callApi<RunView>('/api/runs', { method: 'POST', body, headers: { 'Idempotency-Key': runKey(body) } })} onSaved={upsert} />
+          <h2 id="log-heading" className="mb-3">
+            Log a run
+          </h2>
+          <LogRunForm
+            cars={cars}
+            lastEvent={lastEvent}
+            draftKey={`lashline:run-draft:${teamId}`}
+            send={(body) =>
+              callApi<RunView>('/api/runs', { method: 'POST', body, headers: { 'Idempotency-Key': runKey(body) } })
+            }
+            onSaved={upsert}
+          />
         </section>
       )}
 
       {canRecord && (
         <section aria-labelledby="import-heading" className="card">
-          <h2 id="import-heading" className="mb-2">Import runs from a file</h2>
+          <h2 id="import-heading" className="mb-2">
+            Import runs from a file
+          </h2>
           {importing ? (
             <Suspense fallback={<p role="status">Loading the import…</p>}>
               <ImportRuns cars={cars} onImported={() => void load(null)} />
             </Suspense>
           ) : (
             <>
-              <p className="mb-3">A CSV file with one run a line, from a timing system or a spreadsheet. Every row is checked on this device before anything is sent.</p>
+              <p className="mb-3">
+                A CSV file with one run a line, from a timing system or a spreadsheet. Every row is checked on this
+                device before anything is sent.
+              </p>
               <button type="button" className="btn" onClick={() => setImporting(true)}>
                 Import a CSV file
               </button>
@@ -77,14 +95,19 @@ export default function RunsIsland({ teamId, cars, initialPage, canRecord, canEd
             {listProblem}
           </p>
         )}
-        <RecentRuns runs={runs} cars={cars} canEdit={canEdit} onChanged={upsert} onDeleted={(id) => setRuns((current) => current.filter((r) => r.id !== id))} />
+        <RecentRuns
+          runs={runs}
+          cars={cars}
+          canEdit={canEdit}
+          onChanged={upsert}
+          onDeleted={(id) => setRuns((current) => current.filter((r) => r.id !== id))}
+        />
         {cursor && (
           <button type="button" className="btn btn-quiet mt-3" onClick={() => void load(cursor)} disabled={loading}>
             {loading ? 'Loading…' : 'Show older runs'}
           </button>
         )}
       </section>
-
     </div>
   );
 }

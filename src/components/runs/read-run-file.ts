@@ -23,7 +23,12 @@ function mergeByLine(problems: RowProblem[]): RowProblem[] {
   return [...byLine.entries()].sort((a, b) => a[0] - b[0]).map(([line, fields]) => ({ line, fields }));
 }
 
-export function readRunFile(file: File | string, cars: readonly { id: string; name: string }[], now: Date, onProgress: (share: number) => void): Promise<FileCheck> {
+export function readRunFile(
+  file: File | string,
+  cars: readonly { id: string; name: string }[],
+  now: Date,
+  onProgress: (share: number) => void,
+): Promise<FileCheck> {
   const size = typeof file === 'string' ? file.length : file.size;
   return new Promise((resolve, reject) => {
     const records: Record<string, string>[] = [];
@@ -41,13 +46,17 @@ export function readRunFile(file: File | string, cars: readonly { id: string; na
           const missing = ['car', 'at'].filter((column) => !results.meta.fields?.includes(column));
           if (missing.length) {
             headerOk = false;
-            problems.push({ line: 1, fields: { header: `The header needs the column${missing.length > 1 ? 's' : ''} ${missing.join(', ')}.` } });
+            problems.push({
+              line: 1,
+              fields: { header: `The header needs the column${missing.length > 1 ? 's' : ''} ${missing.join(', ')}.` },
+            });
             parser.abort();
             return;
           }
         }
         const firstLine = 2 + records.length;
-        for (const error of results.errors) problems.push({ line: 2 + (error.row ?? records.length), fields: { file: error.message } });
+        for (const error of results.errors)
+          problems.push({ line: 2 + (error.row ?? records.length), fields: { file: error.message } });
         problems.push(...checkRunRecords(results.data, cars, now, firstLine).problems);
         records.push(...results.data);
         onProgress(size ? Math.min(1, results.meta.cursor / size) : 1);

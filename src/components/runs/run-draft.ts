@@ -7,7 +7,9 @@ import type { RunFormValues } from './run-form';
 const MAX_AGE_MS = 12 * 60 * 60 * 1000;
 
 function isWorthKeeping(values: RunFormValues): boolean {
-  return Boolean(values.carId || values.round || values.lane || values.elapsed || values.speed || values.notes || values.atEdited);
+  return Boolean(
+    values.carId || values.round || values.lane || values.elapsed || values.speed || values.notes || values.atEdited,
+  );
 }
 
 export function saveDraft(key: string, values: RunFormValues): void {

@@ -9,7 +9,10 @@ export interface ImportAnswer {
  * POST /api/runs/import with `{ records }`. XMLHttpRequest rather than fetch, for its upload
  * progress: a few thousand rows over a weak signal take a while.
  */
-export function sendRunRecords(records: Record<string, string>[], onProgress: (share: number) => void): Promise<Answer<ImportAnswer>> {
+export function sendRunRecords(
+  records: Record<string, string>[],
+  onProgress: (share: number) => void,
+): Promise<Answer<ImportAnswer>> {
   return new Promise((resolve) => {
     const xhr = new XMLHttpRequest();
     xhr.open('POST', '/api/runs/import');
@@ -27,14 +30,27 @@ export function sendRunRecords(records: Record<string, string>[], onProgress: (s
       } catch {
         body = undefined;
       }
-      if (xhr.status >= 200 && xhr.status < 300) return resolve({ ok: true, status: xhr.status, data: body as ImportAnswer });
+      if (xhr.status >= 200 && xhr.status < 300)
+        return resolve({ ok: true, status: xhr.status, data: body as ImportAnswer });
       const error = (body as { error?: { message?: string; fields?: Record<string, string> } } | undefined)?.error;
-      resolve({ ok: false, problem: { status: xhr.status, message: error?.message ?? `The server answered ${xhr.status}; nothing was imported.`, fields: error?.fields ?? {} } });
+      resolve({
+        ok: false,
+        problem: {
+          status: xhr.status,
+          message: error?.message ?? `The server answered ${xhr.status}; nothing was imported.`,
+          fields: error?.fields ?? {},
+        },
+      });
     };
     const lost = () =>
       resolve({
         ok: false,
-        problem: { status: 0, message: 'No answer from the server, so Lashline cannot tell whether the runs were imported. Check the recent runs before sending the file again.', fields: {} },
+        problem: {
+          status: 0,
+          message:
+            'No answer from the server, so Lashline cannot tell whether the runs were imported. Check the recent runs before sending the file again.',
+          fields: {},
+        },
       });
     xhr.onerror = lost;
     xhr.ontimeout = lost;

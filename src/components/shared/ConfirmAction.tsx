@@ -29,14 +29,27 @@ export function ConfirmAction({ label, ariaLabel, question, confirmLabel, onConf
 
   if (!asking) {
     return (
-      <button ref={startRef} type="button" className="btn btn-danger" aria-label={ariaLabel} onClick={() => setAsking(true)} disabled={busy}>
+      <button
+        ref={startRef}
+        type="button"
+        className="btn btn-danger"
+        aria-label={ariaLabel}
+        onClick={() => setAsking(true)}
+        disabled={busy}
+      >
         {label}
       </button>
     );
   }
   return (
-    <div role="group" aria-labelledby={questionId} className="flex flex-wrap items-center gap-2 rounded-md border-2 border-alarm bg-alarm-wash p-2">
-      <p id={questionId} className="font-semibold">{question}</p>
+    <div
+      role="group"
+      aria-labelledby={questionId}
+      className="flex flex-wrap items-center gap-2 rounded-md border-2 border-alarm bg-alarm-wash p-2"
+    >
+      <p id={questionId} className="font-semibold">
+        {question}
+      </p>
       <button
         type="button"
         className="btn btn-danger !bg-panel"

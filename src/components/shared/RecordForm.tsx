@@ -48,7 +48,9 @@ export function RecordForm<T>({ endpoint, fields, submitLabel, onSaved }: Props<
       {fields.map((field) => {
         const inputId = `${id}-${field.name}`;
         const message = fieldMessage(problem, field.name);
-        const describedBy = [field.hint ? `${inputId}-hint` : '', message ? `${inputId}-error` : ''].filter(Boolean).join(' ') || undefined;
+        const describedBy =
+          [field.hint ? `${inputId}-hint` : '', message ? `${inputId}-error` : ''].filter(Boolean).join(' ') ||
+          undefined;
         const common = {
           id: inputId,
           name: field.name,

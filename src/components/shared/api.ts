@@ -28,13 +28,17 @@ function lostMessage(method: string): string {
 
 function bodyToProblem(status: number, body: unknown): Problem {
   const error = (body as { error?: { message?: unknown; fields?: unknown } } | null)?.error;
-  const message = typeof error?.message === 'string' ? error.message : `The server answered ${status}; nothing was changed.`;
+  const message =
+    typeof error?.message === 'string' ? error.message : `The server answered ${status}; nothing was changed.`;
   const fields = error?.fields && typeof error.fields === 'object' ? (error.fields as Record<string, string>) : {};
   return { status, message, fields };
 }
 
 /** Calls the API with JSON; never throws. */
-export async function callApi<T>(path: string, options: { method?: string; body?: unknown; timeoutMs?: number; headers?: Record<string, string> } = {}): Promise<Answer<T>> {
+export async function callApi<T>(
+  path: string,
+  options: { method?: string; body?: unknown; timeoutMs?: number; headers?: Record<string, string> } = {},
+): Promise<Answer<T>> {
   const method = options.method ?? 'GET';
   const controller = new AbortController();
   const timer = setTimeout(() => controller.abort(), options.timeoutMs ?? TIMEOUT_MS);
@@ -42,7 +46,11 @@ export async function callApi<T>(path: string, options: { method?: string; body?
     const response = await fetch(path, {
       method,
       credentials: 'same-origin',
-      headers: { Accept: 'application/json', ...(options.body === undefined ? {} : { 'Content-Type': 'application/json' }), ...options.headers },
+      headers: {
+        Accept: 'application/json',
+        ...(options.body === undefined ? {} : { 'Content-Type': 'application/json' }),
+        ...options.headers,
+      },
       body: options.body === undefined ? undefined : JSON.stringify(options.body),
       signal: controller.signal,
     });
@@ -102,6 +110,9 @@ export function messageWithoutField(problem: Problem): string {
  */
 export function problemToSummary(problem: Problem): string {
   const count = Object.keys(problem.fields).length;
-  if (problem.status === 400 && count > 0) return count === 1 ? 'One field needs fixing; see the message beside it.' : `${count} fields need fixing; see the messages beside them.`;
+  if (problem.status === 400 && count > 0)
+    return count === 1
+      ? 'One field needs fixing; see the message beside it.'
+      : `${count} fields need fixing; see the messages beside them.`;
   return messageWithoutField(problem);
 }

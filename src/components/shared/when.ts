@@ -11,7 +11,14 @@ export function isoToUtcText(iso: string): string {
 
 /** A short local date and time, e.g. "Sat 24 Oct 2026, 15:05". */
 export function isoToLocalText(iso: string): string {
-  return new Date(iso).toLocaleString(undefined, { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' });
+  return new Date(iso).toLocaleString(undefined, {
+    weekday: 'short',
+    day: 'numeric',
+    month: 'short',
+    year: 'numeric',
+    hour: '2-digit',
+    minute: '2-digit',
+  });
 }
 
 export function isoToText(iso: string, local: boolean): string {

@@ -101,7 +101,9 @@ function collectReasons(input: RecommendationInput): RecommendationReason[] {
   }
   for (const { measure, verdict } of input.verdicts ?? []) {
     if (verdict === 'out-of-band') {
-      const message = OUT_OF_BAND[measure] ?? `${measureToLabel(measure)} is outside its band: set it up again to the maker's figures.`;
+      const message =
+        OUT_OF_BAND[measure] ??
+        `${measureToLabel(measure)} is outside its band: set it up again to the maker's figures.`;
       add(`${measure}-out-of-band`, 're-shim', 'critical', message);
     } else if (verdict === 'near-limit') {
       add(
@@ -118,7 +120,9 @@ function collectReasons(input: RecommendationInput): RecommendationReason[] {
     if (runsLeft === null || runsLeft > interval) continue;
     // A backlash heading out of its band is corrected with shims now rather than found out of band later.
     const action: RecommendedAction = isBacklash(measure) ? 're-shim' : 'watch';
-    const when = alreadyPast ? `The ${measureToLabel(measure).toLowerCase()} trend line is already past` : `At this rate the ${measureToLabel(measure).toLowerCase()} reaches`;
+    const when = alreadyPast
+      ? `The ${measureToLabel(measure).toLowerCase()} trend line is already past`
+      : `At this rate the ${measureToLabel(measure).toLowerCase()} reaches`;
     add(
       `${measure}-limit-before-next-service`,
       action,

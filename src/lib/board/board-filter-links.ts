@@ -31,14 +31,25 @@ export function carChoices(filter: BoardFilter, cars: readonly { id: string; nam
     ...cars.map((c) => ({ car: c.id, label: c.name })),
     { car: 'none', label: 'Not in a car' },
   ];
-  return options.map((o) => ({ label: o.label, href: boardFilterHref(filter, { car: o.car }), current: filter.car === o.car }));
+  return options.map((o) => ({
+    label: o.label,
+    href: boardFilterHref(filter, { car: o.car }),
+    current: filter.car === o.car,
+  }));
 }
 
 /** Any status in use, then each one by its label. */
-export function statusChoices(filter: BoardFilter, labels: Readonly<Record<(typeof IN_USE_STATUSES)[number], string>>): FilterChoice[] {
+export function statusChoices(
+  filter: BoardFilter,
+  labels: Readonly<Record<(typeof IN_USE_STATUSES)[number], string>>,
+): FilterChoice[] {
   const options: { status: BoardFilter['status']; label: string }[] = [
     { status: null, label: 'Any in use' },
     ...IN_USE_STATUSES.map((s) => ({ status: s, label: labels[s] })),
   ];
-  return options.map((o) => ({ label: o.label, href: boardFilterHref(filter, { status: o.status }), current: filter.status === o.status }));
+  return options.map((o) => ({
+    label: o.label,
+    href: boardFilterHref(filter, { status: o.status }),
+    current: filter.status === o.status,
+  }));
 }

@@ -60,13 +60,18 @@ const NEVER_RUNS = 100_000;
 const TREND_WORDS: Readonly<Record<string, string>> = { 'backlash-mean': 'mean backlash', spread: 'spread' };
 
 /** The nearest limit ahead: the life limit or a trend crossing, whichever comes first. */
-export function findProjectedRunsLeft(set: Pick<BoardGearSet, 'totalRuns' | 'lifeLimitRuns'>, analysis: Pick<BoardAnalysis, 'trends'> | null): BoardRow['projected'] {
+export function findProjectedRunsLeft(
+  set: Pick<BoardGearSet, 'totalRuns' | 'lifeLimitRuns'>,
+  analysis: Pick<BoardAnalysis, 'trends'> | null,
+): BoardRow['projected'] {
   const candidates: { runs: number; what: string }[] = [];
   if (set.lifeLimitRuns !== null) candidates.push({ runs: set.lifeLimitRuns - set.totalRuns, what: 'life limit' });
   for (const trend of analysis?.trends ?? []) {
     const what = TREND_WORDS[trend.measure] ?? trend.measure;
-    if (trend.projection.reason?.code === 'already-past-limit') candidates.push({ runs: 0, what: `${what} past its limit` });
-    else if (trend.projection.runsToLimit !== null && trend.projection.runsToLimit < NEVER_RUNS) candidates.push({ runs: Math.floor(trend.projection.runsToLimit), what });
+    if (trend.projection.reason?.code === 'already-past-limit')
+      candidates.push({ runs: 0, what: `${what} past its limit` });
+    else if (trend.projection.runsToLimit !== null && trend.projection.runsToLimit < NEVER_RUNS)
+      candidates.push({ runs: Math.floor(trend.projection.runsToLimit), what });
   }
   if (candidates.length === 0) return null;
   return candidates.reduce((a, b) => (b.runs < a.runs ? b : a));
@@ -76,12 +81,22 @@ export function findProjectedRunsLeft(set: Pick<BoardGearSet, 'totalRuns' | 'lif
  * One board row from a gear set, its analysis and where its assembly sits.
  * `carOf(assemblyId)` answers the car an assembly is in, or null.
  */
-export function toBoardRow(set: BoardGearSet, analysis: BoardAnalysis | null, carOf: (assemblyId: string) => { id: string; name: string } | null, carName: (carId: string) => string | null): BoardRow {
+export function toBoardRow(
+  set: BoardGearSet,
+  analysis: BoardAnalysis | null,
+  carOf: (assemblyId: string) => { id: string; name: string } | null,
+  carName: (carId: string) => string | null,
+): BoardRow {
   const loc = set.location;
-  const car = !loc ? null : loc.targetType === 'car' ? { id: loc.targetId, name: carName(loc.targetId) ?? loc.label } : carOf(loc.targetId);
+  const car = !loc
+    ? null
+    : loc.targetType === 'car'
+      ? { id: loc.targetId, name: carName(loc.targetId) ?? loc.label }
+      : carOf(loc.targetId);
   const verdicts = analysis?.latest?.summary.verdicts ?? [];
   const verdict = worstVerdict(verdicts);
-  const worst = verdict && verdict !== 'in-band' ? (verdicts.find((v) => v.verdict === verdict)?.measure ?? null) : null;
+  const worst =
+    verdict && verdict !== 'in-band' ? (verdicts.find((v) => v.verdict === verdict)?.measure ?? null) : null;
   const lifeRunsLeft = set.lifeLimitRuns === null ? null : set.lifeLimitRuns - set.totalRuns;
   let action = analysis?.recommendation?.action ?? null;
   const first = analysis?.recommendation?.reasons[0];
@@ -158,13 +173,16 @@ export function readBoardFilter(params: URLSearchParams, carIds: readonly string
  * Spare sets that could go in now: within their life and with no inspection asking to retire or re-shim.
  * Also says why each other spare is not ready.
  */
-export function splitSpares<T extends BoardRow>(rows: readonly T[]): { ready: T[]; notReady: { row: T; why: string }[] } {
+export function splitSpares<T extends BoardRow>(
+  rows: readonly T[],
+): { ready: T[]; notReady: { row: T; why: string }[] } {
   const ready: T[] = [];
   const notReady: { row: T; why: string }[] = [];
   for (const row of rows) {
     if (row.status !== 'spare') continue;
     if (row.lifeRunsLeft !== null && row.lifeRunsLeft <= 0) notReady.push({ row, why: 'at or past its life limit' });
-    else if (row.action === 'retire' || row.action === 're-shim') notReady.push({ row, why: `its last inspection says ${row.action}` });
+    else if (row.action === 'retire' || row.action === 're-shim')
+      notReady.push({ row, why: `its last inspection says ${row.action}` });
     else ready.push(row);
   }
   ready.sort((a, b) => (b.lifeRunsLeft ?? Infinity) - (a.lifeRunsLeft ?? Infinity) || a.serial.localeCompare(b.serial));

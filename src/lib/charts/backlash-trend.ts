@@ -1,9 +1,26 @@
 // Mean backlash against runs: each inspection's mean with its min–max, the tolerance band, the fitted
 // line and its projection to the limit it is heading for. Pure.
 
-import { coarsestResolution, decimalsFor, isoToDayText, lengthToText, resolutionStep, stepTicks, valueDomain } from './format';
+import {
+  coarsestResolution,
+  decimalsFor,
+  isoToDayText,
+  lengthToText,
+  resolutionStep,
+  stepTicks,
+  valueDomain,
+} from './format';
 import type { GearSetChartInput } from './gear-set-input';
-import { countToText, fitToLine, projectionHorizon, runDomain, shapeProjection, X_LABEL, type TrendChartPoint, type TrendChartShape } from './trend-chart';
+import {
+  countToText,
+  fitToLine,
+  projectionHorizon,
+  runDomain,
+  shapeProjection,
+  X_LABEL,
+  type TrendChartPoint,
+  type TrendChartShape,
+} from './trend-chart';
 
 /**
  * Shapes the mean-backlash trend of a gear set.
@@ -12,7 +29,10 @@ import { countToText, fitToLine, projectionHorizon, runDomain, shapeProjection, 
 export function shapeBacklashTrend(input: GearSetChartInput): TrendChartShape {
   const { unit, life } = input;
   const inspected = input.inspections.filter((i) => i.backlash !== null);
-  const resolution = coarsestResolution(inspected.map((i) => i.resolution), unit);
+  const resolution = coarsestResolution(
+    inspected.map((i) => i.resolution),
+    unit,
+  );
   const format = (value: number) => lengthToText(value, unit, resolution);
   const band = input.limits.backlash;
 
@@ -38,11 +58,33 @@ export function shapeBacklashTrend(input: GearSetChartInput): TrendChartShape {
   const trend = input.trends.backlashMean;
   const lastRuns = Math.max(0, ...points.map((p) => p.runs));
   const horizon = projectionHorizon(lastRuns, life.lifeLimitRuns);
-  const shaped = trend && points.length > 0 ? shapeProjection(trend.fit, trend.projection, trend.limits, horizon, { measure: 'mean backlash', formatValue: format, unitLabel: unit }) : null;
-  const fit = trend ? fitToLine(trend.fit, points.map((p) => p.runs)) : null;
-  const x = runDomain(points.map((p) => p.runs), life.lifeLimitRuns, shaped?.line?.to.runs ?? null);
+  const shaped =
+    trend && points.length > 0
+      ? shapeProjection(trend.fit, trend.projection, trend.limits, horizon, {
+          measure: 'mean backlash',
+          formatValue: format,
+          unitLabel: unit,
+        })
+      : null;
+  const fit = trend
+    ? fitToLine(
+        trend.fit,
+        points.map((p) => p.runs),
+      )
+    : null;
+  const x = runDomain(
+    points.map((p) => p.runs),
+    life.lifeLimitRuns,
+    shaped?.line?.to.runs ?? null,
+  );
 
-  const values = [band.min, band.max, ...inspected.flatMap((i) => [i.backlash!.min, i.backlash!.max]), ...(fit ?? []).map((p) => p.value), ...(shaped?.line ? [shaped.line.from.value] : [])];
+  const values = [
+    band.min,
+    band.max,
+    ...inspected.flatMap((i) => [i.backlash!.min, i.backlash!.max]),
+    ...(fit ?? []).map((p) => p.value),
+    ...(shaped?.line ? [shaped.line.from.value] : []),
+  ];
   const step = resolutionStep(resolution, unit);
   const yDomain = valueDomain(values, step);
   const bandText = `${format(band.min)}–${format(band.max)} ${unit}`;
@@ -51,7 +93,8 @@ export function shapeBacklashTrend(input: GearSetChartInput): TrendChartShape {
   let state: TrendChartShape['state'];
   if (points.length === 0) {
     state = 'empty';
-    message = 'No submitted inspection yet. Record the first teardown inspection; with three, the chart projects where the lash is heading.';
+    message =
+      'No submitted inspection yet. Record the first teardown inspection; with three, the chart projects where the lash is heading.';
   } else {
     state = points.length < 3 ? 'sparse' : 'ready';
     message = shaped?.message ?? 'No projection.';
@@ -74,7 +117,8 @@ export function shapeBacklashTrend(input: GearSetChartInput): TrendChartShape {
     limitLines: [],
     fit,
     projection: shaped?.line ?? null,
-    lifeLimit: life.lifeLimitRuns === null ? null : { runs: life.lifeLimitRuns, label: `life limit ${life.lifeLimitRuns}` },
+    lifeLimit:
+      life.lifeLimitRuns === null ? null : { runs: life.lifeLimitRuns, label: `life limit ${life.lifeLimitRuns}` },
     xDomain: x.domain,
     xTicks: x.ticks,
     yDomain,

@@ -96,7 +96,12 @@ export function shapeComparison(before: ComparableInspection, after: ComparableI
     deltaText: c.delta === null ? '—' : `${deltaToText(c.delta, unit, coarse)} ${unit}`,
     delta: c.delta,
     flagged: c.flagged,
-    note: c.delta === null ? 'Not in both inspections.' : c.flagged ? `Changed by more than ${thresholdText}: more than the indicator explains.` : `Within ${thresholdText}: the indicator could account for it.`,
+    note:
+      c.delta === null
+        ? 'Not in both inspections.'
+        : c.flagged
+          ? `Changed by more than ${thresholdText}: more than the indicator explains.`
+          : `Within ${thresholdText}: the indicator could account for it.`,
   }));
   const torqueLabel = torqueUnitToLabel(after.summary.torqueUnit);
   const preloadOf = (i: ComparableInspection) => i.summary.verdicts.find((v) => v.measure.startsWith('pinion-preload'));
@@ -109,7 +114,10 @@ export function shapeComparison(before: ComparableInspection, after: ComparableI
       label: 'Pinion turning torque',
       beforeText: pb ? `${torqueToText(pb.value)} ${torqueLabel} (${bearings(before)})` : '—',
       afterText: pa ? `${torqueToText(pa.value)} ${torqueLabel} (${bearings(after)})` : '—',
-      deltaText: pb && pa ? `${pa.value - pb.value >= 0.05 ? '+' : pa.value - pb.value <= -0.05 ? '−' : ''}${torqueToText(Math.abs(pa.value - pb.value))} ${torqueLabel}` : '—',
+      deltaText:
+        pb && pa
+          ? `${pa.value - pb.value >= 0.05 ? '+' : pa.value - pb.value <= -0.05 ? '−' : ''}${torqueToText(Math.abs(pa.value - pb.value))} ${torqueLabel}`
+          : '—',
       delta: pb && pa ? pa.value - pb.value : null,
       flagged: false,
       note: 'Torque is not judged against the indicator; compare it with its band.',
@@ -117,18 +125,35 @@ export function shapeComparison(before: ComparableInspection, after: ComparableI
   }
   const flaggedCount = rows.filter((r) => r.flagged).length;
   const summary = flaggedCount
-    ? `${flaggedCount} of ${rows.length} figures changed by more than ${thresholdText}: ${rows.filter((r) => r.flagged).map((r) => r.label.toLowerCase()).join(', ')}.`
+    ? `${flaggedCount} of ${rows.length} figures changed by more than ${thresholdText}: ${rows
+        .filter((r) => r.flagged)
+        .map((r) => r.label.toLowerCase())
+        .join(', ')}.`
     : `No figure changed by more than ${thresholdText}, two graduations of the coarser indicator.`;
-  return { before: { id: before.id, title: inspectionToTitle(before) }, after: { id: after.id, title: inspectionToTitle(after) }, unit, thresholdText, rows, flaggedCount, summary };
+  return {
+    before: { id: before.id, title: inspectionToTitle(before) },
+    after: { id: after.id, title: inspectionToTitle(after) },
+    unit,
+    thresholdText,
+    rows,
+    flaggedCount,
+    summary,
+  };
 }
 
 /** Submitted inspections oldest first (by runs, then date), as the trend orders them. */
-export function sortInspections<T extends Pick<ComparableInspection, 'status' | 'runsAtInspection' | 'inspectedAt'>>(items: readonly T[]): T[] {
-  return items.filter((i) => i.status === 'submitted').sort((a, b) => a.runsAtInspection - b.runsAtInspection || a.inspectedAt.localeCompare(b.inspectedAt));
+export function sortInspections<T extends Pick<ComparableInspection, 'status' | 'runsAtInspection' | 'inspectedAt'>>(
+  items: readonly T[],
+): T[] {
+  return items
+    .filter((i) => i.status === 'submitted')
+    .sort((a, b) => a.runsAtInspection - b.runsAtInspection || a.inspectedAt.localeCompare(b.inspectedAt));
 }
 
 /** The submitted inspection just before `id` in the set's order, or null for the first. */
-export function findPreviousInspection<T extends Pick<ComparableInspection, 'id' | 'status' | 'runsAtInspection' | 'inspectedAt'>>(items: readonly T[], id: string): T | null {
+export function findPreviousInspection<
+  T extends Pick<ComparableInspection, 'id' | 'status' | 'runsAtInspection' | 'inspectedAt'>,
+>(items: readonly T[], id: string): T | null {
   const sorted = sortInspections(items);
   const index = sorted.findIndex((i) => i.id === id);
   if (index > 0) return sorted[index - 1]!;
@@ -136,14 +161,19 @@ export function findPreviousInspection<T extends Pick<ComparableInspection, 'id'
   // A draft is not in the order yet: its previous is the latest submitted one before it in runs.
   const self = items.find((i) => i.id === id);
   if (!self) return null;
-  return sorted.filter((i) => i.runsAtInspection <= self.runsAtInspection && i.inspectedAt <= self.inspectedAt).at(-1) ?? null;
+  return (
+    sorted.filter((i) => i.runsAtInspection <= self.runsAtInspection && i.inspectedAt <= self.inspectedAt).at(-1) ??
+    null
+  );
 }
 
 /**
  * Which two inspections the compare page shows: the requested ones when both belong to the set,
  * else the latest and the one before. Returns nulls when the set has fewer than two.
  */
-export function pickComparePair<T extends Pick<ComparableInspection, 'id' | 'status' | 'runsAtInspection' | 'inspectedAt'>>(items: readonly T[], a: string | null, b: string | null): { before: T | null; after: T | null; defaulted: boolean } {
+export function pickComparePair<
+  T extends Pick<ComparableInspection, 'id' | 'status' | 'runsAtInspection' | 'inspectedAt'>,
+>(items: readonly T[], a: string | null, b: string | null): { before: T | null; after: T | null; defaulted: boolean } {
   const sorted = sortInspections(items);
   const byId = (id: string | null) => (id ? (sorted.find((i) => i.id === id) ?? null) : null);
   const first = byId(a);

@@ -1,7 +1,15 @@
 // Numbers as the charts write them: never more digits than the indicator resolves, axis ticks on whole
 // graduations, and run counts as whole runs. Pure.
 
-import { decimalsForResolution, findResolution, formatLength, lengthToMm, mmToLength, type IndicatorResolutionId, type LengthUnit } from '../units';
+import {
+  decimalsForResolution,
+  findResolution,
+  formatLength,
+  lengthToMm,
+  mmToLength,
+  type IndicatorResolutionId,
+  type LengthUnit,
+} from '../units';
 
 /** The coarsest graduation we know, for a value with no inspection behind it (a limit, a fitted value). */
 const FALLBACK_RESOLUTION: Readonly<Record<LengthUnit, IndicatorResolutionId>> = { in: '0.001in', mm: '0.01mm' };
@@ -80,11 +88,19 @@ export function isoToDayText(iso: string): string {
  * Ticks on a multiple of `step` (1, 2 or 5 × a power of ten, never finer than `step`), at most `maxTicks`.
  * @example stepTicks(0.0044, 0.0101, 0.001) // [0.005, 0.006, 0.007, 0.008, 0.009, 0.01]
  */
-export function stepTicks(low: number, high: number, step: number, maxTicks = 7, factors: readonly number[] = [1, 2, 2.5, 5]): number[] {
+export function stepTicks(
+  low: number,
+  high: number,
+  step: number,
+  maxTicks = 7,
+  factors: readonly number[] = [1, 2, 2.5, 5],
+): number[] {
   if (!(high > low) || !(step > 0)) return [low];
   let tick = step;
   for (let decade = step; ; decade *= 10) {
-    const found = factors.map((f) => f * decade).find((candidate) => candidate >= step && (high - low) / candidate <= maxTicks - 1);
+    const found = factors
+      .map((f) => f * decade)
+      .find((candidate) => candidate >= step && (high - low) / candidate <= maxTicks - 1);
     if (found) {
       tick = found;
       break;

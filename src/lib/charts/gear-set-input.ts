@@ -91,12 +91,17 @@ const VERDICT_RANK: Readonly<Record<Verdict, number>> = { 'in-band': 0, 'near-li
  */
 export function worstVerdict(verdicts: readonly { verdict: Verdict }[]): Verdict | null {
   let worst: Verdict | null = null;
-  for (const { verdict } of verdicts) if (worst === null || VERDICT_RANK[verdict] > VERDICT_RANK[worst]) worst = verdict;
+  for (const { verdict } of verdicts)
+    if (worst === null || VERDICT_RANK[verdict] > VERDICT_RANK[worst]) worst = verdict;
   return worst;
 }
 
 /** One inspection answer → what the charts read. */
-export function inspectionToChartInspection(item: InspectionAnswer, unit: LengthUnit, torqueUnit: TorqueUnitId): ChartInspection {
+export function inspectionToChartInspection(
+  item: InspectionAnswer,
+  unit: LengthUnit,
+  torqueUnit: TorqueUnitId,
+): ChartInspection {
   const b = item.summary.backlash;
   const pinionNm = item.canonical.preload.pinionNm;
   const backFace = item.canonical.runoutMm.backFace;
@@ -108,7 +113,8 @@ export function inspectionToChartInspection(item: InspectionAnswer, unit: Length
     backlash: b ? { mean: b.mean, min: b.min, max: b.max, spread: b.spread } : null,
     runoutTir: backFace === null ? null : mmToLength(backFace, unit),
     runoutEstimate: b?.runoutEstimate ? b.runoutEstimate.tir : null,
-    preload: pinionNm === null ? null : { value: nmToTorque(pinionNm, torqueUnit), bearings: item.canonical.preload.bearings },
+    preload:
+      pinionNm === null ? null : { value: nmToTorque(pinionNm, torqueUnit), bearings: item.canonical.preload.bearings },
     worst: worstVerdict(item.summary.verdicts),
   };
 }
@@ -125,9 +131,13 @@ export function toGearSetChartInput(
 ): GearSetChartInput {
   // The analysis answers in the reader's units as they were at that request; the other two follow it.
   const unit: LengthUnit = analysis.unit === 'mm' || analysis.unit === 'in' ? analysis.unit : units.lengthUnit;
-  const torqueUnit: TorqueUnitId = analysis.torqueUnit === 'N-m' || analysis.torqueUnit === 'lbf-in' ? analysis.torqueUnit : units.torqueUnit;
+  const torqueUnit: TorqueUnitId =
+    analysis.torqueUnit === 'N-m' || analysis.torqueUnit === 'lbf-in' ? analysis.torqueUnit : units.torqueUnit;
   const len = (mm: number) => mmToLength(mm, unit);
-  const torque = (band: { min: number; max: number }) => ({ min: nmToTorque(band.min, torqueUnit), max: nmToTorque(band.max, torqueUnit) });
+  const torque = (band: { min: number; max: number }) => ({
+    min: nmToTorque(band.min, torqueUnit),
+    max: nmToTorque(band.max, torqueUnit),
+  });
   const trend = (measure: string): ChartTrend | null => {
     const found = analysis.trends.find((t) => t.measure === measure);
     return found ? { fit: found.fit, limits: found.limits, projection: found.projection } : null;

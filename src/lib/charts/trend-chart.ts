@@ -66,7 +66,11 @@ export const X_LABEL = 'Runs on the set (total)';
  * The run axis: from 0 to past the last inspection, the life limit and any projection worth drawing.
  * @example runDomain([0, 44], 50) // { domain: [0, 55], ticks: [0, 10, 20, 30, 40, 50] }
  */
-export function runDomain(runs: readonly number[], lifeLimit: number | null, projectionTo: number | null = null): { domain: [number, number]; ticks: number[] } {
+export function runDomain(
+  runs: readonly number[],
+  lifeLimit: number | null,
+  projectionTo: number | null = null,
+): { domain: [number, number]; ticks: number[] } {
   const far = Math.max(1, ...runs, lifeLimit ?? 0, projectionTo ?? 0);
   const high = Math.ceil((far * 1.08) / 5) * 5;
   return { domain: [0, high], ticks: stepTicks(0, high, 1, 7, [1, 2, 5]) };
@@ -96,7 +100,13 @@ export interface ShapedProjection {
  * The projection of a fitted trend as the chart draws it and the sentence under it.
  * `horizon` is the furthest run the chart will draw to.
  */
-export function shapeProjection(fit: LineFit, projection: TrendProjection, limits: { min?: number; max?: number }, horizon: number, words: ProjectionWords): ShapedProjection {
+export function shapeProjection(
+  fit: LineFit,
+  projection: TrendProjection,
+  limits: { min?: number; max?: number },
+  horizon: number,
+  words: ProjectionWords,
+): ShapedProjection {
   const { measure, formatValue, unitLabel } = words;
   const side = (s: 'min' | 'max') => (s === 'max' ? 'upper limit' : 'lower limit');
   const reason = projection.reason;
@@ -107,10 +117,18 @@ export function shapeProjection(fit: LineFit, projection: TrendProjection, limit
       const value = limits[which] as number;
       const at = fit.slope === 0 ? null : (value - fit.intercept) / fit.slope;
       const since = at !== null && at >= 0 && at <= fit.lastRuns ? `, since about run ${runsToText(at)}` : '';
-      return { line: null, message: `The fitted line of ${measure} is already past the ${side(which)} (${formatValue(value)} ${unitLabel})${since}.` };
+      return {
+        line: null,
+        message: `The fitted line of ${measure} is already past the ${side(which)} (${formatValue(value)} ${unitLabel})${since}.`,
+      };
     }
-    if (reason.code === 'moving-away') return { line: null, message: `${capitalise(measure)} is heading away from its limit: no crossing ahead at this rate.` };
-    if (reason.code === 'flat') return { line: null, message: `${capitalise(measure)} holds steady: at this rate it never reaches a limit.` };
+    if (reason.code === 'moving-away')
+      return {
+        line: null,
+        message: `${capitalise(measure)} is heading away from its limit: no crossing ahead at this rate.`,
+      };
+    if (reason.code === 'flat')
+      return { line: null, message: `${capitalise(measure)} holds steady: at this rate it never reaches a limit.` };
     return { line: null, message: reason.message };
   }
   const at = projection.projectedRunsAtLimit;
@@ -120,12 +138,18 @@ export function shapeProjection(fit: LineFit, projection: TrendProjection, limit
   const limitValue = limits[projection.limit] as number;
   const limitText = `the ${side(projection.limit)} (${formatValue(limitValue)} ${unitLabel})`;
   if (at > NEVER_RUNS) {
-    return { line: null, message: `${capitalise(measure)} is nearly flat: at this rate it does not reach ${limitText} within any useful number of runs.` };
+    return {
+      line: null,
+      message: `${capitalise(measure)} is nearly flat: at this rate it does not reach ${limitText} within any useful number of runs.`,
+    };
   }
   const left = projection.runsToLimit ?? at - fit.lastRuns;
   const leftText = `${runsToText(left)} run${Math.round(left) === 1 ? '' : 's'} after the last inspection`;
   if (at > horizon) {
-    return { line: null, message: `At this rate ${measure} reaches ${limitText} only at about run ${runsToText(at)}, ${leftText} — beyond this chart.` };
+    return {
+      line: null,
+      message: `At this rate ${measure} reaches ${limitText} only at about run ${runsToText(at)}, ${leftText} — beyond this chart.`,
+    };
   }
   const from = { runs: fit.lastRuns, value: fit.intercept + fit.slope * fit.lastRuns };
   return {
@@ -137,7 +161,8 @@ export function shapeProjection(fit: LineFit, projection: TrendProjection, limit
 /** The fitted line across the runs inspected, or null with fewer than three points or no slope. */
 export function fitToLine(fit: LineFit, runs: readonly number[]): { runs: number; value: number }[] | null {
   // Two points always make a line; the trend says something from three on, as the projection does.
-  if (fit.slope === null || fit.intercept === null || fit.count < MIN_TREND_POINTS || runs.length < MIN_TREND_POINTS) return null;
+  if (fit.slope === null || fit.intercept === null || fit.count < MIN_TREND_POINTS || runs.length < MIN_TREND_POINTS)
+    return null;
   const first = Math.min(...runs);
   const last = Math.max(...runs);
   if (first === last) return null;

@@ -36,7 +36,11 @@ const LABELS: Readonly<Record<string, string>> = {
  * the estimate from the lash, `runout-measured` (or a `runout` after them) the measured back face.
  * @example verdictsToRows(summary.verdicts, 3, '0.001in')[0].label // 'Backlash at the tightest point'
  */
-export function verdictsToRows(verdicts: readonly VerdictInput[], engineCount: number, resolution: IndicatorResolutionId): VerdictRow[] {
+export function verdictsToRows(
+  verdicts: readonly VerdictInput[],
+  engineCount: number,
+  resolution: IndicatorResolutionId,
+): VerdictRow[] {
   return verdicts.map((v, i) => {
     // Summaries name the measured back face 'runout-measured'; older ones called it 'runout' after the engine's own.
     const measure = v.measure === 'runout' ? (i < engineCount ? 'runout-estimated' : 'runout-measured') : v.measure;
@@ -48,7 +52,14 @@ export function verdictsToRows(verdicts: readonly VerdictInput[], engineCount: n
     };
     const label = LABELS[measure] ?? capitalise(measureToWords(measure));
     if (v.unit === 'check') {
-      return { key: `${measure}:${i}`, label, valueText: v.value ? 'effort unchanged' : 'effort changed', limitText: 'effort stays the same', marginText: '—', verdict: v.verdict };
+      return {
+        key: `${measure}:${i}`,
+        label,
+        valueText: v.value ? 'effort unchanged' : 'effort changed',
+        limitText: 'effort stays the same',
+        marginText: '—',
+        verdict: v.verdict,
+      };
     }
     return {
       key: `${measure}:${i}`,

@@ -16,10 +16,26 @@ export interface HistoryRow {
   link_id?: string | null;
 }
 
-const COLUMNS: (keyof HistoryRow)[] = ['at', 'record', 'runs_at', 'place', 'mean_backlash_mm', 'spread_mm', 'runout_tir_mm', 'pinion_preload_nm', 'decision', 'reason', 'notes', 'link_id'];
+const COLUMNS: (keyof HistoryRow)[] = [
+  'at',
+  'record',
+  'runs_at',
+  'place',
+  'mean_backlash_mm',
+  'spread_mm',
+  'runout_tir_mm',
+  'pinion_preload_nm',
+  'decision',
+  'reason',
+  'notes',
+  'link_id',
+];
 
 /** The whole history in time order, canonical units named in the column headers. */
 export function historyToCsv(rows: HistoryRow[]): string {
   const sorted = [...rows].sort((a, b) => a.at.localeCompare(b.at));
-  return Papa.unparse({ fields: COLUMNS, data: sorted.map((row) => COLUMNS.map((c) => row[c] ?? '')) }, { newline: '\n' });
+  return Papa.unparse(
+    { fields: COLUMNS, data: sorted.map((row) => COLUMNS.map((c) => row[c] ?? '')) },
+    { newline: '\n' },
+  );
 }

@@ -6,7 +6,14 @@ import type { InspectionData } from '../inspection/record';
  * An inspection as CSV, one row per backlash reading: the value as typed with its unit, the same in
  * mm, the position's angle from the marked tooth, and the indicator resolution.
  */
-export function inspectionToCsv(inspection: { id: string; gearSetSerial: string; inspectedAt: string; runsAtInspection: number; status: string; data: InspectionData }): string {
+export function inspectionToCsv(inspection: {
+  id: string;
+  gearSetSerial: string;
+  inspectedAt: string;
+  runsAtInspection: number;
+  status: string;
+  data: InspectionData;
+}): string {
   const { data } = inspection;
   const resolution = findResolution(data.entry.resolution);
   const n = data.backlashMm.length;

@@ -26,7 +26,9 @@ export interface RetirementSummary {
 
 /** Summarises the sets retired in [from, to). A set without a life limit never counts as early. */
 export function summariseRetirements(sets: RetiredSet[], from: string, to: string): RetirementSummary {
-  const inPeriod = sets.filter((s) => s.retiredAt >= from && s.retiredAt < to).sort((a, b) => a.retiredAt.localeCompare(b.retiredAt));
+  const inPeriod = sets
+    .filter((s) => s.retiredAt >= from && s.retiredAt < to)
+    .sort((a, b) => a.retiredAt.localeCompare(b.retiredAt));
   const retired = inPeriod.map((s) => ({
     ...s,
     early: s.lifeLimitRuns !== null && s.runsAtRetirement < s.lifeLimitRuns,
@@ -47,7 +49,25 @@ export function summariseRetirements(sets: RetiredSet[], from: string, to: strin
 }
 
 export function retirementsToCsv(summary: RetirementSummary): string {
-  const fields = ['gear_set', 'retired_at', 'runs_at_retirement', 'life_limit_runs', 'share_of_life', 'early', 'reason', 'notes'];
-  const data = summary.retired.map((s) => [s.serial, s.retiredAt, s.runsAtRetirement, s.lifeLimitRuns ?? '', s.shareOfLife === null ? '' : Number(s.shareOfLife.toFixed(3)), s.early ? 'yes' : 'no', s.reason, s.notes ?? '']);
+  const fields = [
+    'gear_set',
+    'retired_at',
+    'runs_at_retirement',
+    'life_limit_runs',
+    'share_of_life',
+    'early',
+    'reason',
+    'notes',
+  ];
+  const data = summary.retired.map((s) => [
+    s.serial,
+    s.retiredAt,
+    s.runsAtRetirement,
+    s.lifeLimitRuns ?? '',
+    s.shareOfLife === null ? '' : Number(s.shareOfLife.toFixed(3)),
+    s.early ? 'yes' : 'no',
+    s.reason,
+    s.notes ?? '',
+  ]);
   return Papa.unparse({ fields, data }, { newline: '\n' });
 }

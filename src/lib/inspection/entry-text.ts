@@ -1,4 +1,11 @@
-import { decimalsForResolution, findResolution, formatLength, interpretIndicatorEntry, lengthToMm, type LengthUnit } from '../units';
+import {
+  decimalsForResolution,
+  findResolution,
+  formatLength,
+  interpretIndicatorEntry,
+  lengthToMm,
+  type LengthUnit,
+} from '../units';
 
 /**
  * Reading what the technician typed into a sheet field. Indicator fields (backlash, runout) follow

@@ -57,31 +57,50 @@ export interface GearSetAnalysisInput {
 /** Damage noted on the sheet, as the recommendation reads it. */
 export function conditionToDamage(condition: InspectionData['condition']): DamageFinding[] {
   const findings: DamageFinding[] = [];
-  for (const tooth of condition.teeth) if (tooth.severity !== 'none') findings.push({ area: 'teeth', severity: tooth.severity, note: tooth.finding });
+  for (const tooth of condition.teeth)
+    if (tooth.severity !== 'none') findings.push({ area: 'teeth', severity: tooth.severity, note: tooth.finding });
   if (condition.bearings !== 'none') findings.push({ area: 'bearing', severity: condition.bearings });
   if (condition.splines !== 'none') findings.push({ area: 'other', severity: condition.splines, note: 'splines' });
   if (condition.seals !== 'none') findings.push({ area: 'other', severity: condition.seals, note: 'seals' });
   return findings;
 }
 
-function series(measure: TrendSeries['measure'], inspections: AnalysedInspection[], pick: (s: InspectionSummary) => number | undefined, limits: TrendSeries['limits']): TrendSeries {
+function series(
+  measure: TrendSeries['measure'],
+  inspections: AnalysedInspection[],
+  pick: (s: InspectionSummary) => number | undefined,
+  limits: TrendSeries['limits'],
+): TrendSeries {
   const points = inspections.flatMap((i) => {
     const value = pick(i.summary);
     return value === undefined ? [] : [{ inspectionId: i.id, runs: i.runsAtInspection, value }];
   });
-  const fit: LineFit = points.length ? fitTrendLine(points) : { count: 0, slope: null, intercept: null, r2: null, residualSd: null, lastRuns: 0 };
+  const fit: LineFit = points.length
+    ? fitTrendLine(points)
+    : { count: 0, slope: null, intercept: null, r2: null, residualSd: null, lastRuns: 0 };
   return { measure, points, fit, limits, projection: projectTrend(fit, limits) };
 }
 
 export function analyseGearSet(input: GearSetAnalysisInput): GearSetAnalysis {
   const usable = input.inspections.filter((i) => i.summary.backlash !== null);
-  const sorted = [...usable].sort((a, b) => a.runsAtInspection - b.runsAtInspection || a.inspectedAt.localeCompare(b.inspectedAt));
+  const sorted = [...usable].sort(
+    (a, b) => a.runsAtInspection - b.runsAtInspection || a.inspectedAt.localeCompare(b.inspectedAt),
+  );
   const latest = sorted.at(-1) ?? null;
   const previous = sorted.at(-2) ?? null;
-  const measuresOf = (i: AnalysedInspection) => ({ measures: { ...summaryToMeasures(i.summary.backlash!), tir: i.summary.runoutTir ?? undefined }, resolution: i.summary.resolution });
-  const change = latest && previous && latest.summary.resolution > 0 && previous.summary.resolution > 0 ? compareInspections(measuresOf(previous), measuresOf(latest)) : null;
+  const measuresOf = (i: AnalysedInspection) => ({
+    measures: { ...summaryToMeasures(i.summary.backlash!), tir: i.summary.runoutTir ?? undefined },
+    resolution: i.summary.resolution,
+  });
+  const change =
+    latest && previous && latest.summary.resolution > 0 && previous.summary.resolution > 0
+      ? compareInspections(measuresOf(previous), measuresOf(latest))
+      : null;
   const trends = [
-    series('backlash-mean', sorted, (s) => s.backlash?.mean, { min: input.limits.backlashMin, max: input.limits.backlashMax }),
+    series('backlash-mean', sorted, (s) => s.backlash?.mean, {
+      min: input.limits.backlashMin,
+      max: input.limits.backlashMax,
+    }),
     series('spread', sorted, (s) => s.backlash?.spread, { max: input.limits.maxSpread }),
   ];
   const life = {

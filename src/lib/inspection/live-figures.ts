@@ -46,17 +46,51 @@ export function profileToLengthLimits(profile: ToleranceProfile, unit: LengthUni
  * Live figures for readings in `unit` (null = not read yet).
  * @example computeLiveFigures([0.008, null, 0.006], 'in', DEFAULT_PROFILE).mean // 0.007
  */
-export function computeLiveFigures(readings: readonly (number | null)[], unit: LengthUnit, profile: ToleranceProfile | null, geometry: Geometry = {}): LiveFigures {
+export function computeLiveFigures(
+  readings: readonly (number | null)[],
+  unit: LengthUnit,
+  profile: ToleranceProfile | null,
+  geometry: Geometry = {},
+): LiveFigures {
   const read = readings.filter((r): r is number => r !== null && Number.isFinite(r));
   const total = readings.length;
-  const empty: LiveFigures = { total, readCount: read.length, complete: false, mean: null, min: null, max: null, spread: null, sd: null, harmonic: null, runoutEstimate: null, verdicts: [] };
+  const empty: LiveFigures = {
+    total,
+    readCount: read.length,
+    complete: false,
+    mean: null,
+    min: null,
+    max: null,
+    spread: null,
+    sd: null,
+    harmonic: null,
+    runoutEstimate: null,
+    verdicts: [],
+  };
   if (read.length === 0) return empty;
   const complete = total >= 3 && read.length === total;
-  const geo = geometry.ringTeeth && geometry.pinionTeeth ? { ringTeeth: geometry.ringTeeth, pinionTeeth: geometry.pinionTeeth, pressureAngleDeg: geometry.pressureAngleDeg ?? undefined } : undefined;
+  const geo =
+    geometry.ringTeeth && geometry.pinionTeeth
+      ? {
+          ringTeeth: geometry.ringTeeth,
+          pinionTeeth: geometry.pinionTeeth,
+          pressureAngleDeg: geometry.pressureAngleDeg ?? undefined,
+        }
+      : undefined;
   let figures: LiveFigures;
   if (complete) {
     const s = summariseBacklash(read, geo);
-    figures = { ...empty, complete, mean: s.mean, min: s.min, max: s.max, spread: s.spread, sd: s.sd, harmonic: s.harmonic, runoutEstimate: s.runoutEstimate ?? null };
+    figures = {
+      ...empty,
+      complete,
+      mean: s.mean,
+      min: s.min,
+      max: s.max,
+      spread: s.spread,
+      sd: s.sd,
+      harmonic: s.harmonic,
+      runoutEstimate: s.runoutEstimate ?? null,
+    };
   } else if (read.length >= 2) {
     const s = summariseReadings(read);
     figures = { ...empty, mean: s.mean, min: s.min, max: s.max, spread: s.spread, sd: s.sd };
@@ -66,7 +100,12 @@ export function computeLiveFigures(readings: readonly (number | null)[], unit: L
   }
   if (profile) {
     const verdicts = judgeBacklash(
-      { min: figures.min!, max: figures.max!, spread: figures.spread!, runoutEstimate: figures.runoutEstimate ?? undefined },
+      {
+        min: figures.min!,
+        max: figures.max!,
+        spread: figures.spread!,
+        runoutEstimate: figures.runoutEstimate ?? undefined,
+      },
       profileToLengthLimits(profile, unit),
     );
     // One reading has no spread to judge yet.
@@ -81,12 +120,21 @@ export function judgeMeasuredRunout(value: number, unit: LengthUnit, profile: To
 }
 
 /** The pinion turning-torque band for new or used bearings, in `torqueUnit`. */
-export function preloadBandIn(profile: ToleranceProfile, bearings: 'new' | 'used', torqueUnit: TorqueUnit): { min: number; max: number } {
+export function preloadBandIn(
+  profile: ToleranceProfile,
+  bearings: 'new' | 'used',
+  torqueUnit: TorqueUnit,
+): { min: number; max: number } {
   const band = bearings === 'new' ? profile.pinionPreloadNew : profile.pinionPreloadUsed;
   return { min: nmToTorque(band.min, torqueUnit), max: nmToTorque(band.max, torqueUnit) };
 }
 
 /** A pinion turning torque (in `torqueUnit`) against its band. */
-export function judgePreload(value: number, bearings: 'new' | 'used', torqueUnit: TorqueUnit, profile: ToleranceProfile): RangeVerdict {
+export function judgePreload(
+  value: number,
+  bearings: 'new' | 'used',
+  torqueUnit: TorqueUnit,
+  profile: ToleranceProfile,
+): RangeVerdict {
   return judgeRange(value, preloadBandIn(profile, bearings, torqueUnit), profile.nearShare);
 }

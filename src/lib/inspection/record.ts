@@ -25,12 +25,19 @@ export interface InspectionData {
   carrierShimsMm: { left: number | null; right: number | null };
   preload: { pinionNm: number | null; bearings: 'new' | 'used'; hubLeft: HubCheck; hubRight: HubCheck };
   patterns: { drive: Pattern | null; coast: Pattern | null };
-  condition: { teeth: { finding: string; severity: Severity }[]; splines: Severity; bearings: Severity; seals: Severity };
+  condition: {
+    teeth: { finding: string; severity: Severity }[];
+    splines: Severity;
+    bearings: Severity;
+    seals: Severity;
+  };
   notes: string | null;
 }
 
-const toMm = (value: number | null | undefined, unit: LengthUnit) => (value === null || value === undefined ? null : lengthToMm(value, unit));
-const toNm = (value: number | null | undefined, unit: TorqueUnit) => (value === null || value === undefined ? null : torqueToNm(value, unit));
+const toMm = (value: number | null | undefined, unit: LengthUnit) =>
+  value === null || value === undefined ? null : lengthToMm(value, unit);
+const toNm = (value: number | null | undefined, unit: TorqueUnit) =>
+  value === null || value === undefined ? null : torqueToNm(value, unit);
 // Converting back and forth leaves float noise (0.010000000000000002); twelve decimals is far below any indicator.
 const clean = (value: number) => Number(value.toFixed(12));
 const fromMm = (mm: number | null, unit: LengthUnit) => (mm === null ? null : clean(mmToLength(mm, unit)));
@@ -40,7 +47,10 @@ const fromNm = (nm: number | null, unit: TorqueUnit) => (nm === null ? null : cl
 export function draftToData(draft: InspectionDraft): InspectionData {
   const { unit } = draft;
   const torqueUnit = draft.torqueUnit;
-  const hub = (side?: { unchanged: boolean | null; torque?: number }): HubCheck => ({ unchanged: side?.unchanged ?? null, torqueNm: toNm(side?.torque, torqueUnit) });
+  const hub = (side?: { unchanged: boolean | null; torque?: number }): HubCheck => ({
+    unchanged: side?.unchanged ?? null,
+    torqueNm: toNm(side?.torque, torqueUnit),
+  });
   return {
     entry: { unit, resolution: draft.resolution, torqueUnit },
     runsChangeReason: draft.runsChangeReason || null,
@@ -52,7 +62,12 @@ export function draftToData(draft: InspectionDraft): InspectionData {
       marking: draft.pinion?.marking || null,
     },
     carrierShimsMm: { left: toMm(draft.carrierShims?.left, unit), right: toMm(draft.carrierShims?.right, unit) },
-    preload: { pinionNm: toNm(draft.preload?.pinionTorque, torqueUnit), bearings: draft.preload?.bearings ?? 'used', hubLeft: hub(draft.preload?.hubLeft), hubRight: hub(draft.preload?.hubRight) },
+    preload: {
+      pinionNm: toNm(draft.preload?.pinionTorque, torqueUnit),
+      bearings: draft.preload?.bearings ?? 'used',
+      hubLeft: hub(draft.preload?.hubLeft),
+      hubRight: hub(draft.preload?.hubRight),
+    },
     patterns: { drive: draft.patterns?.drive ?? null, coast: draft.patterns?.coast ?? null },
     condition: {
       teeth: draft.condition?.teeth ?? [],
@@ -67,7 +82,10 @@ export function draftToData(draft: InspectionDraft): InspectionData {
 /** The entry fields back from the record, in the unit the technician typed them in. */
 export function dataToEntry(data: InspectionData) {
   const { unit, torqueUnit, resolution } = data.entry;
-  const hub = (side: HubCheck) => ({ unchanged: side.unchanged, ...(side.torqueNm === null ? {} : { torque: fromNm(side.torqueNm, torqueUnit)! }) });
+  const hub = (side: HubCheck) => ({
+    unchanged: side.unchanged,
+    ...(side.torqueNm === null ? {} : { torque: fromNm(side.torqueNm, torqueUnit)! }),
+  });
   return {
     unit,
     resolution,
@@ -75,9 +93,18 @@ export function dataToEntry(data: InspectionData) {
     runsChangeReason: data.runsChangeReason ?? undefined,
     readings: data.backlashMm.map((mm) => fromMm(mm, unit)),
     runout: { backFace: fromMm(data.runoutMm.backFace, unit), radial: fromMm(data.runoutMm.radial, unit) },
-    pinion: { shims: data.pinion.shimsMm.map((mm) => fromMm(mm, unit)!), depthChange: fromMm(data.pinion.depthChangeMm, unit), marking: data.pinion.marking ?? undefined },
+    pinion: {
+      shims: data.pinion.shimsMm.map((mm) => fromMm(mm, unit)!),
+      depthChange: fromMm(data.pinion.depthChangeMm, unit),
+      marking: data.pinion.marking ?? undefined,
+    },
     carrierShims: { left: fromMm(data.carrierShimsMm.left, unit), right: fromMm(data.carrierShimsMm.right, unit) },
-    preload: { pinionTorque: fromNm(data.preload.pinionNm, torqueUnit), bearings: data.preload.bearings, hubLeft: hub(data.preload.hubLeft), hubRight: hub(data.preload.hubRight) },
+    preload: {
+      pinionTorque: fromNm(data.preload.pinionNm, torqueUnit),
+      bearings: data.preload.bearings,
+      hubLeft: hub(data.preload.hubLeft),
+      hubRight: hub(data.preload.hubRight),
+    },
     patterns: data.patterns,
     condition: data.condition,
     notes: data.notes ?? undefined,

@@ -23,8 +23,12 @@ export const LIMITS = {
   runs: 100_000,
 } as const;
 
-const number = (label: string) => z.number({ error: `${label} must be a number.` }).refine(Number.isFinite, `${label} must be a finite number.`);
-const fraction = (label: string) => number(label).min(0, `${label}: 0 (toe or flank) to 1 (heel or face).`).max(1, `${label}: 0 (toe or flank) to 1 (heel or face).`);
+const number = (label: string) =>
+  z.number({ error: `${label} must be a number.` }).refine(Number.isFinite, `${label} must be a finite number.`);
+const fraction = (label: string) =>
+  number(label)
+    .min(0, `${label}: 0 (toe or flank) to 1 (heel or face).`)
+    .max(1, `${label}: 0 (toe or flank) to 1 (heel or face).`);
 
 const patternSchema = z
   .object({
@@ -42,7 +46,12 @@ const hubSideSchema = z
   })
   .optional();
 
-const text = (max: number, label: string) => z.string({ error: `${label} must be text.` }).trim().max(max, `${label}: at most ${max} characters.`).optional();
+const text = (max: number, label: string) =>
+  z
+    .string({ error: `${label} must be text.` })
+    .trim()
+    .max(max, `${label}: at most ${max} characters.`)
+    .optional();
 
 const fields = {
   gearSetId: z.string({ error: 'Choose the gear set.' }).min(1, 'Choose the gear set.').max(64),
@@ -59,18 +68,33 @@ const fields = {
   resolution: z.enum(RESOLUTION_IDS, { error: `resolution: one of ${RESOLUTION_IDS.join(', ')}.` }),
   torqueUnit: z.enum(['lbf-in', 'N-m'], { error: 'torqueUnit: lbf-in or N-m.' }).default('lbf-in'),
   readings: z
-    .array(number('Each reading').min(0, 'Each reading is 0 or more.').nullable(), { error: 'readings: a list of backlash readings.' })
+    .array(number('Each reading').min(0, 'Each reading is 0 or more.').nullable(), {
+      error: 'readings: a list of backlash readings.',
+    })
     .min(3, 'Take at least 3 readings around the ring gear.')
     .max(24, 'At most 24 readings.'),
-  runout: z.object({ backFace: number('Back-face runout').min(0, 'Runout is 0 or more.').nullable().optional(), radial: number('Radial runout').min(0, 'Runout is 0 or more.').nullable().optional() }).optional(),
+  runout: z
+    .object({
+      backFace: number('Back-face runout').min(0, 'Runout is 0 or more.').nullable().optional(),
+      radial: number('Radial runout').min(0, 'Runout is 0 or more.').nullable().optional(),
+    })
+    .optional(),
   pinion: z
     .object({
-      shims: z.array(number('Each shim').min(0, 'A shim is 0 or more thick.')).max(12, 'At most 12 shims in the stack.').default([]),
+      shims: z
+        .array(number('Each shim').min(0, 'A shim is 0 or more thick.'))
+        .max(12, 'At most 12 shims in the stack.')
+        .default([]),
       depthChange: number('The depth change').nullable().optional(),
       marking: text(20, 'The pinion marking'),
     })
     .optional(),
-  carrierShims: z.object({ left: number('Left carrier shim').min(0).nullable().optional(), right: number('Right carrier shim').min(0).nullable().optional() }).optional(),
+  carrierShims: z
+    .object({
+      left: number('Left carrier shim').min(0).nullable().optional(),
+      right: number('Right carrier shim').min(0).nullable().optional(),
+    })
+    .optional(),
   preload: z
     .object({
       pinionTorque: number('Pinion turning torque').min(0, 'Torque is 0 or more.').nullable().optional(),
@@ -82,7 +106,15 @@ const fields = {
   patterns: z.object({ drive: patternSchema, coast: patternSchema }).optional(),
   condition: z
     .object({
-      teeth: z.array(z.object({ finding: z.enum(TOOTH_FINDINGS, { error: 'Choose a tooth finding.' }), severity: z.enum(SEVERITIES, { error: 'Choose a severity.' }) })).max(12).default([]),
+      teeth: z
+        .array(
+          z.object({
+            finding: z.enum(TOOTH_FINDINGS, { error: 'Choose a tooth finding.' }),
+            severity: z.enum(SEVERITIES, { error: 'Choose a severity.' }),
+          }),
+        )
+        .max(12)
+        .default([]),
       splines: z.enum(SEVERITIES).default('none'),
       bearings: z.enum(SEVERITIES).default('none'),
       seals: z.enum(SEVERITIES).default('none'),
@@ -105,14 +137,24 @@ export function findLimitIssues(body: {
 }): Issue[] {
   const issues: Issue[] = [];
   const label = (mm: number) => (body.unit === 'in' ? `${mm} mm (${(mm / 25.4).toFixed(4)} in)` : `${mm} mm`);
-  const length = (value: number | null | undefined, maxMm: number, path: (string | number)[], name: string, signed = false) => {
+  const length = (
+    value: number | null | undefined,
+    maxMm: number,
+    path: (string | number)[],
+    name: string,
+    signed = false,
+  ) => {
     if (value === null || value === undefined) return;
     const mm = Math.abs(lengthToMm(value, body.unit));
     if (mm > maxMm) issues.push({ path, message: `${name}: at most ${signed ? '±' : ''}${label(maxMm)}.` });
   };
   const torque = (value: number | null | undefined, path: (string | number)[], name: string) => {
     if (value === null || value === undefined) return;
-    if (torqueToNm(value, body.torqueUnit) > LIMITS.torqueNm) issues.push({ path, message: `${name}: at most ${LIMITS.torqueNm} N·m (${(LIMITS.torqueNm / 0.1129848290276167).toFixed(0)} lbf·in).` });
+    if (torqueToNm(value, body.torqueUnit) > LIMITS.torqueNm)
+      issues.push({
+        path,
+        message: `${name}: at most ${LIMITS.torqueNm} N·m (${(LIMITS.torqueNm / 0.1129848290276167).toFixed(0)} lbf·in).`,
+      });
   };
   body.readings?.forEach((value, i) => length(value, LIMITS.backlashMm, ['readings', i], `Reading ${i + 1}`));
   length(body.runout?.backFace, LIMITS.runoutMm, ['runout', 'backFace'], 'Back-face runout');
@@ -129,7 +171,8 @@ export function findLimitIssues(body: {
 
 const withLimits = <T extends z.ZodType<Parameters<typeof findLimitIssues>[0]>>(schema: T) =>
   schema.superRefine((body, ctx) => {
-    for (const issue of findLimitIssues(body)) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
+    for (const issue of findLimitIssues(body))
+      ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
   });
 
 /** A draft as created or replaced: positions not read yet may be null. */
@@ -142,5 +185,7 @@ export const inspectionPatchSchema = z.object(fields).omit({ gearSetId: true }).
 
 /** What a submitted inspection must have: every position read. */
 export function findMissingForSubmit(draft: Pick<InspectionDraft, 'readings'>): Issue[] {
-  return draft.readings.flatMap((value, i) => (value === null ? [{ path: ['readings', i], message: `Position ${i + 1} has no reading yet.` }] : []));
+  return draft.readings.flatMap((value, i) =>
+    value === null ? [{ path: ['readings', i], message: `Position ${i + 1} has no reading yet.` }] : [],
+  );
 }

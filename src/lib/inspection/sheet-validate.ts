@@ -12,6 +12,7 @@ export const RUNS_REASON_MESSAGE = 'Say why the runs differ from Lashline’s co
 export function findSheetIssues(values: SheetValues, countedRuns: number | null): Record<string, string> | null {
   const parsed = inspectionDraftSchema.safeParse(sheetToCreateBody(values));
   const fields = parsed.success ? {} : zodIssuesToFields(parsed.error);
-  if (needsRunsReason(values.runsAtInspection, countedRuns) && !values.runsChangeReason?.trim()) fields.runsChangeReason ??= RUNS_REASON_MESSAGE;
+  if (needsRunsReason(values.runsAtInspection, countedRuns) && !values.runsChangeReason?.trim())
+    fields.runsChangeReason ??= RUNS_REASON_MESSAGE;
   return Object.keys(fields).length ? fields : null;
 }

@@ -74,7 +74,19 @@ export function sheetToPatchBody(values: SheetValues): Record<string, unknown> {
 /** The inspection as the API answers it, as far as the sheet reads it. */
 export type InspectionEntryView = Pick<
   InspectionDraftInput,
-  'gearSetId' | 'inspectedAt' | 'runsAtInspection' | 'unit' | 'resolution' | 'torqueUnit' | 'readings' | 'runout' | 'pinion' | 'carrierShims' | 'preload' | 'patterns' | 'condition'
+  | 'gearSetId'
+  | 'inspectedAt'
+  | 'runsAtInspection'
+  | 'unit'
+  | 'resolution'
+  | 'torqueUnit'
+  | 'readings'
+  | 'runout'
+  | 'pinion'
+  | 'carrierShims'
+  | 'preload'
+  | 'patterns'
+  | 'condition'
 > & { assemblyId: string | null; technicianId: string | null; runsChangeReason?: string | null; notes?: string | null };
 
 /** An existing inspection's entry values as a sheet, to edit it. */
@@ -91,7 +103,11 @@ export function viewToSheet(view: InspectionEntryView): SheetValues {
     torqueUnit: view.torqueUnit,
     readings: [...view.readings],
     runout: { backFace: view.runout?.backFace ?? null, radial: view.runout?.radial ?? null },
-    pinion: { shims: [...(view.pinion?.shims ?? [])], depthChange: view.pinion?.depthChange ?? null, marking: view.pinion?.marking ?? '' },
+    pinion: {
+      shims: [...(view.pinion?.shims ?? [])],
+      depthChange: view.pinion?.depthChange ?? null,
+      marking: view.pinion?.marking ?? '',
+    },
     carrierShims: { left: view.carrierShims?.left ?? null, right: view.carrierShims?.right ?? null },
     preload: {
       pinionTorque: view.preload?.pinionTorque ?? null,

@@ -1,4 +1,12 @@
-import { analyseBacklash, describePattern, judgeRange, type BacklashAnalysis, type MeasureVerdict, type PatternGuidance, type ToleranceProfile } from '../analysis';
+import {
+  analyseBacklash,
+  describePattern,
+  judgeRange,
+  type BacklashAnalysis,
+  type MeasureVerdict,
+  type PatternGuidance,
+  type ToleranceProfile,
+} from '../analysis';
 import { findResolution, mmToLength, nmToTorque, type LengthUnit } from '../units';
 import type { InspectionData } from './record';
 
@@ -31,7 +39,12 @@ export interface InspectionSummary {
 }
 
 /** Summarises a stored inspection. Incomplete readings (a position not read) give no backlash figures. */
-export function summariseInspection(data: InspectionData, profile: ToleranceProfile, geometry: GearGeometry, units: ReaderUnits): InspectionSummary {
+export function summariseInspection(
+  data: InspectionData,
+  profile: ToleranceProfile,
+  geometry: GearGeometry,
+  units: ReaderUnits,
+): InspectionSummary {
   const unit = units.lengthUnit;
   const len = (mm: number) => mmToLength(mm, unit);
   const torque = (nm: number) => nmToTorque(nm, units.torqueUnit);
@@ -41,25 +54,52 @@ export function summariseInspection(data: InspectionData, profile: ToleranceProf
         unit,
         readings: (data.backlashMm as number[]).map(len),
         profile: { min: len(profile.backlashMin), max: len(profile.backlashMax), maxSpread: len(profile.maxSpread) },
-        ...(geometry.ringTeeth && geometry.pinionTeeth ? { ringTeeth: geometry.ringTeeth, pinionTeeth: geometry.pinionTeeth, pressureAngleDeg: geometry.pressureAngleDeg ?? 20 } : {}),
+        ...(geometry.ringTeeth && geometry.pinionTeeth
+          ? {
+              ringTeeth: geometry.ringTeeth,
+              pinionTeeth: geometry.pinionTeeth,
+              pressureAngleDeg: geometry.pressureAngleDeg ?? 20,
+            }
+          : {}),
       })
     : null;
   const verdicts: (MeasureVerdict & { unit: string })[] = (backlash?.verdicts ?? []).map((v) => ({ ...v, unit }));
   const near = profile.nearShare;
   if (data.runoutMm.backFace !== null) {
     const value = len(data.runoutMm.backFace);
-    verdicts.push({ measure: 'runout-measured' as MeasureVerdict['measure'], value, ...judgeRange(value, { max: len(profile.runoutMax) }, near), unit });
+    verdicts.push({
+      measure: 'runout-measured' as MeasureVerdict['measure'],
+      value,
+      ...judgeRange(value, { max: len(profile.runoutMax) }, near),
+      unit,
+    });
   }
   if (data.preload.pinionNm !== null) {
     const band = data.preload.bearings === 'new' ? profile.pinionPreloadNew : profile.pinionPreloadUsed;
     const value = torque(data.preload.pinionNm);
-    verdicts.push({ measure: `pinion-preload-${data.preload.bearings}` as MeasureVerdict['measure'], value, ...judgeRange(value, { min: torque(band.min), max: torque(band.max) }, near), unit: units.torqueUnit });
+    verdicts.push({
+      measure: `pinion-preload-${data.preload.bearings}` as MeasureVerdict['measure'],
+      value,
+      ...judgeRange(value, { min: torque(band.min), max: torque(band.max) }, near),
+      unit: units.torqueUnit,
+    });
   }
   if (profile.hubPreloadCheck) {
-    for (const [side, check] of [['left', data.preload.hubLeft], ['right', data.preload.hubRight]] as const) {
+    for (const [side, check] of [
+      ['left', data.preload.hubLeft],
+      ['right', data.preload.hubRight],
+    ] as const) {
       if (check.unchanged === null) continue;
       // A yes/no check: "unchanged" passes with margin 1, "changed" fails with margin -1.
-      verdicts.push({ measure: `hub-${side}` as MeasureVerdict['measure'], value: check.unchanged ? 1 : 0, verdict: check.unchanged ? 'in-band' : 'out-of-band', limit: 'min', limitValue: 1, margin: check.unchanged ? 1 : -1, unit: 'check' });
+      verdicts.push({
+        measure: `hub-${side}` as MeasureVerdict['measure'],
+        value: check.unchanged ? 1 : 0,
+        verdict: check.unchanged ? 'in-band' : 'out-of-band',
+        limit: 'min',
+        limitValue: 1,
+        margin: check.unchanged ? 1 : -1,
+        unit: 'check',
+      });
     }
   }
   const patterns = (['drive', 'coast'] as const).flatMap((side) => {

@@ -31,7 +31,12 @@ export function measureToProfileField(measure: string): keyof ToleranceProfile |
  * figure, otherwise the team's own figure (the profile names no other source for it).
  * @example bandToSourceText(DEFAULT_PROFILE, 'maxSpread', sources) // 'S: GM light-truck service manual … — variation …'
  */
-export function bandToSourceText(values: ToleranceProfile, field: keyof ToleranceProfile, sources: Readonly<Partial<Record<keyof ToleranceProfile, SourceNote>>>, profileName?: string): string {
+export function bandToSourceText(
+  values: ToleranceProfile,
+  field: keyof ToleranceProfile,
+  sources: Readonly<Partial<Record<keyof ToleranceProfile, SourceNote>>>,
+  profileName?: string,
+): string {
   const same = JSON.stringify(values[field]) === JSON.stringify(DEFAULT_PROFILE[field]);
   const note = sources[field];
   if (same && note) return `${note.key}: ${note.source}${note.note ? ` — ${note.note}` : ''}`;

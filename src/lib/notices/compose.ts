@@ -46,7 +46,8 @@ export function composeNotice(content: NoticeContent, unsubscribeLink: string): 
  */
 export function findMentions(body: string): string[] {
   const found = new Set<string>();
-  for (const match of body.matchAll(/(?:^|[\s(])@([\p{L}\p{N}._+-]+(?:@[\p{L}\p{N}.-]+)?)/gu)) found.add(match[1]!.toLowerCase().replace(/[.]+$/, ''));
+  for (const match of body.matchAll(/(?:^|[\s(])@([\p{L}\p{N}._+-]+(?:@[\p{L}\p{N}.-]+)?)/gu))
+    found.add(match[1]!.toLowerCase().replace(/[.]+$/, ''));
   return [...found];
 }
 

@@ -3,7 +3,11 @@
  * team's near share of the limit, "life-reached" at the limit.
  * @example reachedThresholds(45, 50, 0.1) // ['near-limit']
  */
-export function reachedThresholds(totalRuns: number, lifeLimitRuns: number | null, nearShare: number): ('near-limit' | 'life-reached')[] {
+export function reachedThresholds(
+  totalRuns: number,
+  lifeLimitRuns: number | null,
+  nearShare: number,
+): ('near-limit' | 'life-reached')[] {
   if (lifeLimitRuns === null || lifeLimitRuns <= 0) return [];
   const reached: ('near-limit' | 'life-reached')[] = [];
   if (totalRuns >= lifeLimitRuns - Math.ceil(nearShare * lifeLimitRuns)) reached.push('near-limit');

@@ -33,4 +33,8 @@ export function sniffImageType(bytes: Uint8Array): ImageType | null {
 }
 
 /** The name sharp gives each accepted format in `metadata().format`. */
-export const SHARP_FORMAT: Record<ImageType, string> = { 'image/jpeg': 'jpeg', 'image/png': 'png', 'image/webp': 'webp' };
+export const SHARP_FORMAT: Record<ImageType, string> = {
+  'image/jpeg': 'jpeg',
+  'image/png': 'png',
+  'image/webp': 'webp',
+};

@@ -2,7 +2,16 @@
  * The parts table's columns and page sizes: plain constants, shared by the view's schema on the
  * server and the links the page's island builds (which must not pull zod into the browser).
  */
-export const PART_COLUMN_IDS = ['serial', 'kind', 'status', 'where', 'runsSinceInstall', 'totalRuns', 'lifeLimitRuns', 'runsLeft'] as const;
+export const PART_COLUMN_IDS = [
+  'serial',
+  'kind',
+  'status',
+  'where',
+  'runsSinceInstall',
+  'totalRuns',
+  'lifeLimitRuns',
+  'runsLeft',
+] as const;
 export type PartColumnId = (typeof PART_COLUMN_IDS)[number];
 
 export const PART_COLUMN_HEADERS: Readonly<Record<PartColumnId, string>> = {
@@ -17,7 +26,12 @@ export const PART_COLUMN_HEADERS: Readonly<Record<PartColumnId, string>> = {
 };
 
 /** Columns of counts: right-aligned, in tabular figures. */
-export const NUMERIC_COLUMNS: ReadonlySet<PartColumnId> = new Set(['runsSinceInstall', 'totalRuns', 'lifeLimitRuns', 'runsLeft']);
+export const NUMERIC_COLUMNS: ReadonlySet<PartColumnId> = new Set([
+  'runsSinceInstall',
+  'totalRuns',
+  'lifeLimitRuns',
+  'runsLeft',
+]);
 
 /** Rows per page; the first is the default. */
 export const PAGE_SIZES = [25, 50, 100] as const;

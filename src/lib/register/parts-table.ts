@@ -87,7 +87,12 @@ function showPage(table: Table<PartRow>, view: PartsView, page: number): void {
  * The page of the parts table a view asks for. `dueWithin` is the team's service interval in runs;
  * a page past the last one shows the last one.
  */
-export function buildPartsTable(parts: readonly PartView[], lookup: PlaceLookup, dueWithin: number, view: PartsView): PartsTablePage {
+export function buildPartsTable(
+  parts: readonly PartView[],
+  lookup: PlaceLookup,
+  dueWithin: number,
+  view: PartsView,
+): PartsTablePage {
   const table = createTable<PartRow>({
     data: parts.map((part) => partToRow(part, lookup, dueWithin)),
     columns: PART_COLUMNS,
@@ -109,5 +114,13 @@ export function buildPartsTable(parts: readonly PartView[], lookup: PlaceLookup,
   const rows = table.getRowModel().rows.map((row) => row.original);
   const matched = table.getFilteredRowModel().rows.length;
   const first = rows.length === 0 ? 0 : (page - 1) * view.size + 1;
-  return { rows, total: parts.length, matched, view: { ...view, page }, pageCount, first, last: first === 0 ? 0 : first + rows.length - 1 };
+  return {
+    rows,
+    total: parts.length,
+    matched,
+    view: { ...view, page },
+    pageCount,
+    first,
+    last: first === 0 ? 0 : first + rows.length - 1,
+  };
 }

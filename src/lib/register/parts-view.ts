@@ -34,6 +34,8 @@ export const DEFAULT_PARTS_VIEW: PartsView = partsViewSchema.parse({});
  * @example searchParamsToPartsView(new URLSearchParams('kind=axle&page=x')) // { …, kind: 'axle', page: 1 }
  */
 export function searchParamsToPartsView(params: URLSearchParams): PartsView {
-  const input = Object.fromEntries(Object.keys(partsViewSchema.shape).map((key) => [key, params.get(key) ?? undefined]));
+  const input = Object.fromEntries(
+    Object.keys(partsViewSchema.shape).map((key) => [key, params.get(key) ?? undefined]),
+  );
   return partsViewSchema.parse(input);
 }

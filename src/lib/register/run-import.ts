@@ -6,7 +6,16 @@ import { zodIssuesToFields } from '../validation';
  * CSV import of runs: the columns, the parse, and the check of every row with the same schema the
  * runs endpoint uses. Pure, so the browser's preview and the server say the same thing.
  */
-export const RUN_CSV_COLUMNS = ['car', 'at', 'event', 'round', 'lane', 'elapsed_seconds', 'speed_mph', 'notes'] as const;
+export const RUN_CSV_COLUMNS = [
+  'car',
+  'at',
+  'event',
+  'round',
+  'lane',
+  'elapsed_seconds',
+  'speed_mph',
+  'notes',
+] as const;
 
 export interface RowProblem {
   /** The line of the file, counting the header as line 1. */
@@ -21,10 +30,21 @@ export interface ImportCheck {
 
 /** Parses CSV text with a header row into records (papaparse). */
 export function parseRunCsv(text: string): { records: Record<string, string>[]; problems: RowProblem[] } {
-  const result = Papa.parse<Record<string, string>>(text, { header: true, skipEmptyLines: 'greedy', transformHeader: (h) => h.trim().toLowerCase() });
-  const problems: RowProblem[] = result.errors.map((error) => ({ line: (error.row ?? 0) + 2, fields: { file: error.message } }));
+  const result = Papa.parse<Record<string, string>>(text, {
+    header: true,
+    skipEmptyLines: 'greedy',
+    transformHeader: (h) => h.trim().toLowerCase(),
+  });
+  const problems: RowProblem[] = result.errors.map((error) => ({
+    line: (error.row ?? 0) + 2,
+    fields: { file: error.message },
+  }));
   const missing = ['car', 'at'].filter((column) => !result.meta.fields?.includes(column));
-  if (missing.length) problems.unshift({ line: 1, fields: { header: `The header needs the column${missing.length > 1 ? 's' : ''} ${missing.join(', ')}.` } });
+  if (missing.length)
+    problems.unshift({
+      line: 1,
+      fields: { header: `The header needs the column${missing.length > 1 ? 's' : ''} ${missing.join(', ')}.` },
+    });
   return { records: result.data, problems };
 }
 
@@ -37,7 +57,10 @@ function textToNumber(text: string | undefined): number | null | string {
 }
 
 /** A CSV record as the runs endpoint's body, with the car's name looked up among the team's cars. */
-export function recordToRunBody(record: Record<string, string>, carIdsByName: ReadonlyMap<string, string>): Record<string, unknown> {
+export function recordToRunBody(
+  record: Record<string, string>,
+  carIdsByName: ReadonlyMap<string, string>,
+): Record<string, unknown> {
   const carName = (record.car ?? '').trim();
   return {
     carId: carIdsByName.get(carName.toLowerCase()) ?? '',
@@ -52,7 +75,12 @@ export function recordToRunBody(record: Record<string, string>, carIdsByName: Re
 }
 
 /** Checks every record; a row whose car is not one of the team's is refused by name. */
-export function checkRunRecords(records: Record<string, string>[], cars: readonly { id: string; name: string }[], now: Date, firstLine = 2): ImportCheck {
+export function checkRunRecords(
+  records: Record<string, string>[],
+  cars: readonly { id: string; name: string }[],
+  now: Date,
+  firstLine = 2,
+): ImportCheck {
   const carIdsByName = new Map(cars.map((car) => [car.name.trim().toLowerCase(), car.id]));
   const check: ImportCheck = { valid: [], problems: [] };
   records.forEach((record, index) => {

@@ -21,7 +21,11 @@ const requiredText = (max: number, label: string) =>
     .min(1, `Enter the ${label}.`)
     .max(max, `The ${label} has at most ${max} characters.`);
 
-export const idSchema = (label: string) => z.string({ error: `Choose the ${label}.` }).min(1, `Choose the ${label}.`).max(64);
+export const idSchema = (label: string) =>
+  z
+    .string({ error: `Choose the ${label}.` })
+    .min(1, `Choose the ${label}.`)
+    .max(64);
 
 export const carCreateSchema = z.object({
   name: requiredText(60, 'car number or name'),
@@ -72,8 +76,10 @@ const partFields = {
 /** A gear set needs both tooth counts, the ring gear having more teeth than the pinion. */
 function checkGearTeeth(part: { kind?: string; ringTeeth?: number; pinionTeeth?: number }, ctx: z.RefinementCtx): void {
   if (part.kind !== 'gear-set') return;
-  if (part.ringTeeth === undefined) ctx.addIssue({ code: 'custom', path: ['ringTeeth'], message: 'A gear set needs its ring-gear tooth count.' });
-  if (part.pinionTeeth === undefined) ctx.addIssue({ code: 'custom', path: ['pinionTeeth'], message: 'A gear set needs its pinion tooth count.' });
+  if (part.ringTeeth === undefined)
+    ctx.addIssue({ code: 'custom', path: ['ringTeeth'], message: 'A gear set needs its ring-gear tooth count.' });
+  if (part.pinionTeeth === undefined)
+    ctx.addIssue({ code: 'custom', path: ['pinionTeeth'], message: 'A gear set needs its pinion tooth count.' });
   if (part.ringTeeth !== undefined && part.pinionTeeth !== undefined && part.ringTeeth <= part.pinionTeeth) {
     ctx.addIssue({ code: 'custom', path: ['ringTeeth'], message: 'The ring gear has more teeth than the pinion.' });
   }
@@ -88,11 +94,18 @@ export const installationSchema = z
     partId: idSchema('part').optional(),
     assemblyId: idSchema('assembly').optional(),
     carId: idSchema('car').optional(),
-    at: z.iso.datetime({ offset: true, error: 'Give the time as an ISO date-time, e.g. 2026-05-03T14:20:00Z.' }).optional(),
+    at: z.iso
+      .datetime({ offset: true, error: 'Give the time as an ISO date-time, e.g. 2026-05-03T14:20:00Z.' })
+      .optional(),
     notes: optionalText(500, 'Notes'),
   })
   .superRefine((body, ctx) => {
-    if (!body.partId && !body.assemblyId) ctx.addIssue({ code: 'custom', path: ['partId'], message: 'Name the part (partId) or the assembly (assemblyId) to move.' });
+    if (!body.partId && !body.assemblyId)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['partId'],
+        message: 'Name the part (partId) or the assembly (assemblyId) to move.',
+      });
     if (body.action === 'install' && body.partId && !body.assemblyId && !body.carId) {
       ctx.addIssue({ code: 'custom', path: ['assemblyId'], message: 'Say where the part goes: assemblyId or carId.' });
     }
@@ -129,10 +142,17 @@ export const MAX_RUN_LEAD_MS = 24 * 60 * 60 * 1000;
 
 /** The message for a run time too far ahead of `now`, or null when it is fine. */
 export function checkRunTime(at: string, now: Date): string | null {
-  return Date.parse(at) - now.getTime() > MAX_RUN_LEAD_MS ? 'The run is more than a day in the future; check the date.' : null;
+  return Date.parse(at) - now.getTime() > MAX_RUN_LEAD_MS
+    ? 'The run is more than a day in the future; check the date.'
+    : null;
 }
 
 export const listQuerySchema = z.object({
-  limit: z.coerce.number({ error: 'limit must be a number.' }).int().min(1, 'limit: at least 1.').max(500, 'limit: at most 500.').default(50),
+  limit: z.coerce
+    .number({ error: 'limit must be a number.' })
+    .int()
+    .min(1, 'limit: at least 1.')
+    .max(500, 'limit: at most 500.')
+    .default(50),
   cursor: z.string().max(200).optional(),
 });

@@ -12,8 +12,14 @@ export interface LifeLimitDefault {
 }
 
 export const DEFAULT_LIFE_LIMITS: Record<PartKind, LifeLimitDefault> = {
-  'gear-set': { runs: 50, source: 'Common practice (CP): ring-and-pinion sets are often replaced after roughly 50 runs.' },
-  spindle: { runs: 100, source: 'Common practice (CP): aluminium spindles are checked for oval bores at about twice a gear set’s runs.' },
+  'gear-set': {
+    runs: 50,
+    source: 'Common practice (CP): ring-and-pinion sets are often replaced after roughly 50 runs.',
+  },
+  spindle: {
+    runs: 100,
+    source: 'Common practice (CP): aluminium spindles are checked for oval bores at about twice a gear set’s runs.',
+  },
   axle: { runs: null, source: 'No common figure: set the team’s own.' },
   'drive-hub': { runs: null, source: 'No common figure: set the team’s own.' },
   hub: { runs: null, source: 'No common figure: set the team’s own.' },

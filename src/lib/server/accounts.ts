@@ -30,20 +30,43 @@ export function userToPublic(user: User): PublicUser {
 export async function createAccount(input: SignUpInput): Promise<User> {
   const passwordHash = await hashPassword(input.password);
   return write(async (tx) => {
-    const existing = await tx.select({ id: users.id, passwordHash: users.passwordHash }).from(users).where(eq(users.email, input.email)).get();
+    const existing = await tx
+      .select({ id: users.id, passwordHash: users.passwordHash })
+      .from(users)
+      .where(eq(users.email, input.email))
+      .get();
     // An account made by a team import has no password yet; signing up with its e-mail claims it.
     if (existing?.passwordHash === IMPORTED_ACCOUNT_HASH) {
-      const [claimed] = await tx.update(users).set({ passwordHash, name: input.name }).where(eq(users.id, existing.id)).returning();
-      await recordAudit(tx, { teamId: null, actorId: existing.id, action: 'claim', recordType: 'account', recordId: existing.id });
+      const [claimed] = await tx
+        .update(users)
+        .set({ passwordHash, name: input.name })
+        .where(eq(users.id, existing.id))
+        .returning();
+      await recordAudit(tx, {
+        teamId: null,
+        actorId: existing.id,
+        action: 'claim',
+        recordType: 'account',
+        recordId: existing.id,
+      });
       return claimed!;
     }
-    if (existing) throw new HttpError(409, 'An account with this e-mail already exists; sign in instead.', { email: 'already registered' });
+    if (existing)
+      throw new HttpError(409, 'An account with this e-mail already exists; sign in instead.', {
+        email: 'already registered',
+      });
     const [user] = await tx
       .insert(users)
       .values({ id: randomUUID(), email: input.email, name: input.name, passwordHash })
       .returning();
     if (!user) throw new Error('insert returned no row');
-    await recordAudit(tx, { teamId: null, actorId: user.id, action: 'create', recordType: 'account', recordId: user.id });
+    await recordAudit(tx, {
+      teamId: null,
+      actorId: user.id,
+      action: 'create',
+      recordType: 'account',
+      recordId: user.id,
+    });
     return user;
   });
 }
@@ -96,7 +119,13 @@ export async function changePassword(userId: string, currentPassword: string, ne
       .where(eq(users.id, userId))
       .returning();
     if (!updated) throw new HttpError(404, 'No such account.');
-    await recordAudit(tx, { teamId: null, actorId: userId, action: 'change-password', recordType: 'account', recordId: userId });
+    await recordAudit(tx, {
+      teamId: null,
+      actorId: userId,
+      action: 'change-password',
+      recordType: 'account',
+      recordId: userId,
+    });
     return updated;
   });
 }

@@ -17,16 +17,20 @@ export interface BackupResult {
 }
 
 function databasePath(url: string): string {
-  if (!url.startsWith('file:')) throw new Error('Backups here cover the embedded SQLite file; back a libSQL server up with its own tools.');
+  if (!url.startsWith('file:'))
+    throw new Error('Backups here cover the embedded SQLite file; back a libSQL server up with its own tools.');
   return fileUrlToAbsolute(url).slice('file:'.length);
 }
 
 async function countTables(file: string): Promise<Record<string, number>> {
   const db = createClient({ url: `file:${file}` });
   try {
-    const names = (await db.execute("SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' ORDER BY name")).rows.map((r) => String(r.name));
+    const names = (
+      await db.execute("SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' ORDER BY name")
+    ).rows.map((r) => String(r.name));
     const counts: Record<string, number> = {};
-    for (const name of names) counts[name] = Number((await db.execute(`SELECT count(*) AS n FROM "${name}"`)).rows[0]?.n ?? 0);
+    for (const name of names)
+      counts[name] = Number((await db.execute(`SELECT count(*) AS n FROM "${name}"`)).rows[0]?.n ?? 0);
     return counts;
   } finally {
     db.close();
@@ -58,7 +62,10 @@ export async function backupDatabase(destination?: string): Promise<BackupResult
     photos = names.length;
   }
   const tables = await countTables(databaseFile);
-  writeFileSync(join(folder, 'manifest.json'), `${JSON.stringify({ format: 'lashline-backup', createdAt: new Date().toISOString(), source: basename(source), photos, photoStorage: env.S3_BUCKET ? `bucket ${env.S3_BUCKET} (not copied)` : 'folder', tables }, null, 2)}\n`);
+  writeFileSync(
+    join(folder, 'manifest.json'),
+    `${JSON.stringify({ format: 'lashline-backup', createdAt: new Date().toISOString(), source: basename(source), photos, photoStorage: env.S3_BUCKET ? `bucket ${env.S3_BUCKET} (not copied)` : 'folder', tables }, null, 2)}\n`,
+  );
   return { folder, databaseFile, photos, tables };
 }
 
@@ -69,8 +76,10 @@ export async function restoreDatabase(from: string, force = false): Promise<Back
   const source = resolve(from);
   const isFolder = statSync(source).isDirectory();
   const databaseFile = isFolder ? join(source, 'lashline.db') : source;
-  if (!existsSync(databaseFile)) throw new Error(`No database in ${source}: expected lashline.db from npm run db:backup.`);
-  if (existsSync(target) && statSync(target).size > 0 && !force) throw new Error(`${target} exists; stop the server and pass --force to replace it.`);
+  if (!existsSync(databaseFile))
+    throw new Error(`No database in ${source}: expected lashline.db from npm run db:backup.`);
+  if (existsSync(target) && statSync(target).size > 0 && !force)
+    throw new Error(`${target} exists; stop the server and pass --force to replace it.`);
   for (const suffix of ['', '-wal', '-shm']) rmSync(`${target}${suffix}`, { force: true });
   cpSync(databaseFile, target);
   let photos = 0;

@@ -58,7 +58,10 @@ export const CALCULATIONS = {
 } as const;
 
 /** Reads a calculation's input from a query string (GET) — the one place both transports parse it. */
-export function readCalculationQuery<S extends z.ZodType>(calculation: Calculation<S>, params: URLSearchParams): z.infer<S> {
+export function readCalculationQuery<S extends z.ZodType>(
+  calculation: Calculation<S>,
+  params: URLSearchParams,
+): z.infer<S> {
   return parseWith(calculation.schema, Object.fromEntries(params));
 }
 

@@ -1,7 +1,8 @@
 import type { z } from 'zod';
 import { zodIssuesToFields } from '../validation';
 
-export type FormResult<T> = { ok: true; data: T } | { ok: false; fields: Record<string, string>; values: Record<string, string> };
+export type FormResult<T> =
+  { ok: true; data: T } | { ok: false; fields: Record<string, string>; values: Record<string, string> };
 
 /** Reads a posted HTML form and validates it with the same schema the JSON endpoint uses. */
 export async function readForm<S extends z.ZodType>(request: Request, schema: S): Promise<FormResult<z.infer<S>>> {

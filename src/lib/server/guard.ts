@@ -20,7 +20,11 @@ export function requireUser(locals: App.Locals): PublicUser {
 export function requireMember(locals: App.Locals): TeamAccess {
   const user = requireUser(locals);
   if (!locals.team) throw new HttpError(403, 'Create a team or accept an invitation first.');
-  if (locals.team.secondFactorMissing) throw new HttpError(403, 'This team asks its owners and crew chiefs for a second factor: turn it on from your account page first.');
+  if (locals.team.secondFactorMissing)
+    throw new HttpError(
+      403,
+      'This team asks its owners and crew chiefs for a second factor: turn it on from your account page first.',
+    );
   return { user, team: locals.team };
 }
 
@@ -33,7 +37,8 @@ export function requirePermission(locals: App.Locals, permission: Permission): T
   return access;
 }
 
-export type PageAccess = { ok: true; access: TeamAccess } | { ok: false; redirect?: string; status?: number; message?: string };
+export type PageAccess =
+  { ok: true; access: TeamAccess } | { ok: false; redirect?: string; status?: number; message?: string };
 
 /**
  * The same guard for pages: where to send a visitor who may not see the page.
@@ -44,7 +49,11 @@ export function checkPageAccess(locals: App.Locals, url: URL, permission: Permis
   if (!locals.team) return { ok: false, redirect: '/teams/new' };
   if (locals.team.secondFactorMissing) return { ok: false, redirect: '/account?secondFactor=required' };
   if (!roleCan(locals.team.role, permission)) {
-    return { ok: false, status: 403, message: `Your role, ${ROLE_LABELS[locals.team.role].toLowerCase()}, cannot open this page.` };
+    return {
+      ok: false,
+      status: 403,
+      message: `Your role, ${ROLE_LABELS[locals.team.role].toLowerCase()}, cannot open this page.`,
+    };
   }
   return { ok: true, access: { user: locals.user, team: locals.team } };
 }

@@ -26,7 +26,10 @@ export function bodyLimitFor(pathname: string): number {
 }
 
 /** The headers of every JSON answer. */
-export const JSON_HEADERS: Readonly<Record<string, string>> = { 'Content-Type': 'application/json; charset=utf-8', 'Cache-Control': 'no-store' };
+export const JSON_HEADERS: Readonly<Record<string, string>> = {
+  'Content-Type': 'application/json; charset=utf-8',
+  'Cache-Control': 'no-store',
+};
 
 /** A JSON response with the exact status. */
 export function json(body: unknown, status = 200, headers: Record<string, string> = {}): Response {
@@ -49,7 +52,11 @@ export function errorResponse(error: HttpError): Response {
  * unread and the connection unusable (the next request on it hangs, then resets), so that answer tells
  * the client not to reuse it.
  */
-export async function readBodyBytes(request: Request, maxBytes: number, tooBig: (headers?: Record<string, string>) => HttpError = (headers) => tooLarge(maxBytes, headers)): Promise<Buffer> {
+export async function readBodyBytes(
+  request: Request,
+  maxBytes: number,
+  tooBig: (headers?: Record<string, string>) => HttpError = (headers) => tooLarge(maxBytes, headers),
+): Promise<Buffer> {
   const declared = Number(request.headers.get('content-length') ?? '0');
   if (declared > maxBytes) throw tooBig();
   if (!request.body) return Buffer.alloc(0);
@@ -119,9 +126,18 @@ export function parseWith<S extends z.ZodType>(schema: S, raw: unknown): z.infer
 }
 
 /** Logs a 401 or 403 answer as a security event (who was refused what); other statuses are not logged. */
-export function logIfDenied(error: HttpError, request: { method: string; path: string }, locals: Pick<App.Locals, 'user' | 'team'>): void {
+export function logIfDenied(
+  error: HttpError,
+  request: { method: string; path: string },
+  locals: Pick<App.Locals, 'user' | 'team'>,
+): void {
   if (error.status !== 401 && error.status !== 403) return;
-  logSecurityEvent('denied', { status: error.status, ...request, userId: locals.user?.id ?? null, role: locals.team?.role ?? null });
+  logSecurityEvent('denied', {
+    status: error.status,
+    ...request,
+    userId: locals.user?.id ?? null,
+    role: locals.team?.role ?? null,
+  });
 }
 
 /** The answer to an unexpected error: logged in full here, a plain 500 for the client. */

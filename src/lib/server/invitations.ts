@@ -26,7 +26,11 @@ export interface InvitationRequest {
 /** Invites someone by e-mail: stores the token's hash, queues the mail with the link, returns the id. */
 export async function createInvitation(request: InvitationRequest): Promise<{ id: string; expiresAt: Date }> {
   if (!rolesGrantableBy(request.actorRole).includes(request.role)) {
-    throw new HttpError(403, `role: a ${ROLE_LABELS[request.actorRole].toLowerCase()} cannot invite a ${ROLE_LABELS[request.role].toLowerCase()}.`, { role: 'not allowed for you' });
+    throw new HttpError(
+      403,
+      `role: a ${ROLE_LABELS[request.actorRole].toLowerCase()} cannot invite a ${ROLE_LABELS[request.role].toLowerCase()}.`,
+      { role: 'not allowed for you' },
+    );
   }
   const token = randomBytes(32).toString('base64url');
   const expiresAt = new Date(Date.now() + INVITATION_LIFETIME_MS);
@@ -52,7 +56,7 @@ export async function createInvitation(request: InvitationRequest): Promise<{ id
       text: [
         `${inviter.name} invited you to join ${team.name} on Lashline as ${ROLE_LABELS[request.role].toLowerCase()}.`,
         '',
-        'Lashline keeps the team\'s gear-set inspections, runs and decisions in one place.',
+        "Lashline keeps the team's gear-set inspections, runs and decisions in one place.",
         '',
         `Accept the invitation (the link works once, until ${expiresAt.toUTCString()}):`,
         link,
@@ -60,7 +64,14 @@ export async function createInvitation(request: InvitationRequest): Promise<{ id
         'If you did not expect this, ignore this message.',
       ].join('\n'),
     });
-    await recordAudit(tx, { teamId: request.teamId, actorId: request.actorId, action: 'invite', recordType: 'invitation', recordId: id, after: { email: request.email, role: request.role } });
+    await recordAudit(tx, {
+      teamId: request.teamId,
+      actorId: request.actorId,
+      action: 'invite',
+      recordType: 'invitation',
+      recordId: id,
+      after: { email: request.email, role: request.role },
+    });
     return { id, expiresAt };
   });
 }
@@ -68,10 +79,19 @@ export async function createInvitation(request: InvitationRequest): Promise<{ id
 /** Accepts an invitation for the signed-in person: single use, within 7 days, for the invited address. */
 export async function acceptInvitation(userId: string, token: string): Promise<{ teamId: string; role: Role }> {
   return write(async (tx) => {
-    const invitation = await tx.select().from(invitations).where(eq(invitations.tokenHash, hashToken(token))).get();
-    if (!invitation) throw new HttpError(404, 'token: this invitation link is not known; ask for a new one.', { token: 'unknown' });
-    if (invitation.acceptedAt) throw new HttpError(410, 'token: this invitation was already used; ask for a new one.', { token: 'already used' });
-    if (invitation.expiresAt.getTime() < Date.now()) throw new HttpError(410, 'token: this invitation has expired; ask for a new one.', { token: 'expired' });
+    const invitation = await tx
+      .select()
+      .from(invitations)
+      .where(eq(invitations.tokenHash, hashToken(token)))
+      .get();
+    if (!invitation)
+      throw new HttpError(404, 'token: this invitation link is not known; ask for a new one.', { token: 'unknown' });
+    if (invitation.acceptedAt)
+      throw new HttpError(410, 'token: this invitation was already used; ask for a new one.', {
+        token: 'already used',
+      });
+    if (invitation.expiresAt.getTime() < Date.now())
+      throw new HttpError(410, 'token: this invitation has expired; ask for a new one.', { token: 'expired' });
     const person = await tx.select({ email: users.email }).from(users).where(eq(users.id, userId)).get();
     if (!person || person.email !== invitation.email) {
       throw new HttpError(403, `This invitation is for ${invitation.email}; sign in with that address to accept it.`);
@@ -82,15 +102,26 @@ export async function acceptInvitation(userId: string, token: string): Promise<{
       .where(and(eq(memberships.teamId, invitation.teamId), eq(memberships.userId, userId)))
       .get();
     if (!existing) await tx.insert(memberships).values({ teamId: invitation.teamId, userId, role: invitation.role });
-    await tx.update(invitations).set({ acceptedAt: new Date(), acceptedBy: userId }).where(eq(invitations.id, invitation.id));
+    await tx
+      .update(invitations)
+      .set({ acceptedAt: new Date(), acceptedBy: userId })
+      .where(eq(invitations.id, invitation.id));
     await tx.update(users).set({ currentTeamId: invitation.teamId }).where(eq(users.id, userId));
-    await recordAudit(tx, { teamId: invitation.teamId, actorId: userId, action: 'accept', recordType: 'invitation', recordId: invitation.id });
+    await recordAudit(tx, {
+      teamId: invitation.teamId,
+      actorId: userId,
+      action: 'accept',
+      recordType: 'invitation',
+      recordId: invitation.id,
+    });
     return { teamId: invitation.teamId, role: existing?.role ?? invitation.role };
   });
 }
 
 /** Invitations of a team that are neither used nor expired. */
-export async function listOpenInvitations(teamId: string): Promise<{ id: string; email: string; role: Role; expiresAt: string }[]> {
+export async function listOpenInvitations(
+  teamId: string,
+): Promise<{ id: string; email: string; role: Role; expiresAt: string }[]> {
   const db = await getDb();
   const rows = await db
     .select({ id: invitations.id, email: invitations.email, role: invitations.role, expiresAt: invitations.expiresAt })

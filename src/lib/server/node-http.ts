@@ -42,7 +42,12 @@ export function readNodeBodyText(request: IncomingMessage, maxBytes: number): Pr
 }
 
 /** Sends `body` as JSON with the exact status; the security headers were set before (scripts/serve.mjs). */
-export function sendJson(response: ServerResponse, status: number, body: unknown, headers: Record<string, string> = {}): void {
+export function sendJson(
+  response: ServerResponse,
+  status: number,
+  body: unknown,
+  headers: Record<string, string> = {},
+): void {
   const text = JSON.stringify(body);
   response.writeHead(status, { ...JSON_HEADERS, 'Content-Length': String(Buffer.byteLength(text)), ...headers });
   response.end(text);

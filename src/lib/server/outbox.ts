@@ -57,7 +57,12 @@ export async function deliverDueMessages(now = new Date()): Promise<number> {
     for (const message of due) {
       try {
         await sendMail({ to: message.toAddress, subject: message.subject, text: message.textBody });
-        await write((tx) => tx.update(outbox).set({ status: 'sent', sentAt: new Date(), attempts: message.attempts + 1 }).where(eq(outbox.id, message.id)));
+        await write((tx) =>
+          tx
+            .update(outbox)
+            .set({ status: 'sent', sentAt: new Date(), attempts: message.attempts + 1 })
+            .where(eq(outbox.id, message.id)),
+        );
         delivered += 1;
       } catch (error) {
         const attempts = message.attempts + 1;

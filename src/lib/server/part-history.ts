@@ -22,14 +22,27 @@ export async function listPartHistory(teamId: string, partId: string): Promise<H
     .select({ event: installationEvents, actorName: users.name })
     .from(installationEvents)
     .leftJoin(users, eq(users.id, installationEvents.actorId))
-    .where(and(eq(installationEvents.teamId, teamId), eq(installationEvents.subjectType, 'part'), eq(installationEvents.subjectId, partId)))
+    .where(
+      and(
+        eq(installationEvents.teamId, teamId),
+        eq(installationEvents.subjectType, 'part'),
+        eq(installationEvents.subjectId, partId),
+      ),
+    )
     .orderBy(desc(installationEvents.seq));
   const labels = new Map<string, string>();
   const entries: HistoryEntry[] = [];
   for (const { event, actorName } of rows) {
     const key = `${event.targetType}:${event.targetId}`;
     if (!labels.has(key)) labels.set(key, await describeTarget(db, event.targetType, event.targetId));
-    entries.push({ id: event.id, action: event.action, targetLabel: labels.get(key)!, at: event.at.toISOString(), actorName, notes: event.notes });
+    entries.push({
+      id: event.id,
+      action: event.action,
+      targetLabel: labels.get(key)!,
+      at: event.at.toISOString(),
+      actorName,
+      notes: event.notes,
+    });
   }
   return entries;
 }

@@ -44,7 +44,9 @@ async function withImageSlot<T>(work: () => Promise<T>): Promise<T> {
 }
 
 const notImage = () =>
-  new HttpError(415, 'file: send a JPEG, PNG or WebP photo (the file’s content is none of these, whatever its name).', { file: 'not a JPEG, PNG or WebP image' });
+  new HttpError(415, 'file: send a JPEG, PNG or WebP photo (the file’s content is none of these, whatever its name).', {
+    file: 'not a JPEG, PNG or WebP image',
+  });
 const unreadable = (why: string) => new HttpError(422, `file: ${why}`, { file: why });
 
 /**
@@ -62,18 +64,23 @@ export async function encodePhoto(input: Uint8Array): Promise<EncodedPhoto> {
       if (/pixel limit/i.test(String(error))) throw tooManyPixels();
       throw unreadable('the image is corrupt or not a complete image; take or export it again.');
     }
-    if (header.format !== SHARP_FORMAT[type]) throw unreadable('the image is corrupt: its header and its content disagree.');
+    if (header.format !== SHARP_FORMAT[type])
+      throw unreadable('the image is corrupt: its header and its content disagree.');
     if ((header.width ?? 0) * (header.height ?? 0) > MAX_INPUT_PIXELS) throw tooManyPixels();
     const full = await reencode(input);
     const thumbnail = await toJpeg(
-      sharp(full.bytes).resize(THUMBNAIL_LONGEST_SIDE, THUMBNAIL_LONGEST_SIDE, { fit: 'inside', withoutEnlargement: true }),
+      sharp(full.bytes).resize(THUMBNAIL_LONGEST_SIDE, THUMBNAIL_LONGEST_SIDE, {
+        fit: 'inside',
+        withoutEnlargement: true,
+      }),
       { quality: 76, mozjpeg: true },
     );
     return { full, thumbnail };
   });
 }
 
-const tooManyPixels = () => unreadable(`the image is larger than ${MAX_INPUT_PIXELS / 1_000_000} megapixels; send a smaller one.`);
+const tooManyPixels = () =>
+  unreadable(`the image is larger than ${MAX_INPUT_PIXELS / 1_000_000} megapixels; send a smaller one.`);
 
 async function reencode(input: Uint8Array): Promise<EncodedImage> {
   try {
@@ -95,5 +102,10 @@ async function reencode(input: Uint8Array): Promise<EncodedImage> {
 async function toJpeg(pipeline: sharp.Sharp, options: sharp.JpegOptions): Promise<EncodedImage> {
   // No withMetadata()/keepExif()/keepIccProfile(): sharp writes none of the input's metadata.
   const { data, info } = await pipeline.jpeg(options).toBuffer({ resolveWithObject: true });
-  return { bytes: new Uint8Array(data.buffer, data.byteOffset, data.byteLength), width: info.width, height: info.height, contentType: 'image/jpeg' };
+  return {
+    bytes: new Uint8Array(data.buffer, data.byteOffset, data.byteLength),
+    width: info.width,
+    height: info.height,
+    contentType: 'image/jpeg',
+  };
 }

@@ -18,17 +18,23 @@ const LIMIT_MB = MAX_PHOTO_BYTES / (1024 * 1024);
 export async function readPhotoUpload(request: Request): Promise<PhotoUpload> {
   const type = request.headers.get('content-type') ?? '';
   if (!/^multipart\/form-data\s*;/i.test(type)) {
-    throw new HttpError(415, 'Send the photo as multipart/form-data, with the image in the field file and drive or coast in side.');
+    throw new HttpError(
+      415,
+      'Send the photo as multipart/form-data, with the image in the field file and drive or coast in side.',
+    );
   }
   const body = await readBodyBytes(request, MAX_BODY_BYTES, tooLarge);
   let form: FormData;
   try {
-    form = await new Response(new Uint8Array(body.buffer as ArrayBuffer, body.byteOffset, body.byteLength), { headers: { 'content-type': type } }).formData();
+    form = await new Response(new Uint8Array(body.buffer as ArrayBuffer, body.byteOffset, body.byteLength), {
+      headers: { 'content-type': type },
+    }).formData();
   } catch {
     throw new HttpError(400, 'The body is not valid multipart/form-data; send it the way a browser form does.');
   }
   const file = form.get('file');
-  if (file === null || typeof file === 'string') throw new HttpError(400, 'file: attach the photo as a file in the field file.', { file: 'missing' });
+  if (file === null || typeof file === 'string')
+    throw new HttpError(400, 'file: attach the photo as a file in the field file.', { file: 'missing' });
   if (file.size === 0) throw new HttpError(400, 'file: the file is empty.', { file: 'empty' });
   if (file.size > MAX_PHOTO_BYTES) throw tooLarge();
   const { side } = parseWith(photoFieldsSchema, { side: form.get('side') ?? undefined });
@@ -36,5 +42,10 @@ export async function readPhotoUpload(request: Request): Promise<PhotoUpload> {
 }
 
 function tooLarge(headers?: Record<string, string>): HttpError {
-  return new HttpError(413, `file: a photo may be at most ${LIMIT_MB} MB; send a smaller one.`, { file: `larger than ${LIMIT_MB} MB` }, headers);
+  return new HttpError(
+    413,
+    `file: a photo may be at most ${LIMIT_MB} MB; send a smaller one.`,
+    { file: `larger than ${LIMIT_MB} MB` },
+    headers,
+  );
 }

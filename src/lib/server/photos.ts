@@ -47,7 +47,11 @@ function photoToView(photo: InspectionPhoto): PhotoView {
  * Re-encodes and stores an uploaded photo. `inspection` comes from requirePhotoWriter, which the
  * route calls before reading the body, so nobody who may not write uploads 15 MB first.
  */
-export async function addPhoto(access: TeamAccess, inspection: Pick<Inspection, 'id'>, upload: { bytes: Uint8Array; side: PhotoSide }): Promise<CreatedPhotoView> {
+export async function addPhoto(
+  access: TeamAccess,
+  inspection: Pick<Inspection, 'id'>,
+  upload: { bytes: Uint8Array; side: PhotoSide },
+): Promise<CreatedPhotoView> {
   const { full, thumbnail } = await encodePhoto(upload.bytes);
   const storage = await getObjectStorage();
   const storageKey = `${randomUUID()}.jpg`;
@@ -76,7 +80,14 @@ export async function addPhoto(access: TeamAccess, inspection: Pick<Inspection, 
         })
         .returning();
       if (!row) throw new Error('insert returned no row');
-      await recordAudit(tx, { teamId: access.team.id, actorId: access.user.id, action: 'create', recordType: 'inspection-photo', recordId: row.id, after: row });
+      await recordAudit(tx, {
+        teamId: access.team.id,
+        actorId: access.user.id,
+        action: 'create',
+        recordType: 'inspection-photo',
+        recordId: row.id,
+        after: row,
+      });
       return row;
     });
     return { ...photoToView(photo), contentType: photo.contentType };
@@ -101,7 +112,11 @@ export async function listPhotos(teamId: string, inspectionId: string): Promise<
 /** The stored bytes of one of the team's photos (404 for anyone else's, or a missing object). */
 export async function readPhoto(teamId: string, photoId: string, variant: 'full' | 'thumbnail'): Promise<StoredObject> {
   const db = await getDb();
-  const photo = await db.select().from(inspectionPhotos).where(and(eq(inspectionPhotos.id, photoId), eq(inspectionPhotos.teamId, teamId))).get();
+  const photo = await db
+    .select()
+    .from(inspectionPhotos)
+    .where(and(eq(inspectionPhotos.id, photoId), eq(inspectionPhotos.teamId, teamId)))
+    .get();
   if (!photo) throw new HttpError(404, 'No such photo in this team.');
   const object = await (await getObjectStorage()).get(variant === 'full' ? photo.storageKey : photo.thumbnailKey);
   if (!object) {
@@ -115,11 +130,22 @@ export async function readPhoto(teamId: string, photoId: string, variant: 'full'
 export async function deletePhoto(access: TeamAccess, inspectionId: string, photoId: string): Promise<void> {
   await requirePhotoWriter(access, inspectionId);
   const removed = await write(async (tx) => {
-    const where = and(eq(inspectionPhotos.id, photoId), eq(inspectionPhotos.inspectionId, inspectionId), eq(inspectionPhotos.teamId, access.team.id));
+    const where = and(
+      eq(inspectionPhotos.id, photoId),
+      eq(inspectionPhotos.inspectionId, inspectionId),
+      eq(inspectionPhotos.teamId, access.team.id),
+    );
     const before = await tx.select().from(inspectionPhotos).where(where).get();
     if (!before) throw new HttpError(404, 'No such photo on this inspection.');
     await tx.delete(inspectionPhotos).where(eq(inspectionPhotos.id, photoId));
-    await recordAudit(tx, { teamId: access.team.id, actorId: access.user.id, action: 'delete', recordType: 'inspection-photo', recordId: photoId, before });
+    await recordAudit(tx, {
+      teamId: access.team.id,
+      actorId: access.user.id,
+      action: 'delete',
+      recordType: 'inspection-photo',
+      recordId: photoId,
+      before,
+    });
     return before;
   });
   await removeObjects([removed.storageKey, removed.thumbnailKey]);
@@ -134,7 +160,8 @@ export async function removeObjects(keys: string[]): Promise<void> {
   const storage = await getObjectStorage();
   const results = await Promise.allSettled(keys.map((key) => storage.delete(key)));
   results.forEach((result, i) => {
-    if (result.status === 'rejected') console.error(`[lashline] could not remove stored object ${keys[i]}`, result.reason);
+    if (result.status === 'rejected')
+      console.error(`[lashline] could not remove stored object ${keys[i]}`, result.reason);
   });
 }
 
@@ -143,6 +170,9 @@ export async function removeObjects(keys: string[]): Promise<void> {
  * go by cascade); pass them to removeObjects() once that transaction has committed.
  */
 export async function photoKeysOfInspection(tx: Transaction, inspectionId: string): Promise<string[]> {
-  const rows = await tx.select({ storageKey: inspectionPhotos.storageKey, thumbnailKey: inspectionPhotos.thumbnailKey }).from(inspectionPhotos).where(eq(inspectionPhotos.inspectionId, inspectionId));
+  const rows = await tx
+    .select({ storageKey: inspectionPhotos.storageKey, thumbnailKey: inspectionPhotos.thumbnailKey })
+    .from(inspectionPhotos)
+    .where(eq(inspectionPhotos.inspectionId, inspectionId));
   return rows.flatMap((row) => [row.storageKey, row.thumbnailKey]);
 }

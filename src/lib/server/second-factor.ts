@@ -34,7 +34,14 @@ export function decryptSecret(stored: string): string {
 }
 
 function totpFor(email: string, base32: string): TOTP {
-  return new TOTP({ issuer: 'Lashline', label: email, algorithm: 'SHA1', digits: 6, period: 30, secret: Secret.fromBase32(base32) });
+  return new TOTP({
+    issuer: 'Lashline',
+    label: email,
+    algorithm: 'SHA1',
+    digits: 6,
+    period: 30,
+    secret: Secret.fromBase32(base32),
+  });
 }
 
 const hashCode = (code: string) => createHash('sha256').update(code.replace(/[\s-]/g, '').toLowerCase()).digest('hex');
@@ -42,7 +49,12 @@ const hashCode = (code: string) => createHash('sha256').update(code.replace(/[\s
 /** Starts setting up: a new secret waits for its first code. Returns what an authenticator app needs. */
 export async function beginSecondFactor(user: Pick<User, 'id' | 'email'>): Promise<{ secret: string; uri: string }> {
   const secret = new Secret({ size: 20 }).base32;
-  await write((tx) => tx.update(users).set({ totpPendingSecret: encryptSecret(secret) }).where(eq(users.id, user.id)));
+  await write((tx) =>
+    tx
+      .update(users)
+      .set({ totpPendingSecret: encryptSecret(secret) })
+      .where(eq(users.id, user.id)),
+  );
   return { secret, uri: totpFor(user.email, secret).toString() };
 }
 
@@ -50,15 +62,36 @@ export async function beginSecondFactor(user: Pick<User, 'id' | 'email'>): Promi
 export async function confirmSecondFactor(userId: string, code: string): Promise<string[]> {
   const db = await getDb();
   const user = await db.select().from(users).where(eq(users.id, userId)).get();
-  if (!user?.totpPendingSecret) throw new HttpError(409, 'Start the set-up first: no second factor is waiting for a code.');
+  if (!user?.totpPendingSecret)
+    throw new HttpError(409, 'Start the set-up first: no second factor is waiting for a code.');
   const secret = decryptSecret(user.totpPendingSecret);
   if (totpFor(user.email, secret).validate({ token: code.replace(/\s/g, ''), window: 1 }) === null) {
-    throw new HttpError(400, 'code: that code does not match; check the time on the phone and try the next one.', { code: 'does not match' });
+    throw new HttpError(400, 'code: that code does not match; check the time on the phone and try the next one.', {
+      code: 'does not match',
+    });
   }
-  const codes = Array.from({ length: RECOVERY_CODES }, () => randomBytes(5).toString('hex').replace(/(.{5})/, '$1-'));
+  const codes = Array.from({ length: RECOVERY_CODES }, () =>
+    randomBytes(5)
+      .toString('hex')
+      .replace(/(.{5})/, '$1-'),
+  );
   await write(async (tx) => {
-    await tx.update(users).set({ totpSecret: user.totpPendingSecret, totpPendingSecret: null, totpEnabledAt: new Date(), recoveryCodeHashes: codes.map(hashCode) }).where(eq(users.id, userId));
-    await recordAudit(tx, { teamId: null, actorId: userId, action: 'second-factor-on', recordType: 'account', recordId: userId });
+    await tx
+      .update(users)
+      .set({
+        totpSecret: user.totpPendingSecret,
+        totpPendingSecret: null,
+        totpEnabledAt: new Date(),
+        recoveryCodeHashes: codes.map(hashCode),
+      })
+      .where(eq(users.id, userId));
+    await recordAudit(tx, {
+      teamId: null,
+      actorId: userId,
+      action: 'second-factor-on',
+      recordType: 'account',
+      recordId: userId,
+    });
   });
   return codes;
 }
@@ -68,11 +101,28 @@ export async function disableSecondFactor(userId: string, password: string, code
   const db = await getDb();
   const user = await db.select().from(users).where(eq(users.id, userId)).get();
   if (!user?.totpEnabledAt) throw new HttpError(409, 'The second factor is not on.');
-  if (!(await verifyPassword(user.passwordHash, password))) throw new HttpError(400, 'password: not right.', { password: 'not right' });
-  if (!(await checkSecondFactor(user, code))) throw new HttpError(400, 'code: that code does not match.', { code: 'does not match' });
+  if (!(await verifyPassword(user.passwordHash, password)))
+    throw new HttpError(400, 'password: not right.', { password: 'not right' });
+  if (!(await checkSecondFactor(user, code)))
+    throw new HttpError(400, 'code: that code does not match.', { code: 'does not match' });
   await write(async (tx) => {
-    await tx.update(users).set({ totpSecret: null, totpPendingSecret: null, totpEnabledAt: null, recoveryCodeHashes: null, sessionVersion: sql`${users.sessionVersion} + 1` }).where(eq(users.id, userId));
-    await recordAudit(tx, { teamId: null, actorId: userId, action: 'second-factor-off', recordType: 'account', recordId: userId });
+    await tx
+      .update(users)
+      .set({
+        totpSecret: null,
+        totpPendingSecret: null,
+        totpEnabledAt: null,
+        recoveryCodeHashes: null,
+        sessionVersion: sql`${users.sessionVersion} + 1`,
+      })
+      .where(eq(users.id, userId));
+    await recordAudit(tx, {
+      teamId: null,
+      actorId: userId,
+      action: 'second-factor-off',
+      recordType: 'account',
+      recordId: userId,
+    });
   });
 }
 
@@ -80,10 +130,16 @@ export async function disableSecondFactor(userId: string, password: string, code
 export async function checkSecondFactor(user: User, code: string): Promise<boolean> {
   if (!user.totpSecret || !code) return false;
   const token = code.replace(/\s/g, '');
-  if (/^\d{6}$/.test(token)) return totpFor(user.email, decryptSecret(user.totpSecret)).validate({ token, window: 1 }) !== null;
+  if (/^\d{6}$/.test(token))
+    return totpFor(user.email, decryptSecret(user.totpSecret)).validate({ token, window: 1 }) !== null;
   const hash = hashCode(code);
   const remaining = user.recoveryCodeHashes ?? [];
   if (!remaining.includes(hash)) return false;
-  await write((tx) => tx.update(users).set({ recoveryCodeHashes: remaining.filter((h) => h !== hash) }).where(eq(users.id, user.id)));
+  await write((tx) =>
+    tx
+      .update(users)
+      .set({ recoveryCodeHashes: remaining.filter((h) => h !== hash) })
+      .where(eq(users.id, user.id)),
+  );
   return true;
 }

@@ -50,7 +50,13 @@ const PREPARED = new WeakMap<Database, ReturnType<typeof prepareSessionQuery>>()
 
 function prepareSessionQuery(db: Database) {
   return db
-    .select({ user: users, teamId: teams.id, teamName: teams.name, role: memberships.role, requireSecondFactor: teams.requireSecondFactor })
+    .select({
+      user: users,
+      teamId: teams.id,
+      teamName: teams.name,
+      role: memberships.role,
+      requireSecondFactor: teams.requireSecondFactor,
+    })
     .from(users)
     .leftJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.teamId, users.currentTeamId)))
     .leftJoin(teams, eq(teams.id, memberships.teamId))
@@ -104,7 +110,11 @@ export async function loadSession(readCookie: (name: string) => string | undefin
   const row = await readSessionRow(claims.sub);
   if (!row || claims.sv !== row.user.sessionVersion) return none;
   // A team that requires a second factor holds back its owners and crew chiefs until they turn one on.
-  const held = Boolean(row.requireSecondFactor) && (row.role === 'owner' || row.role === 'crew-chief') && !row.user.totpEnabledAt;
-  const team = row.teamId && row.teamName && row.role ? { id: row.teamId, name: row.teamName, role: row.role, ...(held ? { secondFactorMissing: true } : {}) } : null;
+  const held =
+    Boolean(row.requireSecondFactor) && (row.role === 'owner' || row.role === 'crew-chief') && !row.user.totpEnabledAt;
+  const team =
+    row.teamId && row.teamName && row.role
+      ? { id: row.teamId, name: row.teamName, role: row.role, ...(held ? { secondFactorMissing: true } : {}) }
+      : null;
   return { user: userToPublic(row.user), team };
 }

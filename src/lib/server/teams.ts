@@ -28,7 +28,14 @@ export async function createTeam(userId: string, name: string): Promise<Team> {
     if (!team) throw new Error('insert returned no row');
     await tx.insert(memberships).values({ teamId: team.id, userId, role: 'owner' });
     await tx.update(users).set({ currentTeamId: team.id }).where(eq(users.id, userId));
-    await recordAudit(tx, { teamId: team.id, actorId: userId, action: 'create', recordType: 'team', recordId: team.id, after: { name } });
+    await recordAudit(tx, {
+      teamId: team.id,
+      actorId: userId,
+      action: 'create',
+      recordType: 'team',
+      recordId: team.id,
+      after: { name },
+    });
     return team;
   });
 }
@@ -64,12 +71,25 @@ export async function switchTeam(userId: string, teamId: string): Promise<void> 
 export async function listMembers(teamId: string): Promise<Member[]> {
   const db = await getDb();
   const rows = await db
-    .select({ userId: users.id, name: users.name, email: users.email, role: memberships.role, joined: memberships.createdAt })
+    .select({
+      userId: users.id,
+      name: users.name,
+      email: users.email,
+      role: memberships.role,
+      joined: memberships.createdAt,
+    })
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
     .where(eq(memberships.teamId, teamId))
     .orderBy(asc(users.name));
-  return rows.map((row) => ({ id: row.userId, userId: row.userId, name: row.name, email: row.email, role: row.role, joinedAt: row.joined.toISOString() }));
+  return rows.map((row) => ({
+    id: row.userId,
+    userId: row.userId,
+    name: row.name,
+    email: row.email,
+    role: row.role,
+    joinedAt: row.joined.toISOString(),
+  }));
 }
 
 async function requireMemberRow(tx: Transaction, teamId: string, userId: string): Promise<Role> {
@@ -96,10 +116,23 @@ export async function changeMemberRole(actorId: string, teamId: string, userId: 
   await write(async (tx) => {
     const before = await requireMemberRow(tx, teamId, userId);
     if (before === 'owner' && role !== 'owner' && (await countOwners(tx, teamId)) <= 1) {
-      throw new HttpError(409, 'role: the team needs at least one owner; make someone else owner first.', { role: 'last owner' });
+      throw new HttpError(409, 'role: the team needs at least one owner; make someone else owner first.', {
+        role: 'last owner',
+      });
     }
-    await tx.update(memberships).set({ role }).where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
-    await recordAudit(tx, { teamId, actorId, action: 'change-role', recordType: 'membership', recordId: userId, before: { role: before }, after: { role } });
+    await tx
+      .update(memberships)
+      .set({ role })
+      .where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
+    await recordAudit(tx, {
+      teamId,
+      actorId,
+      action: 'change-role',
+      recordType: 'membership',
+      recordId: userId,
+      before: { role: before },
+      after: { role },
+    });
   });
 }
 
@@ -112,8 +145,21 @@ export async function removeMember(actorId: string, teamId: string, userId: stri
     }
     await tx.delete(memberships).where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
     // Ends the person's sessions everywhere, so nothing they had open keeps showing this team.
-    await tx.update(users).set({ sessionVersion: sql`${users.sessionVersion} + 1` }).where(eq(users.id, userId));
-    await tx.update(users).set({ currentTeamId: null }).where(and(eq(users.id, userId), eq(users.currentTeamId, teamId)));
-    await recordAudit(tx, { teamId, actorId, action: 'remove', recordType: 'membership', recordId: userId, before: { role } });
+    await tx
+      .update(users)
+      .set({ sessionVersion: sql`${users.sessionVersion} + 1` })
+      .where(eq(users.id, userId));
+    await tx
+      .update(users)
+      .set({ currentTeamId: null })
+      .where(and(eq(users.id, userId), eq(users.currentTeamId, teamId)));
+    await recordAudit(tx, {
+      teamId,
+      actorId,
+      action: 'remove',
+      recordType: 'membership',
+      recordId: userId,
+      before: { role },
+    });
   });
 }

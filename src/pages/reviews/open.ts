@@ -16,7 +16,11 @@ export const POST: APIRoute = async ({ locals, request, url, redirect }) => {
     const review = await openReview(access, form.data.gearSetId, resolveBaseUrl(url));
     return redirect(`/reviews/${review.id}`, 303);
   } catch (error) {
-    if (error instanceof HttpError) return new Response(error.message, { status: error.status, headers: { 'Content-Type': 'text/plain; charset=utf-8' } });
+    if (error instanceof HttpError)
+      return new Response(error.message, {
+        status: error.status,
+        headers: { 'Content-Type': 'text/plain; charset=utf-8' },
+      });
     throw error;
   }
 };

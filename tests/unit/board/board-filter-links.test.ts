@@ -34,14 +34,28 @@ describe('the board filter’s links', () => {
 
   it('marks exactly one choice per row as current', () => {
     const filter = { car: 'c2', status: null };
-    expect(carChoices(filter, CARS).filter((c) => c.current).map((c) => c.label)).toEqual(['22 Blackwater']);
-    expect(statusChoices(filter, LABELS).filter((c) => c.current).map((c) => c.label)).toEqual(['Any in use']);
+    expect(
+      carChoices(filter, CARS)
+        .filter((c) => c.current)
+        .map((c) => c.label),
+    ).toEqual(['22 Blackwater']);
+    expect(
+      statusChoices(filter, LABELS)
+        .filter((c) => c.current)
+        .map((c) => c.label),
+    ).toEqual(['Any in use']);
   });
 
   it('links to addresses the board reads back as the same filter', () => {
-    for (const choice of [...carChoices({ car: null, status: 'under-review' }, CARS), ...statusChoices({ car: 'c1', status: null }, LABELS)]) {
+    for (const choice of [
+      ...carChoices({ car: null, status: 'under-review' }, CARS),
+      ...statusChoices({ car: 'c1', status: null }, LABELS),
+    ]) {
       const params = new URL(choice.href, 'http://board.test').searchParams;
-      const read = readBoardFilter(params, CARS.map((c) => c.id));
+      const read = readBoardFilter(
+        params,
+        CARS.map((c) => c.id),
+      );
       expect(boardFilterHref(read)).toBe(choice.href);
     }
   });

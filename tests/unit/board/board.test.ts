@@ -1,20 +1,46 @@
 import { describe, expect, it } from 'vitest';
-import { filterBoardRows, findProjectedRunsLeft, readBoardFilter, sortBoardRows, splitSpares, toBoardRow, type BoardAnalysis, type BoardGearSet } from '../../../src/lib/board/board';
+import {
+  filterBoardRows,
+  findProjectedRunsLeft,
+  readBoardFilter,
+  sortBoardRows,
+  splitSpares,
+  toBoardRow,
+  type BoardAnalysis,
+  type BoardGearSet,
+} from '../../../src/lib/board/board';
 
 const CAR = { id: 'car-1', name: '714 Ember' };
 const carOf = (assemblyId: string) => (assemblyId === 'asm-1' ? CAR : null);
 const carName = (carId: string) => (carId === CAR.id ? CAR.name : null);
 
 function set(serial: string, extra: Partial<BoardGearSet> = {}): BoardGearSet {
-  return { id: serial.toLowerCase(), serial, status: 'in-service', ratioLabel: '4.10:1', totalRuns: 20, runsSinceInstall: 20, lifeLimitRuns: 50, location: { targetType: 'assembly', targetId: 'asm-1', label: 'assembly RE-01 (Ember rear end)' }, ...extra };
+  return {
+    id: serial.toLowerCase(),
+    serial,
+    status: 'in-service',
+    ratioLabel: '4.10:1',
+    totalRuns: 20,
+    runsSinceInstall: 20,
+    lifeLimitRuns: 50,
+    location: { targetType: 'assembly', targetId: 'asm-1', label: 'assembly RE-01 (Ember rear end)' },
+    ...extra,
+  };
 }
 
-function analysis(action: 'keep' | 'watch' | 're-shim' | 'retire' | null, extra: Partial<BoardAnalysis> = {}): BoardAnalysis {
+function analysis(
+  action: 'keep' | 'watch' | 're-shim' | 'retire' | null,
+  extra: Partial<BoardAnalysis> = {},
+): BoardAnalysis {
   return {
     inspectionCount: action ? 3 : 0,
-    latest: action ? { inspectedAt: '2026-10-26T16:00:00.000Z', summary: { verdicts: [{ measure: 'spread', verdict: 'in-band' }] } } : null,
+    latest: action
+      ? { inspectedAt: '2026-10-26T16:00:00.000Z', summary: { verdicts: [{ measure: 'spread', verdict: 'in-band' }] } }
+      : null,
     trends: [],
-    recommendation: action ? { action, reasons: [{ code: 'x', message: `${action} because`, severity: 'info', action }] } : null,
+    recommendation: action
+      ? { action, reasons: [{ code: 'x', message: `${action} because`, severity: 'info', action }] }
+      : null,
     ...extra,
   };
 }
@@ -28,16 +54,51 @@ describe('board rows', () => {
   });
 
   it('takes the worst verdict of the latest inspection and names its measure', () => {
-    const row = toBoardRow(set('GS-1'), analysis('watch', { latest: { inspectedAt: '2026-10-26T16:00:00.000Z', summary: { verdicts: [{ measure: 'spread', verdict: 'in-band' }, { measure: 'backlash-max-point', verdict: 'near-limit' }] } } }), carOf, carName);
+    const row = toBoardRow(
+      set('GS-1'),
+      analysis('watch', {
+        latest: {
+          inspectedAt: '2026-10-26T16:00:00.000Z',
+          summary: {
+            verdicts: [
+              { measure: 'spread', verdict: 'in-band' },
+              { measure: 'backlash-max-point', verdict: 'near-limit' },
+            ],
+          },
+        },
+      }),
+      carOf,
+      carName,
+    );
     expect(row.verdict).toBe('near-limit');
     expect(row.verdictMeasure).toBe('backlash-max-point');
   });
 
   it('projects runs left as the nearest of the life limit and a trend crossing', () => {
-    expect(findProjectedRunsLeft({ totalRuns: 44, lifeLimitRuns: 50 }, { trends: [{ measure: 'backlash-mean', projection: { runsToLimit: 9.5 } }] })).toEqual({ runs: 6, what: 'life limit' });
-    expect(findProjectedRunsLeft({ totalRuns: 10, lifeLimitRuns: 50 }, { trends: [{ measure: 'backlash-mean', projection: { runsToLimit: 9.5 } }] })).toEqual({ runs: 9, what: 'mean backlash' });
-    expect(findProjectedRunsLeft({ totalRuns: 10, lifeLimitRuns: null }, { trends: [{ measure: 'spread', projection: { runsToLimit: null, reason: { code: 'already-past-limit' } } }] })).toEqual({ runs: 0, what: 'spread past its limit' });
-    expect(findProjectedRunsLeft({ totalRuns: 10, lifeLimitRuns: null }, { trends: [{ measure: 'spread', projection: { runsToLimit: 2e16 } }] })).toBeNull();
+    expect(
+      findProjectedRunsLeft(
+        { totalRuns: 44, lifeLimitRuns: 50 },
+        { trends: [{ measure: 'backlash-mean', projection: { runsToLimit: 9.5 } }] },
+      ),
+    ).toEqual({ runs: 6, what: 'life limit' });
+    expect(
+      findProjectedRunsLeft(
+        { totalRuns: 10, lifeLimitRuns: 50 },
+        { trends: [{ measure: 'backlash-mean', projection: { runsToLimit: 9.5 } }] },
+      ),
+    ).toEqual({ runs: 9, what: 'mean backlash' });
+    expect(
+      findProjectedRunsLeft(
+        { totalRuns: 10, lifeLimitRuns: null },
+        { trends: [{ measure: 'spread', projection: { runsToLimit: null, reason: { code: 'already-past-limit' } } }] },
+      ),
+    ).toEqual({ runs: 0, what: 'spread past its limit' });
+    expect(
+      findProjectedRunsLeft(
+        { totalRuns: 10, lifeLimitRuns: null },
+        { trends: [{ measure: 'spread', projection: { runsToLimit: 2e16 } }] },
+      ),
+    ).toBeNull();
   });
 
   it('says retire for a set past its life that was never inspected', () => {
@@ -69,19 +130,37 @@ describe('board filters and spares', () => {
   ];
 
   it('leaves retired and scrapped sets off and filters by car and status', () => {
-    expect(filterBoardRows(rows, { car: null, status: null }).map((r) => r.serial)).toEqual(['GS-1', 'GS-2', 'GS-4', 'GS-5']);
+    expect(filterBoardRows(rows, { car: null, status: null }).map((r) => r.serial)).toEqual([
+      'GS-1',
+      'GS-2',
+      'GS-4',
+      'GS-5',
+    ]);
     expect(filterBoardRows(rows, { car: 'car-1', status: null }).map((r) => r.serial)).toEqual(['GS-1']);
-    expect(filterBoardRows(rows, { car: 'none', status: 'spare' }).map((r) => r.serial)).toEqual(['GS-2', 'GS-4', 'GS-5']);
+    expect(filterBoardRows(rows, { car: 'none', status: 'spare' }).map((r) => r.serial)).toEqual([
+      'GS-2',
+      'GS-4',
+      'GS-5',
+    ]);
   });
 
   it('reads the filter leniently', () => {
-    expect(readBoardFilter(new URLSearchParams('car=car-1&status=spare'), ['car-1'])).toEqual({ car: 'car-1', status: 'spare' });
-    expect(readBoardFilter(new URLSearchParams('car=other&status=retired'), ['car-1'])).toEqual({ car: null, status: null });
+    expect(readBoardFilter(new URLSearchParams('car=car-1&status=spare'), ['car-1'])).toEqual({
+      car: 'car-1',
+      status: 'spare',
+    });
+    expect(readBoardFilter(new URLSearchParams('car=other&status=retired'), ['car-1'])).toEqual({
+      car: null,
+      status: null,
+    });
   });
 
   it('lists as ready only spares within their life that no inspection holds back', () => {
     const { ready, notReady } = splitSpares(filterBoardRows(rows, { car: null, status: null }));
     expect(ready.map((r) => r.serial)).toEqual(['GS-2']);
-    expect(notReady.map((n) => [n.row.serial, n.why])).toEqual([['GS-4', 'at or past its life limit'], ['GS-5', 'its last inspection says re-shim']]);
+    expect(notReady.map((n) => [n.row.serial, n.why])).toEqual([
+      ['GS-4', 'at or past its life limit'],
+      ['GS-5', 'its last inspection says re-shim'],
+    ]);
   });
 });

@@ -17,7 +17,13 @@ describe('shapeBacklashTrend', () => {
     expect(shape.state).toBe('sparse');
     expect(shape.points).toHaveLength(1);
     const [point] = shape.points;
-    expect(point).toMatchObject({ runs: 12, value: 0.007, href: '/inspections/insp-1', valueText: '0.007 in', rangeText: '0.006–0.008 in' });
+    expect(point).toMatchObject({
+      runs: 12,
+      value: 0.007,
+      href: '/inspections/insp-1',
+      valueText: '0.007 in',
+      rangeText: '0.006–0.008 in',
+    });
     expect(point!.range![0]).toBeCloseTo(0.001, 12);
     expect(point!.range![1]).toBeCloseTo(0.001, 12);
     expect(shape.bands).toEqual([{ low: 0.005, high: 0.009, label: 'band 0.005–0.009 in' }]);
@@ -27,7 +33,13 @@ describe('shapeBacklashTrend', () => {
   });
 
   it('says a trend needs different run counts when every inspection is at run 0', () => {
-    const shape = shapeBacklashTrend(makeInput([{ runs: 0, mean: 0.007 }, { runs: 0, mean: 0.0075 }, { runs: 0, mean: 0.008 }]));
+    const shape = shapeBacklashTrend(
+      makeInput([
+        { runs: 0, mean: 0.007 },
+        { runs: 0, mean: 0.0075 },
+        { runs: 0, mean: 0.008 },
+      ]),
+    );
     expect(shape.points.map((p) => p.runs)).toEqual([0, 0, 0]);
     expect(shape.fit).toBeNull();
     expect(shape.projection).toBeNull();
@@ -48,7 +60,9 @@ describe('shapeBacklashTrend', () => {
     expect(shape.projection!.to.runs).toBeCloseTo(50, 9);
     expect(shape.projection!.to.value).toBe(0.009);
     expect(shape.projection!.label).toBe('run 50');
-    expect(shape.message).toBe('At this rate mean backlash reaches the upper limit (0.009 in) at about run 50, 20 runs after the last inspection.');
+    expect(shape.message).toBe(
+      'At this rate mean backlash reaches the upper limit (0.009 in) at about run 50, 20 runs after the last inspection.',
+    );
     expect(shape.xDomain[1]).toBeGreaterThan(50);
     expect(shape.state).toBe('ready');
   });
@@ -63,14 +77,26 @@ describe('shapeBacklashTrend', () => {
   });
 
   it('says a far crossing in words instead of stretching the chart to it', () => {
-    const shape = shapeBacklashTrend(makeInput([{ runs: 0, mean: 0.007 }, { runs: 10, mean: 0.007 }, { runs: 20, mean: 0.0071 }]));
+    const shape = shapeBacklashTrend(
+      makeInput([
+        { runs: 0, mean: 0.007 },
+        { runs: 10, mean: 0.007 },
+        { runs: 20, mean: 0.0071 },
+      ]),
+    );
     expect(shape.projection).toBeNull();
     expect(shape.message).toMatch(/beyond this chart|nearly flat/);
     expect(shape.xDomain[1]).toBeLessThan(100);
   });
 
   it('says when the line is already past a limit', () => {
-    const shape = shapeBacklashTrend(makeInput([{ runs: 0, mean: 0.008 }, { runs: 10, mean: 0.0092 }, { runs: 20, mean: 0.0104 }]));
+    const shape = shapeBacklashTrend(
+      makeInput([
+        { runs: 0, mean: 0.008 },
+        { runs: 10, mean: 0.0092 },
+        { runs: 20, mean: 0.0104 },
+      ]),
+    );
     expect(shape.projection).toBeNull();
     expect(shape.message).toMatch(/already past the upper limit \(0\.009 in\), since about run 8/);
   });

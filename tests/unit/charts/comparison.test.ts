@@ -1,8 +1,18 @@
 import { describe, expect, it } from 'vitest';
 import { summariseBacklash } from '../../../src/lib/analysis';
-import { findPreviousInspection, pickComparePair, shapeComparison, type ComparableInspection } from '../../../src/lib/charts/comparison';
+import {
+  findPreviousInspection,
+  pickComparePair,
+  shapeComparison,
+  type ComparableInspection,
+} from '../../../src/lib/charts/comparison';
 
-function inspection(id: string, runs: number, readings: number[], options: { resolution?: string; step?: number; tir?: number | null; torque?: number; status?: string } = {}): ComparableInspection {
+function inspection(
+  id: string,
+  runs: number,
+  readings: number[],
+  options: { resolution?: string; step?: number; tir?: number | null; torque?: number; status?: string } = {},
+): ComparableInspection {
   return {
     id,
     status: options.status ?? 'submitted',
@@ -18,7 +28,8 @@ function inspection(id: string, runs: number, readings: number[], options: { res
       resolution: options.step ?? 0.001,
       backlash: summariseBacklash(readings),
       runoutTir: options.tir === undefined ? 0.001 : options.tir,
-      verdicts: options.torque === undefined ? [] : [{ measure: 'pinion-preload-used', value: options.torque, unit: 'lbf-in' }],
+      verdicts:
+        options.torque === undefined ? [] : [{ measure: 'pinion-preload-used', value: options.torque, unit: 'lbf-in' }],
     },
   };
 }
@@ -39,19 +50,30 @@ describe('shapeComparison', () => {
   });
 
   it('does not flag a change equal to the threshold', () => {
-    const rows = shapeComparison(inspection('a', 0, [0.006, 0.006, 0.006]), inspection('b', 5, [0.008, 0.008, 0.008])).rows;
+    const rows = shapeComparison(
+      inspection('a', 0, [0.006, 0.006, 0.006]),
+      inspection('b', 5, [0.008, 0.008, 0.008]),
+    ).rows;
     expect(rows.find((r) => r.measure === 'mean')).toMatchObject({ flagged: false, deltaText: '+0.002 in' });
   });
 
   it('writes a fall with a true minus and adds the torque without judging it', () => {
-    const shape = shapeComparison(inspection('a', 0, [0.009, 0.009, 0.009], { torque: 26 }), inspection('b', 5, [0.006, 0.006, 0.006], { torque: 10 }));
+    const shape = shapeComparison(
+      inspection('a', 0, [0.009, 0.009, 0.009], { torque: 26 }),
+      inspection('b', 5, [0.006, 0.006, 0.006], { torque: 10 }),
+    );
     expect(shape.rows.find((r) => r.measure === 'mean')!.deltaText).toBe('−0.003 in');
     expect(shape.rows.at(-1)).toMatchObject({ measure: 'pinion-preload', deltaText: '−16.0 lbf·in', flagged: false });
   });
 });
 
 describe('choosing inspections', () => {
-  const list = [inspection('c', 30, [0.008, 0.008, 0.008]), inspection('a', 10, [0.007, 0.007, 0.007]), inspection('d', 35, [0.008, 0.008, 0.008], { status: 'draft' }), inspection('b', 20, [0.0075, 0.0075, 0.0075])];
+  const list = [
+    inspection('c', 30, [0.008, 0.008, 0.008]),
+    inspection('a', 10, [0.007, 0.007, 0.007]),
+    inspection('d', 35, [0.008, 0.008, 0.008], { status: 'draft' }),
+    inspection('b', 20, [0.0075, 0.0075, 0.0075]),
+  ];
 
   it('defaults to the latest and the one before', () => {
     const pair = pickComparePair(list, null, null);
@@ -65,7 +87,11 @@ describe('choosing inspections', () => {
   });
 
   it('falls back to the default for a draft, an unknown id or the same one twice', () => {
-    for (const [a, b] of [['a', 'd'], ['a', 'zzz'], ['a', 'a']] as const) {
+    for (const [a, b] of [
+      ['a', 'd'],
+      ['a', 'zzz'],
+      ['a', 'a'],
+    ] as const) {
       const pair = pickComparePair(list, a, b);
       expect([pair.before!.id, pair.after!.id, pair.defaulted]).toEqual(['b', 'c', true]);
     }

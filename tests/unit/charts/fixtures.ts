@@ -47,11 +47,28 @@ export function makeInput(readings: Reading[], options: { lifeLimitRuns?: number
     torqueUnit: 'lbf-in',
     inspections,
     trends: {
-      backlashMean: trendOf(inspections.map((i) => ({ runs: i.runs, value: i.backlash!.mean })), BAND),
-      spread: trendOf(inspections.map((i) => ({ runs: i.runs, value: i.backlash!.spread })), { max: MAX_SPREAD }),
+      backlashMean: trendOf(
+        inspections.map((i) => ({ runs: i.runs, value: i.backlash!.mean })),
+        BAND,
+      ),
+      spread: trendOf(
+        inspections.map((i) => ({ runs: i.runs, value: i.backlash!.spread })),
+        { max: MAX_SPREAD },
+      ),
     },
-    life: { totalRuns: lastRuns, runsSinceInstall: lastRuns, lifeLimitRuns, runsLeft: lifeLimitRuns === null ? null : lifeLimitRuns - lastRuns },
-    limits: { backlash: BAND, maxSpread: MAX_SPREAD, runoutMax: 0.003, preloadNew: { min: 24, max: 32 }, preloadUsed: { min: 8, max: 12 } },
+    life: {
+      totalRuns: lastRuns,
+      runsSinceInstall: lastRuns,
+      lifeLimitRuns,
+      runsLeft: lifeLimitRuns === null ? null : lifeLimitRuns - lastRuns,
+    },
+    limits: {
+      backlash: BAND,
+      maxSpread: MAX_SPREAD,
+      runoutMax: 0.003,
+      preloadNew: { min: 24, max: 32 },
+      preloadUsed: { min: 8, max: 12 },
+    },
   };
 }
 

@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { coarsestResolution, deltaToText, isoToDayText, lengthToText, stepTicks, valueDomain } from '../../../src/lib/charts/format';
+import {
+  coarsestResolution,
+  deltaToText,
+  isoToDayText,
+  lengthToText,
+  stepTicks,
+  valueDomain,
+} from '../../../src/lib/charts/format';
 
 describe('chart number formats', () => {
   it('writes lengths with the digits the indicator resolves', () => {

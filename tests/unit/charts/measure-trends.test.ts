@@ -12,14 +12,26 @@ describe('shapeSpreadTrend', () => {
   });
 
   it('projects a growing spread to its limit', () => {
-    const shape = shapeSpreadTrend(makeInput([{ runs: 0, mean: 0.007, spread: 0 }, { runs: 10, mean: 0.007, spread: 0.0005 }, { runs: 20, mean: 0.007, spread: 0.001 }]));
+    const shape = shapeSpreadTrend(
+      makeInput([
+        { runs: 0, mean: 0.007, spread: 0 },
+        { runs: 10, mean: 0.007, spread: 0.0005 },
+        { runs: 20, mean: 0.007, spread: 0.001 },
+      ]),
+    );
     // 0.00005 a run from 0 meets 0.002 at run 40.
     expect(shape.projection!.to.runs).toBeCloseTo(40, 9);
     expect(shape.projection!.label).toBe('run 40');
   });
 
   it('says a shrinking spread is heading away from its limit', () => {
-    const shape = shapeSpreadTrend(makeInput([{ runs: 0, mean: 0.007, spread: 0.0015 }, { runs: 10, mean: 0.007, spread: 0.001 }, { runs: 20, mean: 0.007, spread: 0.0005 }]));
+    const shape = shapeSpreadTrend(
+      makeInput([
+        { runs: 0, mean: 0.007, spread: 0.0015 },
+        { runs: 10, mean: 0.007, spread: 0.001 },
+        { runs: 20, mean: 0.007, spread: 0.0005 },
+      ]),
+    );
     expect(shape.projection).toBeNull();
     expect(shape.message).toMatch(/heading away from its limit/);
   });
@@ -33,8 +45,16 @@ describe('shapeSpreadTrend', () => {
 
 describe('shapeRunoutTrend', () => {
   it('draws measured runout as circles and the estimate from the lash as diamonds', () => {
-    const shape = shapeRunoutTrend(makeInput([{ runs: 0, mean: 0.007, runout: 0.001, estimate: 0.0014 }, { runs: 20, mean: 0.007, runout: 0.004, estimate: null }]));
-    expect(shape.series.map((s) => [s.key, s.mark])).toEqual([['main', 'circle'], ['second', 'diamond']]);
+    const shape = shapeRunoutTrend(
+      makeInput([
+        { runs: 0, mean: 0.007, runout: 0.001, estimate: 0.0014 },
+        { runs: 20, mean: 0.007, runout: 0.004, estimate: null },
+      ]),
+    );
+    expect(shape.series.map((s) => [s.key, s.mark])).toEqual([
+      ['main', 'circle'],
+      ['second', 'diamond'],
+    ]);
     expect(shape.points.filter((p) => p.series === 'main').map((p) => p.value)).toEqual([0.001, 0.004]);
     expect(shape.points.filter((p) => p.series === 'second').map((p) => p.value)).toEqual([0.0014]);
     expect(shape.limitLines[0]!.value).toBe(0.003);
@@ -54,8 +74,20 @@ describe('shapePreloadTrend', () => {
     const shape = shapePreloadTrend(makeInput(RISING));
     expect(shape.points.map((p) => p.valueText)).toEqual(['26.0 lbf·in', '10.0 lbf·in', '10.0 lbf·in', '10.0 lbf·in']);
     expect(shape.bands).toHaveLength(2);
-    expect(shape.bands[0]).toMatchObject({ from: 0, to: 10, low: 24, high: 32, label: 'new bearings 24.0–32.0 lbf·in' });
-    expect(shape.bands[1]).toMatchObject({ from: 10, to: shape.xDomain[1], low: 8, high: 12, label: 'used bearings 8.0–12.0 lbf·in' });
+    expect(shape.bands[0]).toMatchObject({
+      from: 0,
+      to: 10,
+      low: 24,
+      high: 32,
+      label: 'new bearings 24.0–32.0 lbf·in',
+    });
+    expect(shape.bands[1]).toMatchObject({
+      from: 10,
+      to: shape.xDomain[1],
+      low: 8,
+      high: 12,
+      label: 'used bearings 8.0–12.0 lbf·in',
+    });
     expect(shape.yLabel).toBe('Turning torque (lbf·in)');
   });
 

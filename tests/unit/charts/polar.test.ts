@@ -1,7 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { shapePolar } from '../../../src/lib/charts/polar';
 
-const series = (readings: (number | null)[], key = 'a', resolution: '0.001in' | '0.0005in' = '0.001in') => ({ key, name: key, readings, resolution });
+const series = (readings: (number | null)[], key = 'a', resolution: '0.001in' | '0.0005in' = '0.001in') => ({
+  key,
+  name: key,
+  readings,
+  resolution,
+});
 
 describe('shapePolar', () => {
   it('puts position 1 at the top and goes clockwise', () => {
@@ -46,8 +51,18 @@ describe('shapePolar', () => {
   });
 
   it('overlays two inspections, the second dashed with square marks', () => {
-    const shape = shapePolar([series([0.008, 0.008, 0.008, 0.008], 'before'), series([0.009, 0.008, 0.007, 0.008, 0.009, 0.008, 0.007, 0.008], 'after', '0.0005in')], 'in', { min: 0.005, max: 0.009 });
-    expect(shape.series.map((s) => [s.mark, s.dashed])).toEqual([['circle', false], ['square', true]]);
+    const shape = shapePolar(
+      [
+        series([0.008, 0.008, 0.008, 0.008], 'before'),
+        series([0.009, 0.008, 0.007, 0.008, 0.009, 0.008, 0.007, 0.008], 'after', '0.0005in'),
+      ],
+      'in',
+      { min: 0.005, max: 0.009 },
+    );
+    expect(shape.series.map((s) => [s.mark, s.dashed])).toEqual([
+      ['circle', false],
+      ['square', true],
+    ]);
     // Eight spokes for the union of 4 and 8 positions; labels follow the first inspection's positions.
     expect(shape.spokes).toHaveLength(8);
     expect(shape.spokes.filter((s) => s.label).map((s) => s.label)).toEqual(['1', '2', '3', '4']);

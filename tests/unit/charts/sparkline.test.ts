@@ -3,7 +3,14 @@ import { shapeSparkline } from '../../../src/lib/charts/sparkline';
 
 describe('shapeSparkline', () => {
   it('joins the points left to right and shades the band', () => {
-    const s = shapeSparkline([{ runs: 0, value: 0.0065 }, { runs: 44, value: 0.0087 }], { min: 0.005, max: 0.009 }, 50);
+    const s = shapeSparkline(
+      [
+        { runs: 0, value: 0.0065 },
+        { runs: 44, value: 0.0087 },
+      ],
+      { min: 0.005, max: 0.009 },
+      50,
+    );
     expect(s.dots).toHaveLength(2);
     expect(s.dots[0]!.x).toBeLessThan(s.dots[1]!.x);
     expect(s.dots[0]!.y).toBeGreaterThan(s.dots[1]!.y);

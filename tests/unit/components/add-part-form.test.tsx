@@ -11,7 +11,11 @@ afterEach(cleanup);
 
 function renderForm(lifeLimitRuns: TeamSettingsAnswer['lifeLimitRuns'] = {}) {
   const client = new QueryClient({ defaultOptions: { queries: { staleTime: Infinity } } });
-  client.setQueryData(SETTINGS_KEY, { ...DEFAULT_TEAM_SETTINGS, lifeLimitRuns, lifeLimitDefaults: DEFAULT_LIFE_LIMITS } satisfies TeamSettingsAnswer);
+  client.setQueryData(SETTINGS_KEY, {
+    ...DEFAULT_TEAM_SETTINGS,
+    lifeLimitRuns,
+    lifeLimitDefaults: DEFAULT_LIFE_LIMITS,
+  } satisfies TeamSettingsAnswer);
   const onCreated = vi.fn();
   render(
     <QueryClientProvider client={client}>
@@ -33,7 +37,9 @@ describe('the add-part form', () => {
   it('prefills the common-practice life limit for the kind and says where it comes from', async () => {
     const { user } = renderForm();
     expect(limitInput().value).toBe('50');
-    expect(screen.getByText(/Common practice \(CP\): ring-and-pinion sets are often replaced after roughly 50 runs/)).toBeTruthy();
+    expect(
+      screen.getByText(/Common practice \(CP\): ring-and-pinion sets are often replaced after roughly 50 runs/),
+    ).toBeTruthy();
     await user.selectOptions(screen.getByLabelText('Kind'), 'spindle');
     expect(limitInput().value).toBe('100');
     await user.selectOptions(screen.getByLabelText('Kind'), 'axle');

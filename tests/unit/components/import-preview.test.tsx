@@ -33,7 +33,11 @@ const problemRows = () =>
   within(screen.getByTestId('import-problems'))
     .getAllByRole('row')
     .slice(1)
-    .map((tr) => within(tr).getAllByRole('cell').map((td) => td.textContent));
+    .map((tr) =>
+      within(tr)
+        .getAllByRole('cell')
+        .map((td) => td.textContent),
+    );
 
 describe('the import preview', () => {
   it('lists every row with a problem by line, column and message', async () => {
@@ -47,7 +51,11 @@ describe('the import preview', () => {
   });
 
   it('sends nothing while rows have problems, until they are left out', async () => {
-    const send = vi.fn(async (records: Record<string, string>[]) => ({ ok: true as const, status: 201, data: { imported: records.length, checked: records.length } }));
+    const send = vi.fn(async (records: Record<string, string>[]) => ({
+      ok: true as const,
+      status: 201,
+      data: { imported: records.length, checked: records.length },
+    }));
     const { user, onImported } = await chooseFile(CSV, send);
     const importButton = screen.getByRole('button', { name: 'Import 2 runs' });
     expect((importButton as HTMLButtonElement).disabled).toBe(true);
@@ -68,19 +76,27 @@ describe('the import preview', () => {
 
   it('refuses a file whose header lacks the car or the time', async () => {
     await chooseFile('vehicle,when\n714 Ember,2025-11-07T15:12:00Z\n');
-    expect(screen.getByTestId('import-summary').textContent).toBe('runs.csv cannot be imported: The header needs the columns car, at.');
+    expect(screen.getByTestId('import-summary').textContent).toBe(
+      'runs.csv cannot be imported: The header needs the columns car, at.',
+    );
     expect(screen.queryByRole('checkbox')).toBeNull();
   });
 
   it('offers a clean file for import at once', async () => {
-    await chooseFile(CSV.split('\n').filter((_, i) => i === 0 || i === 1 || i === 5).join('\n'));
+    await chooseFile(
+      CSV.split('\n')
+        .filter((_, i) => i === 0 || i === 1 || i === 5)
+        .join('\n'),
+    );
     expect(screen.getByTestId('import-summary').textContent).toBe('runs.csv: 2 rows read — 2 ready, 0 with problems.');
     expect(screen.queryByRole('checkbox')).toBeNull();
     expect((screen.getByRole('button', { name: 'Import 2 runs' }) as HTMLButtonElement).disabled).toBe(false);
   });
 
   it('counts lines the way the server does when a row is malformed', async () => {
-    await chooseFile(`${CSV.split('\n').slice(0, 2).join('\n')}\n\n22 Blackwater,2025-11-08T13:14:00Z,Dry Lake,E1,right,6.455,219.62,late,extra\n`);
+    await chooseFile(
+      `${CSV.split('\n').slice(0, 2).join('\n')}\n\n22 Blackwater,2025-11-08T13:14:00Z,Dry Lake,E1,right,6.455,219.62,late,extra\n`,
+    );
     // The blank line is skipped, so the malformed row is the second record: line 3.
     expect(problemRows()).toEqual([['3', 'file', 'Too many fields: expected 8 fields but parsed 9']]);
   });

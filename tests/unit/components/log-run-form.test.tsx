@@ -18,14 +18,34 @@ const CARS = [
 /** Answers as POST /api/runs does: the shared schema, then the time check, with the same error shape. */
 async function answerAsTheEndpoint(body: Record<string, unknown>): Promise<Answer<RunView>> {
   const parsed = runCreateSchema.safeParse(body);
-  if (!parsed.success) return { ok: false, problem: { status: 400, message: zodIssuesToMessage(parsed.error, 'body'), fields: zodIssuesToFields(parsed.error) } };
+  if (!parsed.success)
+    return {
+      ok: false,
+      problem: {
+        status: 400,
+        message: zodIssuesToMessage(parsed.error, 'body'),
+        fields: zodIssuesToFields(parsed.error),
+      },
+    };
   const ahead = checkRunTime(parsed.data.at, new Date());
   if (ahead) return { ok: false, problem: { status: 400, message: `at: ${ahead}`, fields: { at: ahead } } };
   const run = parsed.data;
   return {
     ok: true,
     status: 201,
-    data: { id: 'r1', carId: run.carId, at: run.at, event: run.event ?? null, round: run.round ?? null, lane: run.lane ?? null, notes: run.notes ?? null, elapsedSeconds: run.elapsedSeconds ?? null, speedMph: run.speedMph ?? null, recordedBy: 'u1', createdAt: run.at },
+    data: {
+      id: 'r1',
+      carId: run.carId,
+      at: run.at,
+      event: run.event ?? null,
+      round: run.round ?? null,
+      lane: run.lane ?? null,
+      notes: run.notes ?? null,
+      elapsedSeconds: run.elapsedSeconds ?? null,
+      speedMph: run.speedMph ?? null,
+      recordedBy: 'u1',
+      createdAt: run.at,
+    },
   };
 }
 
@@ -57,7 +77,9 @@ describe('the log-run form', () => {
     expect(await screen.findByText('Elapsed time must be a number.')).toBeTruthy();
     expect(screen.getByText('Speed must be more than 0.')).toBeTruthy();
     expect(et.getAttribute('aria-invalid')).toBe('true');
-    expect(document.getElementById(et.getAttribute('aria-describedby')!.split(' ').at(-1)!)?.textContent).toBe('Elapsed time must be a number.');
+    expect(document.getElementById(et.getAttribute('aria-describedby')!.split(' ').at(-1)!)?.textContent).toBe(
+      'Elapsed time must be a number.',
+    );
     expect(speed.getAttribute('aria-invalid')).toBe('true');
     expect(screen.getByRole('alert').textContent).toBe('2 fields need fixing; see the messages beside them.');
   });
@@ -91,11 +113,20 @@ describe('the log-run form', () => {
     const before = Date.now();
     await user.click(screen.getByRole('button', { name: 'Log run for 714 Ember' }));
     const body = send.mock.calls[0]![0];
-    expect(body).toMatchObject({ carId: 'c1', event: 'Dry Lake Autumn Invitational', round: 'Q2', lane: 'left', elapsedSeconds: 5.981, speedMph: 248.6 });
+    expect(body).toMatchObject({
+      carId: 'c1',
+      event: 'Dry Lake Autumn Invitational',
+      round: 'Q2',
+      lane: 'left',
+      elapsedSeconds: 5.981,
+      speedMph: 248.6,
+    });
     // The time follows the clock: the moment it was sent.
     expect(Date.parse(String(body.at))).toBeGreaterThanOrEqual(before - 1000);
     expect(onSaved).toHaveBeenCalledTimes(1);
-    expect((await screen.findByText(/Run logged for 714 Ember/)).textContent).toContain('Every part in the car counts it.');
+    expect((await screen.findByText(/Run logged for 714 Ember/)).textContent).toContain(
+      'Every part in the car counts it.',
+    );
     expect(screen.queryByRole('alert')).toBeNull();
     expect((screen.getByRole('radio', { name: /714 Ember/ }) as HTMLInputElement).checked).toBe(false);
     expect((screen.getByLabelText('Event') as HTMLInputElement).value).toBe('Dry Lake Autumn Invitational');

@@ -12,7 +12,11 @@ afterEach(() => {
 });
 
 // The team keeps its own gear-set limit of 40, so the form can only show 40 if it read these settings.
-const SETTINGS: TeamSettingsAnswer = { ...DEFAULT_TEAM_SETTINGS, lifeLimitRuns: { 'gear-set': 40 }, lifeLimitDefaults: DEFAULT_LIFE_LIMITS };
+const SETTINGS: TeamSettingsAnswer = {
+  ...DEFAULT_TEAM_SETTINGS,
+  lifeLimitRuns: { 'gear-set': 40 },
+  lifeLimitDefaults: DEFAULT_LIFE_LIMITS,
+};
 
 /** A fetch that answers the settings and the new part, and records what was asked. */
 function stubApi() {
@@ -21,7 +25,8 @@ function stubApi() {
     const method = init?.method ?? 'GET';
     calls.push({ method, path, body: init?.body ? JSON.parse(String(init.body)) : undefined });
     if (path === '/api/team/settings') return new Response(JSON.stringify(SETTINGS), { status: 200 });
-    if (path === '/api/parts' && method === 'POST') return new Response(JSON.stringify({ id: 'new part/1', kind: 'gear-set', serial: 'GS-9001' }), { status: 201 });
+    if (path === '/api/parts' && method === 'POST')
+      return new Response(JSON.stringify({ id: 'new part/1', kind: 'gear-set', serial: 'GS-9001' }), { status: 201 });
     return new Response('{}', { status: 404 });
   });
   vi.stubGlobal('fetch', fetch);
@@ -66,6 +71,9 @@ describe('the parts page’s actions', () => {
     await user.type(screen.getByLabelText('Pinion teeth'), '10');
     await user.click(screen.getByRole('button', { name: 'Add the part' }));
     await vi.waitFor(() => expect(onAdded).toHaveBeenCalledWith('/parts?added=new+part%2F1'));
-    expect(calls.find((c) => c.method === 'POST')).toMatchObject({ path: '/api/parts', body: { kind: 'gear-set', serial: 'GS-9001', ringTeeth: 41, pinionTeeth: 10, lifeLimitRuns: 40 } });
+    expect(calls.find((c) => c.method === 'POST')).toMatchObject({
+      path: '/api/parts',
+      body: { kind: 'gear-set', serial: 'GS-9001', ringTeeth: 41, pinionTeeth: 10, lifeLimitRuns: 40 },
+    });
   });
 });

@@ -20,7 +20,8 @@ let folder: string;
 let databaseUrl: string;
 let database: ClientModule;
 
-const insert = (n: number) => (tx: Parameters<Parameters<ClientModule['write']>[0]>[0]) => tx.run(sql`INSERT INTO items (n) VALUES (${n})`);
+const insert = (n: number) => (tx: Parameters<Parameters<ClientModule['write']>[0]>[0]) =>
+  tx.run(sql`INSERT INTO items (n) VALUES (${n})`);
 
 async function countItems(): Promise<number> {
   const db = await database.getDb();
@@ -101,7 +102,10 @@ describe('the database module on an embedded file', () => {
   });
 
   it('releases the write lock when a statement fails inside the transaction', async () => {
-    const failed = await database.write(insert(1)).then(() => null, (error: Error) => error);
+    const failed = await database.write(insert(1)).then(
+      () => null,
+      (error: Error) => error,
+    );
     expect(String(failed?.cause ?? failed)).toMatch(/UNIQUE|constraint/i);
     expect(await otherConnectionCanLock()).toBe(true);
     await database.write(insert(201));
@@ -131,13 +135,15 @@ describe('the database module on an embedded file', () => {
     const finished: number[] = [];
     const results = await Promise.allSettled(
       Array.from({ length: 100 }, (_, i) =>
-        database.write(async (tx) => {
-          // A read and a yield inside each transaction: interleaving would show here.
-          await tx.get(sql`SELECT count(*) FROM items`);
-          await new Promise((resolve) => setImmediate(resolve));
-          await insert(i)(tx);
-          return i;
-        }).then((i) => finished.push(i)),
+        database
+          .write(async (tx) => {
+            // A read and a yield inside each transaction: interleaving would show here.
+            await tx.get(sql`SELECT count(*) FROM items`);
+            await new Promise((resolve) => setImmediate(resolve));
+            await insert(i)(tx);
+            return i;
+          })
+          .then((i) => finished.push(i)),
       ),
     );
     expect(results.filter((r) => r.status === 'rejected')).toEqual([]);

@@ -24,8 +24,31 @@ function memoryStorage(): Storage {
 const LOCAL_ID = '0f7c2a4e-8b1d-4c3e-9a5f-6d7e8f901234';
 
 function draft(overrides: Partial<LocalDraft> = {}): LocalDraft {
-  const values = createBlankSheet({ gearSetId: 'gs1', positions: 4, unit: 'in', torqueUnit: 'lbf-in', technicianId: 'u1', inspectedAt: '2026-06-01T10:00:00.000Z' });
-  return { v: 1, localId: LOCAL_ID, serverId: null, status: 'draft', values: { ...values, runsAtInspection: 12 }, texts: {}, shimRows: [], countedRuns: 12, context: null, savedLocallyAt: '2026-06-01T10:00:00.000Z', savedToServerAt: null, dirty: false, submitKey: null, submitPending: false, ...overrides };
+  const values = createBlankSheet({
+    gearSetId: 'gs1',
+    positions: 4,
+    unit: 'in',
+    torqueUnit: 'lbf-in',
+    technicianId: 'u1',
+    inspectedAt: '2026-06-01T10:00:00.000Z',
+  });
+  return {
+    v: 1,
+    localId: LOCAL_ID,
+    serverId: null,
+    status: 'draft',
+    values: { ...values, runsAtInspection: 12 },
+    texts: {},
+    shimRows: [],
+    countedRuns: 12,
+    context: null,
+    savedLocallyAt: '2026-06-01T10:00:00.000Z',
+    savedToServerAt: null,
+    dirty: false,
+    submitKey: null,
+    submitPending: false,
+    ...overrides,
+  };
 }
 
 describe('the draft store', () => {
@@ -66,7 +89,14 @@ function view(status: 'draft' | 'submitted' = 'draft'): InspectionViewLite {
   return { id: 'i1', status, createdBy: 'u1', revision: 1 } as InspectionViewLite;
 }
 
-function makeSync(api: { create?: () => Promise<Answer<InspectionViewLite>>; patch?: () => Promise<Answer<InspectionViewLite>>; submit?: () => Promise<Answer<InspectionViewLite>> }, online = { value: true }) {
+function makeSync(
+  api: {
+    create?: () => Promise<Answer<InspectionViewLite>>;
+    patch?: () => Promise<Answer<InspectionViewLite>>;
+    submit?: () => Promise<Answer<InspectionViewLite>>;
+  },
+  online = { value: true },
+) {
   const store = createDraftStore(memoryStorage());
   const states: SyncState[] = [];
   const calls = {
@@ -74,7 +104,17 @@ function makeSync(api: { create?: () => Promise<Answer<InspectionViewLite>>; pat
     patch: vi.fn(api.patch ?? (async () => ({ ok: true as const, status: 200, data: view() }))),
     submit: vi.fn(api.submit ?? (async () => ({ ok: true as const, status: 200, data: view('submitted') }))),
   };
-  const sync = new DraftSync({ store, api: calls, draft: draft(), validate: (v) => findSheetIssues(v, 12), isOnline: () => online.value, onState: (s) => states.push(s), newKey: () => 'submit-key', debounceMs: 10_000, retryMs: 60_000 });
+  const sync = new DraftSync({
+    store,
+    api: calls,
+    draft: draft(),
+    validate: (v) => findSheetIssues(v, 12),
+    isOnline: () => online.value,
+    onState: (s) => states.push(s),
+    newKey: () => 'submit-key',
+    debounceMs: 10_000,
+    retryMs: 60_000,
+  });
   return { sync, store, calls, states };
 }
 
@@ -84,7 +124,10 @@ describe('the draft sync', () => {
     sync.change({ values: { ...sync.current.values, readings: [0.008, null, null, null] } });
     expect(store.load(LOCAL_ID)!.values.readings[0]).toBe(0.008);
     expect(await sync.flush()).toBe(true);
-    expect(calls.create).toHaveBeenCalledWith(expect.objectContaining({ gearSetId: 'gs1', readings: [0.008, null, null, null] }), LOCAL_ID);
+    expect(calls.create).toHaveBeenCalledWith(
+      expect.objectContaining({ gearSetId: 'gs1', readings: [0.008, null, null, null] }),
+      LOCAL_ID,
+    );
     sync.change({ values: { ...sync.current.values, readings: [0.008, 0.007, null, null] } });
     expect(await sync.flush()).toBe(true);
     expect(calls.patch).toHaveBeenCalledWith('i1', expect.not.objectContaining({ gearSetId: expect.anything() }));
@@ -120,7 +163,10 @@ describe('the draft sync', () => {
     sync.change({ values: { ...sync.current.values, runsAtInspection: null } });
     expect(await sync.flush()).toBe(false);
     expect(calls.create).not.toHaveBeenCalled();
-    expect(states.at(-1)).toMatchObject({ phase: 'invalid', problem: { fields: { runsAtInspection: expect.any(String) } } });
+    expect(states.at(-1)).toMatchObject({
+      phase: 'invalid',
+      problem: { fields: { runsAtInspection: expect.any(String) } },
+    });
     sync.dispose();
   });
 

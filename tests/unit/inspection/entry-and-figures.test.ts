@@ -2,7 +2,12 @@ import { describe, expect, it } from 'vitest';
 import { DEFAULT_PROFILE } from '../../../src/lib/analysis/tolerance';
 import { parseDecimalText, parseIndicatorText } from '../../../src/lib/inspection/entry-text';
 import { computeLiveFigures, judgePreload, preloadBandIn } from '../../../src/lib/inspection/live-figures';
-import { resizeReadings, sheetToPatchBody, valueToEntryText, createBlankSheet } from '../../../src/lib/inspection/sheet-values';
+import {
+  resizeReadings,
+  sheetToPatchBody,
+  valueToEntryText,
+  createBlankSheet,
+} from '../../../src/lib/inspection/sheet-values';
 
 describe('reading what was typed', () => {
   it('applies the thousandths rule and says how it read the entry', () => {
@@ -12,13 +17,21 @@ describe('reading what was typed', () => {
   });
 
   it('never shows more digits than the indicator reads, and says when the entry had more', () => {
-    expect(parseIndicatorText('0.0083', 'in', '0.001in').note).toBe('read as 0.008 in — finer than a 0.001 in indicator reads');
+    expect(parseIndicatorText('0.0083', 'in', '0.001in').note).toBe(
+      'read as 0.008 in — finer than a 0.001 in indicator reads',
+    );
     expect(parseIndicatorText('0.0085', 'in', '0.0005in').note).toBe('read as 0.0085 in');
   });
 
   it('explains an entry that is not a reading', () => {
-    expect(parseIndicatorText('-3', 'in', '0.001in')).toMatchObject({ value: null, error: expect.stringContaining('negative') });
-    expect(parseIndicatorText('abc', 'in', '0.001in')).toMatchObject({ value: null, error: expect.stringContaining('not a number') });
+    expect(parseIndicatorText('-3', 'in', '0.001in')).toMatchObject({
+      value: null,
+      error: expect.stringContaining('negative'),
+    });
+    expect(parseIndicatorText('abc', 'in', '0.001in')).toMatchObject({
+      value: null,
+      error: expect.stringContaining('not a number'),
+    });
     expect(parseIndicatorText('  ', 'in', '0.001in')).toEqual({ value: null });
   });
 
@@ -46,7 +59,10 @@ describe('the live figures', () => {
 
   it('judges in the entry unit with the server’s judgeBacklash', () => {
     // 0.13–0.23 mm at the minimum point (S: GM 1996) = 0.00512–0.00906 in; spread ≤ 0.05 mm (S: GM 1996).
-    const f = computeLiveFigures([0.008, 0.007, 0.006, 0.007], 'in', DEFAULT_PROFILE, { ringTeeth: 41, pinionTeeth: 10 });
+    const f = computeLiveFigures([0.008, 0.007, 0.006, 0.007], 'in', DEFAULT_PROFILE, {
+      ringTeeth: 41,
+      pinionTeeth: 10,
+    });
     expect(f.complete).toBe(true);
     expect(f.verdicts.map((v) => [v.measure, v.verdict])).toEqual([
       ['backlash-min-point', 'in-band'],
@@ -76,7 +92,14 @@ describe('the sheet values', () => {
   });
 
   it('sends a patch without the gear set, which never changes', () => {
-    const sheet = createBlankSheet({ gearSetId: 'gs1', positions: 3, unit: 'in', torqueUnit: 'lbf-in', technicianId: 'u1', inspectedAt: '2026-06-01T10:00:00.000Z' });
+    const sheet = createBlankSheet({
+      gearSetId: 'gs1',
+      positions: 3,
+      unit: 'in',
+      torqueUnit: 'lbf-in',
+      technicianId: 'u1',
+      inspectedAt: '2026-06-01T10:00:00.000Z',
+    });
     expect(sheetToPatchBody(sheet)).not.toHaveProperty('gearSetId');
     expect(sheetToPatchBody(sheet)).toMatchObject({ readings: [null, null, null] });
   });

@@ -33,7 +33,9 @@ describe('the pattern picker', () => {
     fireEvent.keyDown(picker, { key: 'ArrowRight' });
     fireEvent.keyDown(picker, { key: 'ArrowUp' });
     expect(onChange).toHaveBeenLastCalledWith({ along: 0.6, up: 0.55, length: 0.4 });
-    expect(screen.getByTestId('pattern-drive-words').textContent).toContain('60 % from toe to heel, 55 % from flank to face');
+    expect(screen.getByTestId('pattern-drive-words').textContent).toContain(
+      '60 % from toe to heel, 55 % from flank to face',
+    );
   });
 
   it('moves in 1 % steps with Shift, stops at the ends of the tooth and clears with Delete', () => {

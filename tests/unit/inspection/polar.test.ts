@@ -29,7 +29,8 @@ describe('shapePolarPreview', () => {
   it('keeps every point and the curve inside the drawing', () => {
     const shape = shapePolarPreview([0.3, 0.0, 0.0], 240);
     for (const p of shape.points) {
-      for (const v of [p.x, p.y, p.labelX, p.labelY]) expect(v).toBeGreaterThanOrEqual(0), expect(v).toBeLessThanOrEqual(240);
+      for (const v of [p.x, p.y, p.labelX, p.labelY])
+        (expect(v).toBeGreaterThanOrEqual(0), expect(v).toBeLessThanOrEqual(240));
     }
     const numbers = shape.curve!.match(/[\d.]+/g)!.map(Number);
     expect(Math.min(...numbers)).toBeGreaterThanOrEqual(0);
@@ -39,14 +40,18 @@ describe('shapePolarPreview', () => {
   it('leaves unread positions on the mean circle and draws no fit until every position is read', () => {
     const shape = shapePolarPreview([0.008, null, 0.006, null]);
     expect(shape.points[1]!.value).toBeNull();
-    expect(Math.hypot(shape.points[1]!.x - shape.centre, shape.points[1]!.y - shape.centre)).toBeCloseTo(shape.meanRadius, 6);
+    expect(Math.hypot(shape.points[1]!.x - shape.centre, shape.points[1]!.y - shape.centre)).toBeCloseTo(
+      shape.meanRadius,
+      6,
+    );
     expect(shape.curve).toBeNull();
     expect(shape.tight).toBeNull();
   });
 
   it('draws equal readings on the mean circle, with no tight spot to mark', () => {
     const shape = shapePolarPreview([0.007, 0.007, 0.007, 0.007]);
-    for (const p of shape.points) expect(Math.hypot(p.x - shape.centre, p.y - shape.centre)).toBeCloseTo(shape.meanRadius, 6);
+    for (const p of shape.points)
+      expect(Math.hypot(p.x - shape.centre, p.y - shape.centre)).toBeCloseTo(shape.meanRadius, 6);
     expect(shape.curve).not.toBeNull();
     expect(shape.tight).toBeNull();
   });

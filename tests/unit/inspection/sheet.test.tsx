@@ -63,7 +63,10 @@ describe('the inspection sheet', { timeout: 20_000 }, () => {
     await user.type(screen.getByTestId('reading-4'), '7');
     expect(screen.getByTestId('figure-mean').textContent).toBe('0.007 in');
     // Spread 0.002 in = 0.0508 mm is past GM's 0.05 mm (S: GM 1996): out of band, in words and a mark.
-    const spread = screen.getAllByText(/Spread \(max − min\):/).at(-1)!.closest('li')!;
+    const spread = screen
+      .getAllByText(/Spread \(max − min\):/)
+      .at(-1)!
+      .closest('li')!;
     expect(spread.querySelector('[data-verdict]')!.textContent).toContain('Out of band');
     expect(spread.textContent).toContain('GM light-truck service manual');
     expect(screen.getByTestId('polar-curve')).toBeTruthy();
@@ -76,18 +79,29 @@ describe('the inspection sheet', { timeout: 20_000 }, () => {
       await waitFor(() => expect((screen.getByTestId('runs') as HTMLInputElement).value).toBe('44'));
       await user.type(screen.getByTestId('reading-1'), '8');
       await act(() => vi.advanceTimersByTimeAsync(2000));
-      await waitFor(() => expect(api.calls.some((c) => c.method === 'POST' && c.path === '/api/inspections')).toBe(true));
+      await waitFor(() =>
+        expect(api.calls.some((c) => c.method === 'POST' && c.path === '/api/inspections')).toBe(true),
+      );
       const create = api.calls.find((c) => c.method === 'POST' && c.path === '/api/inspections')!;
       const draftId = new URL(window.location.href).searchParams.get('draft');
       expect(create.headers['Idempotency-Key']).toBe(draftId);
-      expect(create.body).toMatchObject({ gearSetId: 'gs1', assemblyId: 'a1', runsAtInspection: 44, readings: [0.008, null, null, null] });
+      expect(create.body).toMatchObject({
+        gearSetId: 'gs1',
+        assemblyId: 'a1',
+        runsAtInspection: 44,
+        readings: [0.008, null, null, null],
+      });
       await user.type(screen.getByTestId('reading-2'), '7');
       await act(() => vi.advanceTimersByTimeAsync(2000));
       await waitFor(() => expect(api.calls.some((c) => c.method === 'PATCH')).toBe(true));
       const patch = api.calls.find((c) => c.method === 'PATCH')!;
       expect(patch.path).toBe('/api/inspections/i1');
       expect(patch.body).not.toHaveProperty('gearSetId');
-      await waitFor(() => expect(screen.getByTestId('save-status').textContent).toMatch(/Saved on this device · Saved to Lashline \d\d:\d\d/));
+      await waitFor(() =>
+        expect(screen.getByTestId('save-status').textContent).toMatch(
+          /Saved on this device · Saved to Lashline \d\d:\d\d/,
+        ),
+      );
     } finally {
       vi.useRealTimers();
     }
@@ -120,8 +134,12 @@ describe('the inspection sheet', { timeout: 20_000 }, () => {
     const { api, user } = await openSheet();
     await waitFor(() => expect((screen.getByTestId('runs') as HTMLInputElement).value).toBe('44'));
     const message = 'Reading 2: at most 2.5 mm (0.0984 in).';
-    api.state.createAnswer = { status: 400, body: { error: { message: `readings.1: ${message}`, fields: { 'readings.1': message } } } };
-    for (const [i, value] of ['8', '7', '6', '7'].entries()) await user.type(screen.getByTestId(`reading-${i + 1}`), value);
+    api.state.createAnswer = {
+      status: 400,
+      body: { error: { message: `readings.1: ${message}`, fields: { 'readings.1': message } } },
+    };
+    for (const [i, value] of ['8', '7', '6', '7'].entries())
+      await user.type(screen.getByTestId(`reading-${i + 1}`), value);
     await user.click(screen.getByTestId('submit'));
     await screen.findByText(message);
     expect(screen.getByTestId('reading-2').getAttribute('aria-invalid')).toBe('true');

@@ -35,13 +35,21 @@ describe('where a part is', () => {
   );
 
   it('names the car the assembly sits in, or the shelf', () => {
-    expect(locationToText({ targetType: 'assembly', targetId: 'a1', label: 'assembly RE-01 (Ember rear end)' }, lookup)).toBe('RE-01 Ember rear end · in 714 Ember');
-    expect(locationToText({ targetType: 'assembly', targetId: 'a3', label: 'x' }, lookup)).toBe('RE-03 Spare rear end · on the shelf');
-    expect(locationToText({ targetType: 'car', targetId: 'c1', label: 'car 714 Ember' }, lookup)).toBe('In 714 Ember (no assembly)');
+    expect(
+      locationToText({ targetType: 'assembly', targetId: 'a1', label: 'assembly RE-01 (Ember rear end)' }, lookup),
+    ).toBe('RE-01 Ember rear end · in 714 Ember');
+    expect(locationToText({ targetType: 'assembly', targetId: 'a3', label: 'x' }, lookup)).toBe(
+      'RE-03 Spare rear end · on the shelf',
+    );
+    expect(locationToText({ targetType: 'car', targetId: 'c1', label: 'car 714 Ember' }, lookup)).toBe(
+      'In 714 Ember (no assembly)',
+    );
     expect(locationToText(null, lookup)).toBe('Not installed');
   });
 
   it('falls back to the server label for a place it does not know', () => {
-    expect(locationToText({ targetType: 'assembly', targetId: 'new', label: 'assembly RE-09 (New)' }, lookup)).toBe('assembly RE-09 (New)');
+    expect(locationToText({ targetType: 'assembly', targetId: 'new', label: 'assembly RE-09 (New)' }, lookup)).toBe(
+      'assembly RE-09 (New)',
+    );
   });
 });

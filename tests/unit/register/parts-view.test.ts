@@ -29,7 +29,8 @@ describe('the parts page’s view in the URL', () => {
 
   it('falls back to the default for each unknown or malformed value, keeping the good ones', () => {
     expect(read('kind=gearbox&status=lost&sort=colour&dir=up&page=2')).toEqual({ ...DEFAULT_PARTS_VIEW, page: 2 });
-    for (const page of ['0', '-1', '2.5', 'two', '', 'Infinity', '1e400']) expect(read(`page=${page}&kind=axle`), page).toEqual({ ...DEFAULT_PARTS_VIEW, kind: 'axle' });
+    for (const page of ['0', '-1', '2.5', 'two', '', 'Infinity', '1e400'])
+      expect(read(`page=${page}&kind=axle`), page).toEqual({ ...DEFAULT_PARTS_VIEW, kind: 'axle' });
     for (const size of ['30', '0', 'all', '25.5', '']) expect(read(`size=${size}`).size, size).toBe(25);
   });
 
@@ -45,16 +46,40 @@ describe('the parts page’s view in the URL', () => {
 });
 
 describe('links to the parts page', () => {
-  const view: PartsView = { serial: 'GS 41&', kind: 'gear-set', status: null, sort: 'serial', dir: 'desc', page: 2, size: 50 };
+  const view: PartsView = {
+    serial: 'GS 41&',
+    kind: 'gear-set',
+    status: null,
+    sort: 'serial',
+    dir: 'desc',
+    page: 2,
+    size: 50,
+  };
 
   it('is the plain page for the default view', () => {
     expect(partsViewToHref(DEFAULT_PARTS_VIEW)).toBe('/parts');
   });
 
   it('changes what is asked and keeps the rest, leaving defaults out', () => {
-    expect(queryOf(partsViewToHref(view, { page: 3 }))).toEqual({ serial: 'GS 41&', kind: 'gear-set', sort: 'serial', dir: 'desc', page: '3', size: '50' });
-    expect(queryOf(partsViewToHref(view, { kind: null, page: 1, size: 25 }))).toEqual({ serial: 'GS 41&', sort: 'serial', dir: 'desc' });
-    expect(queryOf(partsViewToHref(view, { sort: null }))).toEqual({ serial: 'GS 41&', kind: 'gear-set', page: '2', size: '50' });
+    expect(queryOf(partsViewToHref(view, { page: 3 }))).toEqual({
+      serial: 'GS 41&',
+      kind: 'gear-set',
+      sort: 'serial',
+      dir: 'desc',
+      page: '3',
+      size: '50',
+    });
+    expect(queryOf(partsViewToHref(view, { kind: null, page: 1, size: 25 }))).toEqual({
+      serial: 'GS 41&',
+      sort: 'serial',
+      dir: 'desc',
+    });
+    expect(queryOf(partsViewToHref(view, { sort: null }))).toEqual({
+      serial: 'GS 41&',
+      kind: 'gear-set',
+      page: '2',
+      size: '50',
+    });
   });
 
   it('reads back as the view it was built from', () => {
@@ -72,7 +97,13 @@ describe('links to the parts page', () => {
 
   it('sorts from the first page, with the filters and page size kept', () => {
     expect(queryOf(sortToHref(view, 'serial'))).toEqual({ serial: 'GS 41&', kind: 'gear-set', size: '50' });
-    expect(queryOf(sortToHref(view, 'status'))).toEqual({ serial: 'GS 41&', kind: 'gear-set', sort: 'status', dir: 'asc', size: '50' });
+    expect(queryOf(sortToHref(view, 'status'))).toEqual({
+      serial: 'GS 41&',
+      kind: 'gear-set',
+      sort: 'status',
+      dir: 'asc',
+      size: '50',
+    });
   });
 
   it('names a part just added and nothing else', () => {

@@ -3,7 +3,15 @@ import { checkPageAccess, requireMember, requirePermission, requireUser } from '
 import { HttpError } from '../../../src/lib/server/http';
 import { PERMISSIONS, ROLES, roleCan, type Role } from '../../../src/lib/roles';
 
-const user = { id: 'u1', email: 'a@example.test', name: 'A', lengthUnit: 'in', torqueUnit: 'lbf-in', currentTeamId: 't1', secondFactor: false } as const;
+const user = {
+  id: 'u1',
+  email: 'a@example.test',
+  name: 'A',
+  lengthUnit: 'in',
+  torqueUnit: 'lbf-in',
+  currentTeamId: 't1',
+  secondFactor: false,
+} as const;
 const localsFor = (role: Role | null, signedIn = true): App.Locals => ({
   user: signedIn ? { ...user } : null,
   team: role ? { id: 't1', name: 'Team', role } : null,
@@ -35,7 +43,10 @@ describe('the server-side guard', () => {
     for (const role of ROLES) {
       for (const permission of PERMISSIONS) {
         const expected = roleCan(role, permission) ? 'passed' : 403;
-        expect(statusOf(() => requirePermission(localsFor(role), permission)), `${role} ${permission}`).toBe(expected);
+        expect(
+          statusOf(() => requirePermission(localsFor(role), permission)),
+          `${role} ${permission}`,
+        ).toBe(expected);
       }
     }
   });
@@ -63,7 +74,10 @@ describe('the server-side guard', () => {
 });
 
 describe('a team that requires a second factor', () => {
-  const held: App.Locals = { user: { ...user }, team: { id: 't1', name: 'Team', role: 'owner', secondFactorMissing: true } };
+  const held: App.Locals = {
+    user: { ...user },
+    team: { id: 't1', name: 'Team', role: 'owner', secondFactorMissing: true },
+  };
 
   it('holds back an owner without one from every team route with 403', () => {
     expect(statusOf(() => requireMember(held))).toBe(403);
@@ -71,6 +85,9 @@ describe('a team that requires a second factor', () => {
   });
 
   it('sends them to the account page to turn it on', () => {
-    expect(checkPageAccess(held, new URL('http://x.test/'))).toEqual({ ok: false, redirect: '/account?secondFactor=required' });
+    expect(checkPageAccess(held, new URL('http://x.test/'))).toEqual({
+      ok: false,
+      redirect: '/account?secondFactor=required',
+    });
   });
 });

@@ -13,22 +13,45 @@ import { getPart } from '../register/parts';
 import { summariseBacklash } from '../../analysis/backlash';
 
 /** One inspection as CSV (one row per reading). */
-export async function exportInspectionCsv(teamId: string, inspectionId: string): Promise<{ filename: string; csv: string }> {
+export async function exportInspectionCsv(
+  teamId: string,
+  inspectionId: string,
+): Promise<{ filename: string; csv: string }> {
   const row = await requireTeamInspection(teamId, inspectionId);
   const set = await getPart(teamId, row.gearSetId);
-  const csv = inspectionToCsv({ id: row.id, gearSetSerial: set.serial, inspectedAt: row.inspectedAt.toISOString(), runsAtInspection: row.runsAtInspection, status: row.status, data: row.data as InspectionData });
+  const csv = inspectionToCsv({
+    id: row.id,
+    gearSetSerial: set.serial,
+    inspectedAt: row.inspectedAt.toISOString(),
+    runsAtInspection: row.runsAtInspection,
+    status: row.status,
+    data: row.data as InspectionData,
+  });
   return { filename: `lashline-inspection-${set.serial}-${row.inspectedAt.toISOString().slice(0, 10)}.csv`, csv };
 }
 
 /** A gear set's whole history — installs, removals, inspections, reviews — as CSV in mm and N·m. */
-export async function exportGearSetHistoryCsv(teamId: string, gearSetId: string): Promise<{ filename: string; csv: string }> {
+export async function exportGearSetHistoryCsv(
+  teamId: string,
+  gearSetId: string,
+): Promise<{ filename: string; csv: string }> {
   const set = await getPart(teamId, gearSetId);
   if (set.kind !== 'gear-set') throw new HttpError(404, 'No such gear set in this team.');
   const db = await getDb();
   const rows: HistoryRow[] = [];
-  const events = await db.select().from(installationEvents).where(and(eq(installationEvents.subjectType, 'part'), eq(installationEvents.subjectId, gearSetId))).orderBy(asc(installationEvents.seq));
+  const events = await db
+    .select()
+    .from(installationEvents)
+    .where(and(eq(installationEvents.subjectType, 'part'), eq(installationEvents.subjectId, gearSetId)))
+    .orderBy(asc(installationEvents.seq));
   for (const event of events) {
-    rows.push({ at: event.at.toISOString(), record: event.action === 'install' ? 'installed' : 'removed', place: await describeTarget(db, event.targetType, event.targetId), notes: event.notes, link_id: event.id });
+    rows.push({
+      at: event.at.toISOString(),
+      record: event.action === 'install' ? 'installed' : 'removed',
+      place: await describeTarget(db, event.targetType, event.targetId),
+      notes: event.notes,
+      link_id: event.id,
+    });
   }
   for (const inspection of await listInspectionRows(teamId, gearSetId)) {
     const data = inspection.data as InspectionData;
@@ -46,10 +69,22 @@ export async function exportGearSetHistoryCsv(teamId: string, gearSetId: string)
       link_id: inspection.id,
     });
   }
-  const reviewRows = await db.select().from(reviews).where(and(eq(reviews.teamId, teamId), eq(reviews.gearSetId, gearSetId)));
+  const reviewRows = await db
+    .select()
+    .from(reviews)
+    .where(and(eq(reviews.teamId, teamId), eq(reviews.gearSetId, gearSetId)));
   for (const review of reviewRows) {
     rows.push({ at: review.createdAt.toISOString(), record: 'review-opened', link_id: review.id });
-    if (review.decidedAt) rows.push({ at: review.decidedAt.toISOString(), record: 'decision', runs_at: review.runsAtDecision, decision: review.decision, reason: review.reason, notes: review.notes, link_id: review.id });
+    if (review.decidedAt)
+      rows.push({
+        at: review.decidedAt.toISOString(),
+        record: 'decision',
+        runs_at: review.runsAtDecision,
+        decision: review.decision,
+        reason: review.reason,
+        notes: review.notes,
+        link_id: review.id,
+      });
   }
   return { filename: `lashline-gear-set-${set.serial}.csv`, csv: historyToCsv(rows) };
 }
@@ -63,7 +98,15 @@ export async function summariseTeamRetirements(teamId: string, from: string, to:
     .innerJoin(parts, eq(parts.id, reviews.gearSetId))
     .where(and(eq(reviews.teamId, teamId), eq(reviews.decision, 'retire')));
   return summariseRetirements(
-    rows.map(({ review, serial, lifeLimitRuns }) => ({ gearSetId: review.gearSetId, serial, retiredAt: review.decidedAt!.toISOString(), runsAtRetirement: review.runsAtDecision ?? 0, lifeLimitRuns, reason: review.reason ?? '', notes: review.notes })),
+    rows.map(({ review, serial, lifeLimitRuns }) => ({
+      gearSetId: review.gearSetId,
+      serial,
+      retiredAt: review.decidedAt!.toISOString(),
+      runsAtRetirement: review.runsAtDecision ?? 0,
+      lifeLimitRuns,
+      reason: review.reason ?? '',
+      notes: review.notes,
+    })),
     from,
     to,
   );

@@ -10,27 +10,57 @@ import { listSubmittedForAnalysis } from './inspections';
 import { listProfileVersions, profileForGearSet } from './profiles';
 
 /** The analysis of a stored gear set: each submitted inspection judged by the profile version it kept. */
-export async function analyseStoredGearSet(teamId: string, gearSetId: string, units: ReaderUnits): Promise<GearSetAnalysis & { gearSetId: string; unit: string; torqueUnit: string; profile: { name: string; version: number } }> {
+export async function analyseStoredGearSet(
+  teamId: string,
+  gearSetId: string,
+  units: ReaderUnits,
+): Promise<
+  GearSetAnalysis & { gearSetId: string; unit: string; torqueUnit: string; profile: { name: string; version: number } }
+> {
   const set = await getPart(teamId, gearSetId);
   if (set.kind !== 'gear-set') throw new HttpError(404, 'No such gear set in this team.');
-  const [rows, profile, settings] = await Promise.all([listSubmittedForAnalysis(teamId, gearSetId), profileForGearSet(teamId, gearSetId), readTeamSettings(teamId)]);
+  const [rows, profile, settings] = await Promise.all([
+    listSubmittedForAnalysis(teamId, gearSetId),
+    profileForGearSet(teamId, gearSetId),
+    readTeamSettings(teamId),
+  ]);
   const versions = new Map((await listProfileVersions(teamId, profile.profileId)).map((v) => [v.versionId, v.values]));
-  const geometry = { ringTeeth: set.ringTeeth ?? null, pinionTeeth: set.pinionTeeth ?? null, pressureAngleDeg: set.pressureAngleDeg ?? null };
+  const geometry = {
+    ringTeeth: set.ringTeeth ?? null,
+    pinionTeeth: set.pinionTeeth ?? null,
+    pressureAngleDeg: set.pressureAngleDeg ?? null,
+  };
   const inspections = [];
   for (const row of rows) {
     // An inspection judged by a version of another profile (the set changed profile) falls back to the current one.
     const values: ToleranceProfile = (row.profileVersionId && versions.get(row.profileVersionId)) || profile.values;
     const data = row.data as InspectionData;
-    inspections.push({ id: row.id, inspectedAt: row.inspectedAt.toISOString(), runsAtInspection: row.runsAtInspection, data, summary: summariseInspection(data, values, geometry, units) });
+    inspections.push({
+      id: row.id,
+      inspectedAt: row.inspectedAt.toISOString(),
+      runsAtInspection: row.runsAtInspection,
+      data,
+      summary: summariseInspection(data, values, geometry, units),
+    });
   }
   const len = (mm: number) => mmToLength(mm, units.lengthUnit);
   const analysis = analyseGearSet({
     inspections,
-    limits: { backlashMin: len(profile.values.backlashMin), backlashMax: len(profile.values.backlashMax), maxSpread: len(profile.values.maxSpread) },
+    limits: {
+      backlashMin: len(profile.values.backlashMin),
+      backlashMax: len(profile.values.backlashMax),
+      maxSpread: len(profile.values.maxSpread),
+    },
     totalRuns: set.totalRuns,
     runsSinceInstall: set.runsSinceInstall,
     lifeLimitRuns: set.lifeLimitRuns,
     serviceIntervalRuns: settings.serviceIntervalRuns,
   });
-  return { gearSetId, unit: units.lengthUnit, torqueUnit: units.torqueUnit, profile: { name: profile.name, version: profile.version }, ...analysis };
+  return {
+    gearSetId,
+    unit: units.lengthUnit,
+    torqueUnit: units.torqueUnit,
+    profile: { name: profile.name, version: profile.version },
+    ...analysis,
+  };
 }

@@ -33,15 +33,24 @@ export interface InspectionView extends ReturnType<typeof dataToEntry> {
 
 async function requireGearSet(teamId: string, gearSetId: string): Promise<Part> {
   const db = await getDb();
-  const set = await db.select().from(parts).where(and(eq(parts.id, gearSetId), eq(parts.teamId, teamId))).get();
-  if (!set || set.kind !== 'gear-set') throw new HttpError(404, 'gearSetId: no such gear set in this team.', { gearSetId: 'unknown gear set' });
+  const set = await db
+    .select()
+    .from(parts)
+    .where(and(eq(parts.id, gearSetId), eq(parts.teamId, teamId)))
+    .get();
+  if (!set || set.kind !== 'gear-set')
+    throw new HttpError(404, 'gearSetId: no such gear set in this team.', { gearSetId: 'unknown gear set' });
   return set;
 }
 
 async function requireAssembly(teamId: string, assemblyId: string | null | undefined): Promise<void> {
   if (!assemblyId) return;
   const db = await getDb();
-  const row = await db.select({ id: assemblies.id }).from(assemblies).where(and(eq(assemblies.id, assemblyId), eq(assemblies.teamId, teamId))).get();
+  const row = await db
+    .select({ id: assemblies.id })
+    .from(assemblies)
+    .where(and(eq(assemblies.id, assemblyId), eq(assemblies.teamId, teamId)))
+    .get();
   if (!row) throw new HttpError(404, 'assemblyId: no such assembly in this team.', { assemblyId: 'unknown assembly' });
 }
 
@@ -52,7 +61,13 @@ async function profileValuesFor(teamId: string, row: Inspection): Promise<Tolera
 }
 
 /** The inspection as the API answers it: what was typed, the canonical record, and the summary in the reader's units. */
-export async function toInspectionView(teamId: string, row: Inspection, units: ReaderUnits, gearSet?: Part, profile?: ToleranceProfile): Promise<InspectionView> {
+export async function toInspectionView(
+  teamId: string,
+  row: Inspection,
+  units: ReaderUnits,
+  gearSet?: Part,
+  profile?: ToleranceProfile,
+): Promise<InspectionView> {
   const data = row.data as InspectionData;
   const set = gearSet ?? (await requireGearSet(teamId, row.gearSetId));
   const values = profile ?? (await profileValuesFor(teamId, row));
@@ -71,21 +86,37 @@ export async function toInspectionView(teamId: string, row: Inspection, units: R
     updatedAt: row.updatedAt.toISOString(),
     ...dataToEntry(data),
     canonical: data,
-    summary: summariseInspection(data, values, { ringTeeth: set.ringTeeth, pinionTeeth: set.pinionTeeth, pressureAngleDeg: set.pressureAngleDeg }, units),
+    summary: summariseInspection(
+      data,
+      values,
+      { ringTeeth: set.ringTeeth, pinionTeeth: set.pinionTeeth, pressureAngleDeg: set.pressureAngleDeg },
+      units,
+    ),
   };
 }
 
-const readerUnitsOf = (access: TeamAccess): ReaderUnits => ({ lengthUnit: access.user.lengthUnit, torqueUnit: access.user.torqueUnit });
+const readerUnitsOf = (access: TeamAccess): ReaderUnits => ({
+  lengthUnit: access.user.lengthUnit,
+  torqueUnit: access.user.torqueUnit,
+});
 
 /**
  * Creates a draft. With an idempotency key, a repeat answers the draft the first request made
  * (`repeated: true`), so a retry over a poor connection never makes two.
  */
-export async function createInspection(access: TeamAccess, draft: InspectionDraft, idempotencyKey: string | null): Promise<{ view: InspectionView; repeated: boolean }> {
+export async function createInspection(
+  access: TeamAccess,
+  draft: InspectionDraft,
+  idempotencyKey: string | null,
+): Promise<{ view: InspectionView; repeated: boolean }> {
   const teamId = access.team.id;
   if (idempotencyKey) {
     const db = await getDb();
-    const existing = await db.select().from(inspections).where(and(eq(inspections.teamId, teamId), eq(inspections.idempotencyKey, idempotencyKey))).get();
+    const existing = await db
+      .select()
+      .from(inspections)
+      .where(and(eq(inspections.teamId, teamId), eq(inspections.idempotencyKey, idempotencyKey)))
+      .get();
     if (existing) return { view: await toInspectionView(teamId, existing, readerUnitsOf(access)), repeated: true };
   }
   const set = await requireGearSet(teamId, draft.gearSetId);
@@ -94,45 +125,100 @@ export async function createInspection(access: TeamAccess, draft: InspectionDraf
   const now = new Date();
   const row = await write(async (tx) => {
     if (idempotencyKey) {
-      const raced = await tx.select().from(inspections).where(and(eq(inspections.teamId, teamId), eq(inspections.idempotencyKey, idempotencyKey))).get();
+      const raced = await tx
+        .select()
+        .from(inspections)
+        .where(and(eq(inspections.teamId, teamId), eq(inspections.idempotencyKey, idempotencyKey)))
+        .get();
       if (raced) return { row: raced, repeated: true };
     }
     const [created] = await tx
       .insert(inspections)
-      .values({ id, teamId, gearSetId: set.id, assemblyId: draft.assemblyId ?? null, inspectedAt: new Date(draft.inspectedAt), runsAtInspection: draft.runsAtInspection, data: draftToData(draft), technicianId: draft.technicianId ?? access.user.id, createdBy: access.user.id, idempotencyKey, updatedAt: now })
+      .values({
+        id,
+        teamId,
+        gearSetId: set.id,
+        assemblyId: draft.assemblyId ?? null,
+        inspectedAt: new Date(draft.inspectedAt),
+        runsAtInspection: draft.runsAtInspection,
+        data: draftToData(draft),
+        technicianId: draft.technicianId ?? access.user.id,
+        createdBy: access.user.id,
+        idempotencyKey,
+        updatedAt: now,
+      })
       .returning();
     if (!created) throw new Error('insert returned no row');
-    await recordAudit(tx, { teamId, actorId: access.user.id, action: 'create', recordType: 'inspection', recordId: id });
+    await recordAudit(tx, {
+      teamId,
+      actorId: access.user.id,
+      action: 'create',
+      recordType: 'inspection',
+      recordId: id,
+    });
     return { row: created, repeated: false };
   });
   return { view: await toInspectionView(teamId, row.row, readerUnitsOf(access), set), repeated: row.repeated };
 }
 
 function rowToDraftInput(row: Inspection): Record<string, unknown> {
-  return { gearSetId: row.gearSetId, assemblyId: row.assemblyId, inspectedAt: row.inspectedAt.toISOString(), runsAtInspection: row.runsAtInspection, technicianId: row.technicianId, ...dataToEntry(row.data as InspectionData) };
+  return {
+    gearSetId: row.gearSetId,
+    assemblyId: row.assemblyId,
+    inspectedAt: row.inspectedAt.toISOString(),
+    runsAtInspection: row.runsAtInspection,
+    technicianId: row.technicianId,
+    ...dataToEntry(row.data as InspectionData),
+  };
 }
 
 /** Merges a partial change into the inspection and validates the whole; submitted ones keep before and after in the audit trail. */
-export async function updateInspection(access: TeamAccess, inspectionId: string, patch: Record<string, unknown>): Promise<InspectionView> {
+export async function updateInspection(
+  access: TeamAccess,
+  inspectionId: string,
+  patch: Record<string, unknown>,
+): Promise<InspectionView> {
   const row = await requireChangeableInspection(access, inspectionId);
   const merged = { ...rowToDraftInput(row), ...patch, gearSetId: row.gearSetId };
   const parsed = inspectionDraftSchema.safeParse(merged);
-  if (!parsed.success) throw new HttpError(400, zodIssuesToMessage(parsed.error, 'body'), zodIssuesToFields(parsed.error));
+  if (!parsed.success)
+    throw new HttpError(400, zodIssuesToMessage(parsed.error, 'body'), zodIssuesToFields(parsed.error));
   const draft = parsed.data;
   if (row.status === 'submitted') {
     const missing = findMissingForSubmit(draft);
-    if (missing.length) throw new HttpError(422, `${missing[0]!.path.join('.')}: ${missing[0]!.message}`, Object.fromEntries(missing.map((m) => [m.path.join('.'), m.message])));
+    if (missing.length)
+      throw new HttpError(
+        422,
+        `${missing[0]!.path.join('.')}: ${missing[0]!.message}`,
+        Object.fromEntries(missing.map((m) => [m.path.join('.'), m.message])),
+      );
   }
   await requireAssembly(access.team.id, draft.assemblyId);
   const updated = await write(async (tx) => {
     const [after] = await tx
       .update(inspections)
-      .set({ assemblyId: draft.assemblyId ?? null, inspectedAt: new Date(draft.inspectedAt), runsAtInspection: draft.runsAtInspection, technicianId: draft.technicianId ?? row.technicianId, data: draftToData(draft), revision: row.revision + 1, updatedAt: new Date() })
+      .set({
+        assemblyId: draft.assemblyId ?? null,
+        inspectedAt: new Date(draft.inspectedAt),
+        runsAtInspection: draft.runsAtInspection,
+        technicianId: draft.technicianId ?? row.technicianId,
+        data: draftToData(draft),
+        revision: row.revision + 1,
+        updatedAt: new Date(),
+      })
       .where(eq(inspections.id, row.id))
       .returning();
     if (!after) throw new Error('update returned no row');
     if (row.status === 'submitted') {
-      await recordAudit(tx, { teamId: access.team.id, actorId: access.user.id, action: 'update', recordType: 'inspection', recordId: row.id, before: rowToDraftInput(row), after: rowToDraftInput(after) });
+      await recordAudit(tx, {
+        teamId: access.team.id,
+        actorId: access.user.id,
+        action: 'update',
+        recordType: 'inspection',
+        recordId: row.id,
+        before: rowToDraftInput(row),
+        after: rowToDraftInput(after),
+      });
     }
     return after;
   });
@@ -145,12 +231,35 @@ export async function submitInspection(access: TeamAccess, inspectionId: string)
   if (existing.status === 'submitted') return toInspectionView(access.team.id, existing, readerUnitsOf(access));
   const row = await requireChangeableInspection(access, inspectionId);
   const missing = findMissingForSubmit({ readings: (row.data as InspectionData).backlashMm });
-  if (missing.length) throw new HttpError(422, `${missing[0]!.path.join('.')}: ${missing[0]!.message}`, Object.fromEntries(missing.map((m) => [m.path.join('.'), m.message])));
+  if (missing.length)
+    throw new HttpError(
+      422,
+      `${missing[0]!.path.join('.')}: ${missing[0]!.message}`,
+      Object.fromEntries(missing.map((m) => [m.path.join('.'), m.message])),
+    );
   const profile = await profileForGearSet(access.team.id, row.gearSetId);
   const submitted = await write(async (tx) => {
-    const [after] = await tx.update(inspections).set({ status: 'submitted', submittedAt: new Date(), submittedBy: access.user.id, profileVersionId: profile.versionId, updatedAt: new Date() }).where(and(eq(inspections.id, row.id), eq(inspections.status, 'draft'))).returning();
+    const [after] = await tx
+      .update(inspections)
+      .set({
+        status: 'submitted',
+        submittedAt: new Date(),
+        submittedBy: access.user.id,
+        profileVersionId: profile.versionId,
+        updatedAt: new Date(),
+      })
+      .where(and(eq(inspections.id, row.id), eq(inspections.status, 'draft')))
+      .returning();
     const final = after ?? (await tx.select().from(inspections).where(eq(inspections.id, row.id)).get())!;
-    if (after) await recordAudit(tx, { teamId: access.team.id, actorId: access.user.id, action: 'submit', recordType: 'inspection', recordId: row.id, after: { profileVersionId: profile.versionId } });
+    if (after)
+      await recordAudit(tx, {
+        teamId: access.team.id,
+        actorId: access.user.id,
+        action: 'submit',
+        recordType: 'inspection',
+        recordId: row.id,
+        after: { profileVersionId: profile.versionId },
+      });
     return final;
   });
   return toInspectionView(access.team.id, submitted, readerUnitsOf(access), undefined, profile.values);
@@ -163,7 +272,14 @@ export async function deleteDraft(access: TeamAccess, inspectionId: string): Pro
   const photoKeys = await write(async (tx) => {
     const keys = await photoKeysOfInspection(tx, row.id);
     await tx.delete(inspections).where(eq(inspections.id, row.id));
-    await recordAudit(tx, { teamId: access.team.id, actorId: access.user.id, action: 'delete', recordType: 'inspection', recordId: row.id, before: rowToDraftInput(row) });
+    await recordAudit(tx, {
+      teamId: access.team.id,
+      actorId: access.user.id,
+      action: 'delete',
+      recordType: 'inspection',
+      recordId: row.id,
+      before: rowToDraftInput(row),
+    });
     return keys;
   });
   // The rows went with the draft (cascade); the stored images go once that has committed.
@@ -173,7 +289,9 @@ export async function deleteDraft(access: TeamAccess, inspectionId: string): Pro
 /** A gear set's inspections, oldest first. */
 export async function listInspectionRows(teamId: string, gearSetId?: string): Promise<Inspection[]> {
   const db = await getDb();
-  const where = gearSetId ? and(eq(inspections.teamId, teamId), eq(inspections.gearSetId, gearSetId)) : eq(inspections.teamId, teamId);
+  const where = gearSetId
+    ? and(eq(inspections.teamId, teamId), eq(inspections.gearSetId, gearSetId))
+    : eq(inspections.teamId, teamId);
   return db.select().from(inspections).where(where).orderBy(asc(inspections.inspectedAt), asc(inspections.createdAt));
 }
 
@@ -181,17 +299,32 @@ export async function listInspectionRows(teamId: string, gearSetId?: string): Pr
  * A set's submitted inspections, oldest first, with only what its analysis reads: a set's whole life is
  * read on every look at it, and each column more costs time on every row.
  */
-export async function listSubmittedForAnalysis(teamId: string, gearSetId: string): Promise<Pick<Inspection, 'id' | 'inspectedAt' | 'runsAtInspection' | 'data' | 'profileVersionId'>[]> {
+export async function listSubmittedForAnalysis(
+  teamId: string,
+  gearSetId: string,
+): Promise<Pick<Inspection, 'id' | 'inspectedAt' | 'runsAtInspection' | 'data' | 'profileVersionId'>[]> {
   const db = await getDb();
   return db
-    .select({ id: inspections.id, inspectedAt: inspections.inspectedAt, runsAtInspection: inspections.runsAtInspection, data: inspections.data, profileVersionId: inspections.profileVersionId })
+    .select({
+      id: inspections.id,
+      inspectedAt: inspections.inspectedAt,
+      runsAtInspection: inspections.runsAtInspection,
+      data: inspections.data,
+      profileVersionId: inspections.profileVersionId,
+    })
     .from(inspections)
-    .where(and(eq(inspections.teamId, teamId), eq(inspections.gearSetId, gearSetId), eq(inspections.status, 'submitted')))
+    .where(
+      and(eq(inspections.teamId, teamId), eq(inspections.gearSetId, gearSetId), eq(inspections.status, 'submitted')),
+    )
     .orderBy(asc(inspections.inspectedAt), asc(inspections.createdAt));
 }
 
 export async function getInspection(access: TeamAccess, inspectionId: string): Promise<InspectionView> {
-  return toInspectionView(access.team.id, await requireTeamInspection(access.team.id, inspectionId), readerUnitsOf(access));
+  return toInspectionView(
+    access.team.id,
+    await requireTeamInspection(access.team.id, inspectionId),
+    readerUnitsOf(access),
+  );
 }
 
 export { readerUnitsOf };

@@ -22,8 +22,15 @@ export async function queueNotice(
     .select({ id: users.id, email: users.email, muted: noticePreferences.muted })
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
-    .leftJoin(noticePreferences, and(eq(noticePreferences.userId, users.id), eq(noticePreferences.teamId, memberships.teamId)))
-    .where(notice.to === 'team' ? eq(memberships.teamId, notice.teamId) : and(eq(memberships.teamId, notice.teamId), inArray(memberships.userId, notice.to.length ? notice.to : [''])));
+    .leftJoin(
+      noticePreferences,
+      and(eq(noticePreferences.userId, users.id), eq(noticePreferences.teamId, memberships.teamId)),
+    )
+    .where(
+      notice.to === 'team'
+        ? eq(memberships.teamId, notice.teamId)
+        : and(eq(memberships.teamId, notice.teamId), inArray(memberships.userId, notice.to.length ? notice.to : [''])),
+    );
   let queued = 0;
   for (const member of members) {
     if (member.id === notice.except) continue;
@@ -39,7 +46,11 @@ export async function queueNotice(
 /** The kinds a person has muted for a team. */
 export async function readMutedKinds(userId: string, teamId: string): Promise<NoticeKind[]> {
   const db = await getDb();
-  const row = await db.select({ muted: noticePreferences.muted }).from(noticePreferences).where(and(eq(noticePreferences.userId, userId), eq(noticePreferences.teamId, teamId))).get();
+  const row = await db
+    .select({ muted: noticePreferences.muted })
+    .from(noticePreferences)
+    .where(and(eq(noticePreferences.userId, userId), eq(noticePreferences.teamId, teamId)))
+    .get();
   return (row?.muted as NoticeKind[] | undefined) ?? [];
 }
 
@@ -47,7 +58,13 @@ export async function readMutedKinds(userId: string, teamId: string): Promise<No
 export async function saveMutedKinds(userId: string, teamId: string, muted: NoticeKind[]): Promise<NoticeKind[]> {
   const unique = [...new Set(muted)].filter((kind) => ALL_NOTICE_KINDS.includes(kind));
   await write((tx) =>
-    tx.insert(noticePreferences).values({ userId, teamId, muted: unique }).onConflictDoUpdate({ target: [noticePreferences.userId, noticePreferences.teamId], set: { muted: unique, updatedAt: new Date() } }),
+    tx
+      .insert(noticePreferences)
+      .values({ userId, teamId, muted: unique })
+      .onConflictDoUpdate({
+        target: [noticePreferences.userId, noticePreferences.teamId],
+        set: { muted: unique, updatedAt: new Date() },
+      }),
   );
   return unique;
 }

@@ -29,7 +29,11 @@ export function readUnsubscribeToken(token: string): UnsubscribeClaim | null {
   const given = Buffer.from(signature);
   if (expected.length !== given.length || !timingSafeEqual(expected, given)) return null;
   try {
-    const [userId, teamId, kind] = JSON.parse(Buffer.from(payload, 'base64url').toString('utf8')) as [string, string, string];
+    const [userId, teamId, kind] = JSON.parse(Buffer.from(payload, 'base64url').toString('utf8')) as [
+      string,
+      string,
+      string,
+    ];
     if (typeof userId !== 'string' || typeof teamId !== 'string' || !(kind in NOTICE_KIND_LABELS)) return null;
     return { userId, teamId, kind: kind as NoticeKind };
   } catch {

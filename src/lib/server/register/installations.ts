@@ -23,9 +23,19 @@ export interface InstallationEventView {
   at: string;
 }
 
-async function requireOwned(tx: Transaction, teamId: string, type: 'part' | 'assembly' | 'car', id: string, field: string) {
+async function requireOwned(
+  tx: Transaction,
+  teamId: string,
+  type: 'part' | 'assembly' | 'car',
+  id: string,
+  field: string,
+) {
   const table = type === 'part' ? parts : type === 'assembly' ? assemblies : cars;
-  const row = await tx.select({ id: table.id }).from(table).where(and(eq(table.id, id), eq(table.teamId, teamId))).get();
+  const row = await tx
+    .select({ id: table.id })
+    .from(table)
+    .where(and(eq(table.id, id), eq(table.teamId, teamId)))
+    .get();
   if (!row) throw new HttpError(404, `${field}: no such ${type} in this team.`, { [field]: `unknown ${type}` });
 }
 
@@ -34,7 +44,11 @@ function formatDate(date: Date): string {
 }
 
 /** Installs or removes a part or an assembly, appending to the history; 409 when it is elsewhere. */
-export async function recordInstallation(access: TeamAccess, input: InstallationInput, now = new Date()): Promise<InstallationEventView> {
+export async function recordInstallation(
+  access: TeamAccess,
+  input: InstallationInput,
+  now = new Date(),
+): Promise<InstallationEventView> {
   const at = input.at ? new Date(input.at) : now;
   if (input.at) {
     const ahead = checkRunTime(input.at, now);
@@ -47,16 +61,24 @@ export async function recordInstallation(access: TeamAccess, input: Installation
     await requireOwned(tx, teamId, subjectType, subjectId, subjectType === 'part' ? 'partId' : 'assemblyId');
     const last = await findLastEvent(tx, subjectType, subjectId);
     if (last && last.at.getTime() > at.getTime()) {
-      throw new HttpError(409, `at: the history already has an event at ${formatDate(last.at)}; an install or remove must come after it.`, { at: 'before the last event' });
+      throw new HttpError(
+        409,
+        `at: the history already has an event at ${formatDate(last.at)}; an install or remove must come after it.`,
+        { at: 'before the last event' },
+      );
     }
     let targetType: 'assembly' | 'car';
     let targetId: string;
     if (input.action === 'install') {
       const where = await findLocation(tx, subjectType, subjectId);
       if (where) {
-        throw new HttpError(409, `It is already installed in ${where.targetLabel} since ${formatDate(where.since)}; remove it first.`, {
-          [subjectType === 'part' ? 'partId' : 'assemblyId']: `installed in ${where.targetLabel}`,
-        });
+        throw new HttpError(
+          409,
+          `It is already installed in ${where.targetLabel} since ${formatDate(where.since)}; remove it first.`,
+          {
+            [subjectType === 'part' ? 'partId' : 'assemblyId']: `installed in ${where.targetLabel}`,
+          },
+        );
       }
       targetType = subjectType === 'part' && input.assemblyId ? 'assembly' : 'car';
       targetId = (targetType === 'assembly' ? input.assemblyId : input.carId)!;
@@ -64,43 +86,99 @@ export async function recordInstallation(access: TeamAccess, input: Installation
       await checkInstallRules(tx, subjectType, subjectId, targetType, targetId);
     } else {
       if (!last || last.action !== 'install') {
-        throw new HttpError(409, 'It is not installed anywhere, so there is nothing to remove.', { [subjectType === 'part' ? 'partId' : 'assemblyId']: 'not installed' });
+        throw new HttpError(409, 'It is not installed anywhere, so there is nothing to remove.', {
+          [subjectType === 'part' ? 'partId' : 'assemblyId']: 'not installed',
+        });
       }
       targetType = last.targetType;
       targetId = last.targetId;
     }
     const id = randomUUID();
-    await tx.insert(installationEvents).values({ id, teamId, action: input.action, subjectType, subjectId, targetType, targetId, at, actorId: access.user.id, notes: input.notes ?? null });
+    await tx
+      .insert(installationEvents)
+      .values({
+        id,
+        teamId,
+        action: input.action,
+        subjectType,
+        subjectId,
+        targetType,
+        targetId,
+        at,
+        actorId: access.user.id,
+        notes: input.notes ?? null,
+      });
     if (subjectType === 'part') await followStatus(tx, subjectId, input.action);
-    const view: InstallationEventView = { id, action: input.action, subjectType, subjectId, targetType, targetId, at: at.toISOString() };
-    await recordAudit(tx, { teamId, actorId: access.user.id, action: input.action, recordType: subjectType, recordId: subjectId, after: view });
+    const view: InstallationEventView = {
+      id,
+      action: input.action,
+      subjectType,
+      subjectId,
+      targetType,
+      targetId,
+      at: at.toISOString(),
+    };
+    await recordAudit(tx, {
+      teamId,
+      actorId: access.user.id,
+      action: input.action,
+      recordType: subjectType,
+      recordId: subjectId,
+      after: view,
+    });
     return view;
   });
 }
 
 /** One gear set per assembly, one assembly per car, and nothing retired goes back in. */
-async function checkInstallRules(tx: Transaction, subjectType: 'part' | 'assembly', subjectId: string, targetType: 'assembly' | 'car', targetId: string): Promise<void> {
+async function checkInstallRules(
+  tx: Transaction,
+  subjectType: 'part' | 'assembly',
+  subjectId: string,
+  targetType: 'assembly' | 'car',
+  targetId: string,
+): Promise<void> {
   const present = await findInstalledIn(tx, targetType, targetId);
   if (subjectType === 'part') {
-    const part = await tx.select({ kind: parts.kind, status: parts.status, serial: parts.serial }).from(parts).where(eq(parts.id, subjectId)).get();
+    const part = await tx
+      .select({ kind: parts.kind, status: parts.status, serial: parts.serial })
+      .from(parts)
+      .where(eq(parts.id, subjectId))
+      .get();
     if (part && OUT_OF_USE.includes(part.status)) {
-      throw new HttpError(409, `Part ${part.serial} is ${part.status}; it cannot be installed.`, { partId: part.status });
+      throw new HttpError(409, `Part ${part.serial} is ${part.status}; it cannot be installed.`, {
+        partId: part.status,
+      });
     }
     if (part?.kind === 'gear-set' && targetType === 'assembly') {
-      const kinds = await findPartKinds(tx, present.filter((p) => p.subjectType === 'part').map((p) => p.subjectId));
+      const kinds = await findPartKinds(
+        tx,
+        present.filter((p) => p.subjectType === 'part').map((p) => p.subjectId),
+      );
       if ([...kinds.values()].includes('gear-set')) {
-        throw new HttpError(409, `${await describeTarget(tx, targetType, targetId)} already holds a gear set; remove it first.`, { assemblyId: 'holds a gear set' });
+        throw new HttpError(
+          409,
+          `${await describeTarget(tx, targetType, targetId)} already holds a gear set; remove it first.`,
+          { assemblyId: 'holds a gear set' },
+        );
       }
     }
     return;
   }
   if (present.some((p) => p.subjectType === 'assembly')) {
-    throw new HttpError(409, `${await describeTarget(tx, 'car', targetId)} already has a rear-end assembly; remove it first.`, { carId: 'has an assembly' });
+    throw new HttpError(
+      409,
+      `${await describeTarget(tx, 'car', targetId)} already has a rear-end assembly; remove it first.`,
+      { carId: 'has an assembly' },
+    );
   }
 }
 
 /** A spare that goes in is in service; a part in service that comes out is a spare again. */
 async function followStatus(tx: Transaction, partId: string, action: 'install' | 'remove'): Promise<void> {
   const [from, to] = action === 'install' ? (['spare', 'in-service'] as const) : (['in-service', 'spare'] as const);
-  await tx.update(parts).set({ status: to }).where(and(eq(parts.id, partId), eq(parts.status, from)));
+  await tx
+    .update(parts)
+    .set({ status: to })
+    .where(and(eq(parts.id, partId), eq(parts.status, from)));
 }

@@ -12,7 +12,11 @@ export interface Location {
 }
 
 /** The last installation event of a subject, or undefined when it has none. */
-export async function findLastEvent(reader: Reader, subjectType: 'part' | 'assembly', subjectId: string): Promise<InstallationEvent | undefined> {
+export async function findLastEvent(
+  reader: Reader,
+  subjectType: 'part' | 'assembly',
+  subjectId: string,
+): Promise<InstallationEvent | undefined> {
   return reader
     .select()
     .from(installationEvents)
@@ -23,20 +27,37 @@ export async function findLastEvent(reader: Reader, subjectType: 'part' | 'assem
 }
 
 /** A readable name for an assembly or car, e.g. "assembly RE-2 (Spare rear end)". */
-export async function describeTarget(reader: Reader, targetType: 'assembly' | 'car', targetId: string): Promise<string> {
+export async function describeTarget(
+  reader: Reader,
+  targetType: 'assembly' | 'car',
+  targetId: string,
+): Promise<string> {
   if (targetType === 'car') {
     const car = await reader.select({ name: cars.name }).from(cars).where(eq(cars.id, targetId)).get();
     return `car ${car?.name ?? targetId}`;
   }
-  const assembly = await reader.select({ serial: assemblies.serial, name: assemblies.name }).from(assemblies).where(eq(assemblies.id, targetId)).get();
+  const assembly = await reader
+    .select({ serial: assemblies.serial, name: assemblies.name })
+    .from(assemblies)
+    .where(eq(assemblies.id, targetId))
+    .get();
   return assembly ? `assembly ${assembly.serial} (${assembly.name})` : `assembly ${targetId}`;
 }
 
 /** Where a part or assembly is installed now, or null when it is not installed. */
-export async function findLocation(reader: Reader, subjectType: 'part' | 'assembly', subjectId: string): Promise<Location | null> {
+export async function findLocation(
+  reader: Reader,
+  subjectType: 'part' | 'assembly',
+  subjectId: string,
+): Promise<Location | null> {
   const last = await findLastEvent(reader, subjectType, subjectId);
   if (!last || last.action !== 'install') return null;
-  return { targetType: last.targetType, targetId: last.targetId, targetLabel: await describeTarget(reader, last.targetType, last.targetId), since: last.at };
+  return {
+    targetType: last.targetType,
+    targetId: last.targetId,
+    targetLabel: await describeTarget(reader, last.targetType, last.targetId),
+    since: last.at,
+  };
 }
 
 export interface CurrentInstall {
@@ -50,17 +71,33 @@ export interface CurrentInstall {
 /** Everything installed somewhere right now, for a team: the last event of each subject, where it is an install. */
 export async function listCurrentInstalls(teamId: string): Promise<CurrentInstall[]> {
   const db = await getDb();
-  const rows = await db.all<{ subject_type: 'part' | 'assembly'; subject_id: string; target_type: 'assembly' | 'car'; target_id: string; at: number }>(sql`
+  const rows = await db.all<{
+    subject_type: 'part' | 'assembly';
+    subject_id: string;
+    target_type: 'assembly' | 'car';
+    target_id: string;
+    at: number;
+  }>(sql`
     SELECT e.subject_type, e.subject_id, e.target_type, e.target_id, e.at
     FROM installation_events e
     WHERE e.team_id = ${teamId} AND e.action = 'install'
       AND e.seq = (SELECT MAX(l.seq) FROM installation_events l WHERE l.subject_type = e.subject_type AND l.subject_id = e.subject_id)
   `);
-  return rows.map((r) => ({ subjectType: r.subject_type, subjectId: r.subject_id, targetType: r.target_type, targetId: r.target_id, since: new Date(Number(r.at)) }));
+  return rows.map((r) => ({
+    subjectType: r.subject_type,
+    subjectId: r.subject_id,
+    targetType: r.target_type,
+    targetId: r.target_id,
+    since: new Date(Number(r.at)),
+  }));
 }
 
 /** The ids of the parts a list of assemblies or cars holds now (for one-per-place rules). */
-export async function findInstalledIn(reader: Reader, targetType: 'assembly' | 'car', targetId: string): Promise<{ subjectType: string; subjectId: string }[]> {
+export async function findInstalledIn(
+  reader: Reader,
+  targetType: 'assembly' | 'car',
+  targetId: string,
+): Promise<{ subjectType: string; subjectId: string }[]> {
   const rows = await reader.all<{ subject_type: string; subject_id: string }>(sql`
     SELECT e.subject_type, e.subject_id FROM installation_events e
     WHERE e.target_type = ${targetType} AND e.target_id = ${targetId} AND e.action = 'install'

@@ -19,7 +19,10 @@ export function partCollectionRoutes(onlyKind?: PartKind) {
   return {
     GET: handle(async ({ locals, url }) => {
       const { team } = requireMember(locals);
-      const filter = parseWith(filterSchema, { kind: url.searchParams.get('kind') ?? undefined, status: url.searchParams.get('status') ?? undefined });
+      const filter = parseWith(filterSchema, {
+        kind: url.searchParams.get('kind') ?? undefined,
+        status: url.searchParams.get('status') ?? undefined,
+      });
       const kind = onlyKind ?? filter.kind;
       const items = (await listParts(team.id, kind)).filter((p) => !filter.status || p.status === filter.status);
       return json(pageOfList(items, readListQuery(url)));

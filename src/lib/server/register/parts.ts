@@ -37,7 +37,11 @@ export interface PartView {
   createdAt: string;
 }
 
-function toView(part: Part, counts = { totalRuns: 0, runsSinceInstall: 0 }, location: PartView['location'] = null): PartView {
+function toView(
+  part: Part,
+  counts = { totalRuns: 0, runsSinceInstall: 0 },
+  location: PartView['location'] = null,
+): PartView {
   const view: PartView = {
     id: part.id,
     kind: part.kind,
@@ -81,7 +85,12 @@ export async function listParts(teamId: string, kind?: PartKind): Promise<PartVi
     if (install) {
       const key = `${install.targetType}:${install.targetId}`;
       if (!labels.has(key)) labels.set(key, await describeTarget(db, install.targetType, install.targetId));
-      location = { targetType: install.targetType, targetId: install.targetId, label: labels.get(key)!, since: install.since.toISOString() };
+      location = {
+        targetType: install.targetType,
+        targetId: install.targetId,
+        label: labels.get(key)!,
+        since: install.since.toISOString(),
+      };
     }
     views.push(toView(part, counts.get(part.id), location));
   }
@@ -97,26 +106,49 @@ export async function getPart(teamId: string, partId: string): Promise<PartView>
 
 export async function createPart(access: TeamAccess, input: z.infer<typeof partCreateSchema>): Promise<PartView> {
   const settings = await readTeamSettings(access.team.id);
-  const lifeLimitRuns = input.lifeLimitRuns === undefined ? defaultLifeLimit(settings, input.kind) : input.lifeLimitRuns;
+  const lifeLimitRuns =
+    input.lifeLimitRuns === undefined ? defaultLifeLimit(settings, input.kind) : input.lifeLimitRuns;
   const part = await write(async (tx) => {
-    const clash = await tx.select({ id: parts.id }).from(parts).where(and(eq(parts.teamId, access.team.id), eq(parts.kind, input.kind), eq(parts.serial, input.serial))).get();
-    if (clash) throw new HttpError(409, `serial: the team already has a ${input.kind} with serial ${input.serial}.`, { serial: 'already used' });
+    const clash = await tx
+      .select({ id: parts.id })
+      .from(parts)
+      .where(and(eq(parts.teamId, access.team.id), eq(parts.kind, input.kind), eq(parts.serial, input.serial)))
+      .get();
+    if (clash)
+      throw new HttpError(409, `serial: the team already has a ${input.kind} with serial ${input.serial}.`, {
+        serial: 'already used',
+      });
     const [row] = await tx
       .insert(parts)
       .values({ ...input, id: randomUUID(), teamId: access.team.id, status: input.status ?? 'spare', lifeLimitRuns })
       .returning();
     if (!row) throw new Error('insert returned no row');
-    await recordAudit(tx, { teamId: access.team.id, actorId: access.user.id, action: 'create', recordType: 'part', recordId: row.id, after: row });
+    await recordAudit(tx, {
+      teamId: access.team.id,
+      actorId: access.user.id,
+      action: 'create',
+      recordType: 'part',
+      recordId: row.id,
+      after: row,
+    });
     return row;
   });
   return toView(part);
 }
 
-export async function updatePart(access: TeamAccess, partId: string, changes: z.infer<typeof partUpdateSchema>): Promise<PartView> {
+export async function updatePart(
+  access: TeamAccess,
+  partId: string,
+  changes: z.infer<typeof partUpdateSchema>,
+): Promise<PartView> {
   // `{}` is a valid PATCH, and Drizzle refuses an UPDATE with nothing to SET: answer the part as it is.
   if (Object.values(changes).every((value) => value === undefined)) return getPart(access.team.id, partId);
   await write(async (tx) => {
-    const before = await tx.select().from(parts).where(and(eq(parts.id, partId), eq(parts.teamId, access.team.id))).get();
+    const before = await tx
+      .select()
+      .from(parts)
+      .where(and(eq(parts.id, partId), eq(parts.teamId, access.team.id)))
+      .get();
     if (!before) throw new HttpError(404, 'No such part in this team.');
     if (before.kind !== 'gear-set' && (changes.ringTeeth !== undefined || changes.pinionTeeth !== undefined)) {
       throw new HttpError(400, 'ringTeeth: only a gear set has tooth counts.', { ringTeeth: 'not a gear set' });
@@ -124,14 +156,31 @@ export async function updatePart(access: TeamAccess, partId: string, changes: z.
     const ring = changes.ringTeeth ?? before.ringTeeth;
     const pinion = changes.pinionTeeth ?? before.pinionTeeth;
     if (before.kind === 'gear-set' && ring !== null && pinion !== null && ring <= pinion) {
-      throw new HttpError(400, 'ringTeeth: the ring gear has more teeth than the pinion.', { ringTeeth: 'not more than pinion' });
+      throw new HttpError(400, 'ringTeeth: the ring gear has more teeth than the pinion.', {
+        ringTeeth: 'not more than pinion',
+      });
     }
     if (changes.serial && changes.serial !== before.serial) {
-      const clash = await tx.select({ id: parts.id }).from(parts).where(and(eq(parts.teamId, access.team.id), eq(parts.kind, before.kind), eq(parts.serial, changes.serial))).get();
-      if (clash) throw new HttpError(409, `serial: the team already has a ${before.kind} with serial ${changes.serial}.`, { serial: 'already used' });
+      const clash = await tx
+        .select({ id: parts.id })
+        .from(parts)
+        .where(and(eq(parts.teamId, access.team.id), eq(parts.kind, before.kind), eq(parts.serial, changes.serial)))
+        .get();
+      if (clash)
+        throw new HttpError(409, `serial: the team already has a ${before.kind} with serial ${changes.serial}.`, {
+          serial: 'already used',
+        });
     }
     const [after] = await tx.update(parts).set(changes).where(eq(parts.id, partId)).returning();
-    await recordAudit(tx, { teamId: access.team.id, actorId: access.user.id, action: 'update', recordType: 'part', recordId: partId, before, after });
+    await recordAudit(tx, {
+      teamId: access.team.id,
+      actorId: access.user.id,
+      action: 'update',
+      recordType: 'part',
+      recordId: partId,
+      before,
+      after,
+    });
   });
   return getPart(access.team.id, partId);
 }
@@ -139,11 +188,31 @@ export async function updatePart(access: TeamAccess, partId: string, changes: z.
 /** Deletes a part that was never installed; one with a history is retired or scrapped instead (409). */
 export async function deletePart(access: TeamAccess, partId: string): Promise<void> {
   await write(async (tx) => {
-    const before = await tx.select().from(parts).where(and(eq(parts.id, partId), eq(parts.teamId, access.team.id))).get();
+    const before = await tx
+      .select()
+      .from(parts)
+      .where(and(eq(parts.id, partId), eq(parts.teamId, access.team.id)))
+      .get();
     if (!before) throw new HttpError(404, 'No such part in this team.');
-    const history = await tx.select({ id: installationEvents.id }).from(installationEvents).where(and(eq(installationEvents.subjectType, 'part'), eq(installationEvents.subjectId, partId))).limit(1).get();
-    if (history) throw new HttpError(409, 'This part has an installation history; set its status to retired or scrapped instead of deleting it.');
+    const history = await tx
+      .select({ id: installationEvents.id })
+      .from(installationEvents)
+      .where(and(eq(installationEvents.subjectType, 'part'), eq(installationEvents.subjectId, partId)))
+      .limit(1)
+      .get();
+    if (history)
+      throw new HttpError(
+        409,
+        'This part has an installation history; set its status to retired or scrapped instead of deleting it.',
+      );
     await tx.delete(parts).where(eq(parts.id, partId));
-    await recordAudit(tx, { teamId: access.team.id, actorId: access.user.id, action: 'delete', recordType: 'part', recordId: partId, before });
+    await recordAudit(tx, {
+      teamId: access.team.id,
+      actorId: access.user.id,
+      action: 'delete',
+      recordType: 'part',
+      recordId: partId,
+      before,
+    });
   });
 }

@@ -48,7 +48,8 @@ export async function countRunsForParts(teamId: string, asOf?: number): Promise<
     GROUP BY pc.part_id
   `);
   const counts = new Map<string, RunCounts>();
-  for (const row of rows) counts.set(row.part_id, { totalRuns: Number(row.total_runs), runsSinceInstall: Number(row.since_install) });
+  for (const row of rows)
+    counts.set(row.part_id, { totalRuns: Number(row.total_runs), runsSinceInstall: Number(row.since_install) });
   return counts;
 }
 

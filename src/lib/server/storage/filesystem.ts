@@ -17,7 +17,8 @@ const isMissing = (error: unknown) => (error as NodeJS.ErrnoException).code === 
  */
 export function createFilesystemStorage(folder: string): ObjectStorage {
   let ready: Promise<void> | undefined;
-  const ensureFolder = () => (ready ??= mkdir(folder, { recursive: true, mode: 0o700 }).then(() => removeStaleTemporaries(folder)));
+  const ensureFolder = () =>
+    (ready ??= mkdir(folder, { recursive: true, mode: 0o700 }).then(() => removeStaleTemporaries(folder)));
 
   return {
     kind: 'filesystem',

@@ -1,4 +1,10 @@
-import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, S3Client, S3ServiceException } from '@aws-sdk/client-s3';
+import {
+  DeleteObjectCommand,
+  GetObjectCommand,
+  PutObjectCommand,
+  S3Client,
+  S3ServiceException,
+} from '@aws-sdk/client-s3';
 import { assertObjectKey, type ObjectStorage, type StoredObject } from './types';
 
 export interface S3Settings {
@@ -11,7 +17,8 @@ export interface S3Settings {
 }
 
 const isMissing = (error: unknown) =>
-  error instanceof S3ServiceException && (error.name === 'NoSuchKey' || error.name === 'NotFound' || error.$metadata.httpStatusCode === 404);
+  error instanceof S3ServiceException &&
+  (error.name === 'NoSuchKey' || error.name === 'NotFound' || error.$metadata.httpStatusCode === 404);
 
 /**
  * Objects in an S3-compatible bucket (any store that speaks the S3 API). Without keys in the
@@ -23,7 +30,9 @@ export function createS3Storage(settings: S3Settings): ObjectStorage {
     endpoint: settings.endpoint,
     forcePathStyle: settings.forcePathStyle,
     credentials:
-      settings.accessKeyId && settings.secretAccessKey ? { accessKeyId: settings.accessKeyId, secretAccessKey: settings.secretAccessKey } : undefined,
+      settings.accessKeyId && settings.secretAccessKey
+        ? { accessKeyId: settings.accessKeyId, secretAccessKey: settings.secretAccessKey }
+        : undefined,
     // Since early 2025 the SDK adds CRC checksums to every upload by default, which several
     // S3-compatible stores reject; checksums only where the operation requires them.
     requestChecksumCalculation: 'WHEN_REQUIRED',
@@ -35,14 +44,26 @@ export function createS3Storage(settings: S3Settings): ObjectStorage {
     kind: 's3',
     async put(key, bytes, contentType) {
       assertObjectKey(key);
-      await client.send(new PutObjectCommand({ Bucket, Key: key, Body: bytes, ContentType: contentType, ContentLength: bytes.byteLength }));
+      await client.send(
+        new PutObjectCommand({
+          Bucket,
+          Key: key,
+          Body: bytes,
+          ContentType: contentType,
+          ContentLength: bytes.byteLength,
+        }),
+      );
     },
     async get(key): Promise<StoredObject | null> {
       assertObjectKey(key);
       try {
         const object = await client.send(new GetObjectCommand({ Bucket, Key: key }));
         if (!object.Body) return null;
-        return { body: object.Body.transformToWebStream(), contentType: object.ContentType ?? 'application/octet-stream', size: object.ContentLength };
+        return {
+          body: object.Body.transformToWebStream(),
+          contentType: object.ContentType ?? 'application/octet-stream',
+          size: object.ContentLength,
+        };
       } catch (error) {
         if (isMissing(error)) return null;
         throw error;

@@ -26,5 +26,6 @@ export const OBJECT_KEY_PATTERN = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]
 
 /** Throws unless `key` is one the server could have made. */
 export function assertObjectKey(key: string): void {
-  if (!OBJECT_KEY_PATTERN.test(key)) throw new Error(`Refusing storage key ${JSON.stringify(key)}: keys are <uuid>.jpg or <uuid>.webp.`);
+  if (!OBJECT_KEY_PATTERN.test(key))
+    throw new Error(`Refusing storage key ${JSON.stringify(key)}: keys are <uuid>.jpg or <uuid>.webp.`);
 }

@@ -11,6 +11,9 @@ const filterSchema = z.object({ recordType: z.string().max(40).optional(), recor
 export const GET = handle(async ({ locals, url }) => {
   const { team } = requirePermission(locals, 'audit:read');
   const query = readListQuery(url);
-  const filter = parseWith(filterSchema, { recordType: url.searchParams.get('recordType') ?? undefined, recordId: url.searchParams.get('recordId') ?? undefined });
+  const filter = parseWith(filterSchema, {
+    recordType: url.searchParams.get('recordType') ?? undefined,
+    recordId: url.searchParams.get('recordId') ?? undefined,
+  });
   return json(toPage(await listAuditTrail(team.id, { ...filter, ...query }), query.offset, query.limit));
 });

@@ -7,5 +7,9 @@ import { handle } from '../../../lib/server/http';
 export const GET = handle(async ({ locals }) => {
   const { team } = requirePermission(locals, 'team:settings');
   const archive = await exportTeamArchive(team.id);
-  return download(JSON.stringify(archive), `lashline-team-${team.name}-${new Date().toISOString().slice(0, 10)}.json`, 'application/json');
+  return download(
+    JSON.stringify(archive),
+    `lashline-team-${team.name}-${new Date().toISOString().slice(0, 10)}.json`,
+    'application/json',
+  );
 });

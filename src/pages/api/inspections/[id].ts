@@ -3,7 +3,9 @@ import { requireMember, requirePermission } from '../../../lib/server/guard';
 import { handle, json, readJson } from '../../../lib/server/http';
 import { deleteDraft, getInspection, updateInspection } from '../../../lib/server/inspections/inspections';
 
-export const GET = handle(async ({ locals, params }) => json(await getInspection(requireMember(locals), params.id ?? '')));
+export const GET = handle(async ({ locals, params }) =>
+  json(await getInspection(requireMember(locals), params.id ?? '')),
+);
 
 /** A partial change, merged and validated whole: own drafts for technicians, anything for crew chiefs. */
 export const PATCH = handle(async ({ locals, params, request }) => {

@@ -17,11 +17,20 @@ export const GET = handle(async ({ locals, url }) => {
   const rows = await db
     .select()
     .from(installationEvents)
-    .where(and(eq(installationEvents.teamId, team.id), id ? or(eq(installationEvents.subjectId, id), eq(installationEvents.targetId, id)) : undefined))
+    .where(
+      and(
+        eq(installationEvents.teamId, team.id),
+        id ? or(eq(installationEvents.subjectId, id), eq(installationEvents.targetId, id)) : undefined,
+      ),
+    )
     .orderBy(desc(installationEvents.seq))
     .limit(query.limit + 1)
     .offset(query.offset);
-  const items = rows.map(({ seq: _seq, teamId: _team, createdAt, at, ...rest }) => ({ ...rest, at: at.toISOString(), createdAt: createdAt.toISOString() }));
+  const items = rows.map(({ seq: _seq, teamId: _team, createdAt, at, ...rest }) => ({
+    ...rest,
+    at: at.toISOString(),
+    createdAt: createdAt.toISOString(),
+  }));
   return json(toPage(items, query.offset, query.limit));
 });
 

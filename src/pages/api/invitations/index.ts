@@ -14,6 +14,13 @@ export const GET = handle(async ({ locals }) => {
 export const POST = handle(async ({ request, locals, url }) => {
   const { user, team } = requirePermission(locals, 'members:invite');
   const { email, role } = await readJson(request, invitationSchema);
-  const invitation = await createInvitation({ teamId: team.id, actorId: user.id, actorRole: team.role, email, role, baseUrl: resolveBaseUrl(url) });
+  const invitation = await createInvitation({
+    teamId: team.id,
+    actorId: user.id,
+    actorRole: team.role,
+    email,
+    role,
+    baseUrl: resolveBaseUrl(url),
+  });
   return json({ id: invitation.id, email, role, expiresAt: invitation.expiresAt.toISOString() }, 201);
 });

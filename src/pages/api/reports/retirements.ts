@@ -16,6 +16,7 @@ export const GET = handle(async ({ locals, url }) => {
   const { team } = requireMember(locals);
   const query = parseWith(querySchema, Object.fromEntries(url.searchParams));
   const summary = await summariseTeamRetirements(team.id, query.from, query.to);
-  if (query.format === 'csv') return download(retirementsToCsv(summary), `lashline-retirements-${query.from}-${query.to}.csv`, 'text/csv');
+  if (query.format === 'csv')
+    return download(retirementsToCsv(summary), `lashline-retirements-${query.from}-${query.to}.csv`, 'text/csv');
   return json(summary);
 });

@@ -6,11 +6,17 @@ import { handle, json, parseWith, readJson } from '../../../lib/server/http';
 import { pageOfList, readListQuery } from '../../../lib/server/list-query';
 import { listReviews, openReview } from '../../../lib/server/reviews/reviews';
 
-const filterSchema = z.object({ status: z.enum(['open', 'decided'], { error: 'status: open or decided.' }).optional(), gearSetId: z.string().max(64).optional() });
+const filterSchema = z.object({
+  status: z.enum(['open', 'decided'], { error: 'status: open or decided.' }).optional(),
+  gearSetId: z.string().max(64).optional(),
+});
 
 export const GET = handle(async ({ locals, url }) => {
   const { team } = requireMember(locals);
-  const filter = parseWith(filterSchema, { status: url.searchParams.get('status') ?? undefined, gearSetId: url.searchParams.get('gearSetId') ?? undefined });
+  const filter = parseWith(filterSchema, {
+    status: url.searchParams.get('status') ?? undefined,
+    gearSetId: url.searchParams.get('gearSetId') ?? undefined,
+  });
   return json(pageOfList(await listReviews(team.id, filter), readListQuery(url)));
 });
 

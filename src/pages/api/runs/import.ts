@@ -8,7 +8,11 @@ import { afterRunsChanged } from '../../../lib/server/notices/after-runs';
 const MAX_IMPORT_BYTES = 5 * 1024 * 1024;
 
 const recordsBodySchema = z.object({
-  records: z.array(z.record(z.string(), z.string({ error: 'Each cell is text, as read from the CSV.' })), { error: 'records: a list of rows.' }).max(20_000, 'At most 20,000 rows at once.'),
+  records: z
+    .array(z.record(z.string(), z.string({ error: 'Each cell is text, as read from the CSV.' })), {
+      error: 'records: a list of rows.',
+    })
+    .max(20_000, 'At most 20,000 rows at once.'),
   dryRun: z.boolean().optional(),
 });
 

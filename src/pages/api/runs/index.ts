@@ -12,7 +12,9 @@ import { readIdempotencyKey } from '../../../lib/server/idempotency';
 export const GET = handle(async ({ locals, url }) => {
   const { team } = requireMember(locals);
   const query = readListQuery(url);
-  const { carId } = parseWith(z.object({ carId: z.string().max(64).optional() }), { carId: url.searchParams.get('carId') ?? undefined });
+  const { carId } = parseWith(z.object({ carId: z.string().max(64).optional() }), {
+    carId: url.searchParams.get('carId') ?? undefined,
+  });
   return json(toPage(await listRuns(team.id, { ...query, carId }), query.offset, query.limit));
 });
 

@@ -13,7 +13,10 @@ export const GET = handle(async ({ locals }) => {
 export const PUT = handle(async ({ locals, request }) => {
   const { team, user } = requirePermission(locals, 'team:settings');
   const { required } = await readJson(request, requireSecondFactorSchema);
-  if (required && !user.secondFactor) throw new HttpError(409, 'required: turn on your own second factor first, so the rule does not lock you out.', { required: 'your second factor is off' });
+  if (required && !user.secondFactor)
+    throw new HttpError(409, 'required: turn on your own second factor first, so the rule does not lock you out.', {
+      required: 'your second factor is off',
+    });
   await setTeamSecondFactorRule(team.id, user.id, required);
   return json({ required });
 });

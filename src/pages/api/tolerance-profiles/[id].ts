@@ -6,7 +6,8 @@ import { getProfile, listProfileVersions, updateProfile } from '../../../lib/ser
 /** The newest version, and with `?versions=1` every version. */
 export const GET = handle(async ({ locals, params, url }) => {
   const { team } = requireMember(locals);
-  if (url.searchParams.get('versions') === '1') return json({ items: await listProfileVersions(team.id, params.id ?? ''), nextCursor: null });
+  if (url.searchParams.get('versions') === '1')
+    return json({ items: await listProfileVersions(team.id, params.id ?? ''), nextCursor: null });
   return json(await getProfile(team.id, params.id ?? ''));
 });
 

@@ -12,9 +12,18 @@ afterEach(cleanup);
 
 describe('ChartFigure', () => {
   it('shows an empty state that says what to do, with the way to do it', () => {
-    render(<ChartFigure shape={shapeBacklashTrend(makeInput([]))} height={320} width={600} action={{ href: '/inspections/new?gearSetId=set-1', label: 'Record an inspection' }} />);
+    render(
+      <ChartFigure
+        shape={shapeBacklashTrend(makeInput([]))}
+        height={320}
+        width={600}
+        action={{ href: '/inspections/new?gearSetId=set-1', label: 'Record an inspection' }}
+      />,
+    );
     expect(screen.getByTestId('empty-backlash-mean').textContent).toMatch(/Record the first teardown inspection/);
-    expect(screen.getByRole('link', { name: 'Record an inspection' }).getAttribute('href')).toBe('/inspections/new?gearSetId=set-1');
+    expect(screen.getByRole('link', { name: 'Record an inspection' }).getAttribute('href')).toBe(
+      '/inspections/new?gearSetId=set-1',
+    );
     expect(document.querySelector('svg.recharts-surface')).toBeNull();
   });
 
@@ -28,7 +37,11 @@ describe('ChartFigure', () => {
     const table = screen.getByTestId('table-backlash-mean');
     const rows = within(table).getAllByRole('row');
     expect(rows).toHaveLength(1 + RISING.length);
-    expect(within(table).getAllByRole('columnheader').map((h) => h.textContent)).toEqual(['Inspection', 'Runs', 'Mean', 'Min–max around the gear']);
+    expect(
+      within(table)
+        .getAllByRole('columnheader')
+        .map((h) => h.textContent),
+    ).toEqual(['Inspection', 'Runs', 'Mean', 'Min–max around the gear']);
     expect(within(rows[4]!).getByRole('link').getAttribute('href')).toBe('/inspections/insp-4');
     expect(rows[4]!.textContent).toContain('0.008 in');
   });
@@ -38,17 +51,32 @@ describe('ChartFigure', () => {
     const points = screen.getAllByTestId('chart-point');
     expect(points).toHaveLength(RISING.length);
     expect(points[0]!.getAttribute('href')).toBe('/inspections/insp-1');
-    expect(points[3]!.getAttribute('aria-label')).toMatch(/at run 30: mean 0\.008 in, 0\.008–0\.009 in around the gear\. Open the inspection\./);
+    expect(points[3]!.getAttribute('aria-label')).toMatch(
+      /at run 30: mean 0\.008 in, 0\.008–0\.009 in around the gear\. Open the inspection\./,
+    );
     expect(screen.getByTestId('message-backlash-mean').textContent).toMatch(/about run 50/);
   });
 
   it('has a legend in shapes and words, and a column per series', () => {
-    render(<ChartFigure shape={shapeRunoutTrend(makeInput([{ runs: 0, mean: 0.007, runout: 0.001, estimate: 0.0014 }, { runs: 9, mean: 0.007, runout: 0.002, estimate: 0.0018 }]))} height={240} width={500} />);
+    render(
+      <ChartFigure
+        shape={shapeRunoutTrend(
+          makeInput([
+            { runs: 0, mean: 0.007, runout: 0.001, estimate: 0.0014 },
+            { runs: 9, mean: 0.007, runout: 0.002, estimate: 0.0018 },
+          ]),
+        )}
+        height={240}
+        width={500}
+      />,
+    );
     const legend = screen.getByRole('list', { name: 'Legend' });
     expect(legend.textContent).toContain('Measured at the back face');
     expect(legend.textContent).toContain('Estimated from the lash');
     expect(legend.textContent).toContain('limit 0.003 in');
-    const headers = within(screen.getByTestId('table-runout')).getAllByRole('columnheader').map((h) => h.textContent);
+    const headers = within(screen.getByTestId('table-runout'))
+      .getAllByRole('columnheader')
+      .map((h) => h.textContent);
     expect(headers).toEqual(['Inspection', 'Runs', 'Measured at the back face', 'Estimated from the lash']);
   });
 });

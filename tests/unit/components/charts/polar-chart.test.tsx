@@ -5,7 +5,12 @@ import { PolarChart } from '../../../../src/components/charts/PolarChart';
 
 afterEach(cleanup);
 
-const one = { key: 'i1', name: '26 Oct 2026, run 44', readings: [0.009, 0.008, 0.007, 0.008], resolution: '0.001in' as const };
+const one = {
+  key: 'i1',
+  name: '26 Oct 2026, run 44',
+  readings: [0.009, 0.008, 0.007, 0.008],
+  resolution: '0.001in' as const,
+};
 
 describe('PolarChart', () => {
   it('says what to do when nothing is read yet', () => {
@@ -39,7 +44,12 @@ describe('PolarChart', () => {
   });
 
   it('overlays two inspections with a legend entry and a table each', () => {
-    render(<PolarChart series={[one, { ...one, key: 'i2', name: 'Earlier', readings: [0.008, 0.008, 0.008, 0.008] }]} unit="in" />);
+    render(
+      <PolarChart
+        series={[one, { ...one, key: 'i2', name: 'Earlier', readings: [0.008, 0.008, 0.008, 0.008] }]}
+        unit="in"
+      />,
+    );
     expect(screen.getByRole('list', { name: 'Legend' }).textContent).toContain('Earlier');
     expect(screen.getAllByTestId('polar-table')).toHaveLength(2);
     expect(screen.getAllByTestId('polar-curve')).toHaveLength(2);

@@ -14,8 +14,26 @@ const comparison: ComparisonShape = {
   unit: 'in',
   thresholdText: '0.002 in',
   rows: [
-    { measure: 'mean', label: 'Mean backlash', beforeText: '0.008 in', afterText: '0.009 in', deltaText: '+0.001 in', delta: 0.001, flagged: false, note: 'Within 0.002 in: the indicator could account for it.' },
-    { measure: 'max', label: 'Loosest reading (max)', beforeText: '0.008 in', afterText: '0.011 in', deltaText: '+0.003 in', delta: 0.003, flagged: true, note: 'Changed by more than 0.002 in: more than the indicator explains.' },
+    {
+      measure: 'mean',
+      label: 'Mean backlash',
+      beforeText: '0.008 in',
+      afterText: '0.009 in',
+      deltaText: '+0.001 in',
+      delta: 0.001,
+      flagged: false,
+      note: 'Within 0.002 in: the indicator could account for it.',
+    },
+    {
+      measure: 'max',
+      label: 'Loosest reading (max)',
+      beforeText: '0.008 in',
+      afterText: '0.011 in',
+      deltaText: '+0.003 in',
+      delta: 0.003,
+      flagged: true,
+      note: 'Changed by more than 0.002 in: more than the indicator explains.',
+    },
   ],
   flaggedCount: 1,
   summary: '1 of 2 figures changed by more than 0.002 in: loosest reading (max).',
@@ -47,7 +65,23 @@ describe('VerdictTable', () => {
   });
 
   it('writes each verdict as a word beside its value and limit', () => {
-    render(<VerdictTable verdicts={[{ measure: 'spread', value: 0.003, verdict: 'out-of-band', limit: 'max', limitValue: 0.002, margin: -0.001, unit: 'in' }]} engineCount={1} resolution="0.001in" />);
+    render(
+      <VerdictTable
+        verdicts={[
+          {
+            measure: 'spread',
+            value: 0.003,
+            verdict: 'out-of-band',
+            limit: 'max',
+            limitValue: 0.002,
+            margin: -0.001,
+            unit: 'in',
+          },
+        ]}
+        engineCount={1}
+        resolution="0.001in"
+      />,
+    );
     const row = within(screen.getByTestId('verdict-table')).getAllByRole('row')[1]!;
     expect(within(row).getByRole('rowheader').textContent).toBe('Spread');
     expect(row.textContent).toContain('0.003 in');
@@ -59,7 +93,13 @@ describe('VerdictTable', () => {
 
 describe('marks', () => {
   it('give every verdict and action a word', () => {
-    render(<><VerdictMark verdict="near-limit" /><ActionMark action="re-shim" withHint /><ActionMark action={null} /></>);
+    render(
+      <>
+        <VerdictMark verdict="near-limit" />
+        <ActionMark action="re-shim" withHint />
+        <ActionMark action={null} />
+      </>,
+    );
     expect(screen.getByText('Near a limit')).toBeTruthy();
     expect(screen.getByText(/Re-shim/).textContent).toBe('Re-shim — set it up again');
     expect(screen.getByText('no inspection yet')).toBeTruthy();

@@ -45,7 +45,14 @@ describe('the embedded photo storage', () => {
 
   it('refuses every key the server could not have made (paths, other extensions)', async () => {
     const storage = createFilesystemStorage(folder);
-    for (const bad of ['../escape.jpg', `../${randomUUID()}.jpg`, `${randomUUID()}.jpg/..`, 'photo.jpg', `${randomUUID()}.html`, `${randomUUID().toUpperCase()}.jpg`]) {
+    for (const bad of [
+      '../escape.jpg',
+      `../${randomUUID()}.jpg`,
+      `${randomUUID()}.jpg/..`,
+      'photo.jpg',
+      `${randomUUID()}.html`,
+      `${randomUUID().toUpperCase()}.jpg`,
+    ]) {
       await expect(storage.put(bad, new Uint8Array([1]), 'image/jpeg')).rejects.toThrow(/Refusing storage key/);
       await expect(storage.get(bad)).rejects.toThrow(/Refusing storage key/);
       await expect(storage.delete(bad)).rejects.toThrow(/Refusing storage key/);

@@ -7,6 +7,7 @@ import { beginSecondFactor } from '../../../../lib/server/second-factor';
 export const POST = handle(async ({ locals }) => {
   const user = await findUserById(requireSecondFactorRole(locals).id);
   if (!user) throw new HttpError(401, 'Sign in first.');
-  if (user.totpEnabledAt) throw new HttpError(409, 'The second factor is already on; turn it off first to change the app.');
+  if (user.totpEnabledAt)
+    throw new HttpError(409, 'The second factor is already on; turn it off first to change the app.');
   return json(await beginSecondFactor(user), 201);
 });
