@@ -80,7 +80,7 @@ try {
       `${key.padEnd(26)} performance ${median(r.performance)} [${r.performance.join(', ')}]  TBT ${median(r.tbt)} ms [${r.tbt.join(', ')}]`,
     );
 } finally {
-  await chrome.kill();
+  chrome.kill();
   await servers.this.stop();
   await servers.other.stop();
 }

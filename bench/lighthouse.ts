@@ -93,6 +93,6 @@ try {
   }
   console.log(`targets (performance ≥ 95, accessibility 100): ${allMet ? 'met' : 'MISSED'}`);
 } finally {
-  await chrome.kill();
+  chrome.kill();
   await server.stop();
 }

@@ -61,9 +61,8 @@ const signInLimit = defineMiddleware(async (context, next) => {
     .clone()
     .formData()
     .catch(() => null);
-  const email = String(form?.get('email') ?? '')
-    .trim()
-    .toLowerCase();
+  const field = form?.get('email');
+  const email = typeof field === 'string' ? field.trim().toLowerCase() : '';
   const wait = signInRetryAfterSeconds(email, context.clientAddress);
   if (wait > 0) {
     logSecurityEvent('sign-in-limited', { email, clientAddress: context.clientAddress, retryAfterSeconds: wait });

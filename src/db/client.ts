@@ -91,7 +91,8 @@ async function openWriter(url: string): Promise<Writer> {
 /** Whether `error`, or an error it wraps (Drizzle wraps failed queries), is SQLite's SQLITE_BUSY. */
 function isBusyError(error: unknown): boolean {
   for (let current = error, depth = 0; current instanceof Error && depth < 5; current = current.cause, depth += 1) {
-    if (String((current as { code?: unknown }).code ?? '').startsWith('SQLITE_BUSY')) return true;
+    const code = (current as { code?: unknown }).code;
+    if (typeof code === 'string' && code.startsWith('SQLITE_BUSY')) return true;
   }
   return false;
 }

@@ -13,6 +13,7 @@ export const TORQUE_UNITS: readonly TorqueUnit[] = ['N-m', 'lbf-in', 'lbf-ft'];
 // NIST SP 811 (2008) App. B: exact by definition of the inch and the pound-force.
 export const MM_PER_INCH = 25.4;
 export const NM_PER_LBFIN = 0.1129848290276167;
+// eslint-disable-next-line no-loss-of-precision -- kept with every digit NIST prints; the nearest double is what arithmetic uses
 export const NM_PER_LBFFT = 1.3558179483314004;
 
 const NM_PER_TORQUE_UNIT: Readonly<Record<TorqueUnit, number>> = {

@@ -44,16 +44,14 @@ async function openParts(page: Page, query = ''): Promise<void> {
 
 /** The serials of the rows shown, in order, and one column's cells as text. */
 async function readColumn(page: Page, column: string): Promise<{ serial: string; text: string }[]> {
-  return page
-    .getByTestId('part-row')
-    .evaluateAll(
-      (rows, id) =>
-        rows.map((row) => ({
-          serial: (row as HTMLElement).dataset.serial ?? '',
-          text: row.querySelector(`td[data-column="${id}"]`)?.textContent?.trim() ?? '',
-        })),
-      column,
-    );
+  return page.getByTestId('part-row').evaluateAll(
+    (rows, id) =>
+      rows.map((row) => ({
+        serial: (row as HTMLElement).dataset.serial ?? '',
+        text: row.querySelector(`td[data-column="${id}"]`)?.textContent?.trim() ?? '',
+      })),
+    column,
+  );
 }
 
 /** The search part of the page's URL as an object. */

@@ -2,7 +2,7 @@ import { useContext } from 'react';
 import { useFormContext, useWatch } from 'react-hook-form';
 import { computeLiveFigures } from '../../lib/inspection/live-figures';
 import { resizeReadings, type SheetValues } from '../../lib/inspection/sheet-values';
-import { formatLength, lengthToMm, type IndicatorResolutionId, type LengthUnit } from '../../lib/units';
+import { formatLength, lengthToMm, type IndicatorResolutionId } from '../../lib/units';
 import { EntryField, EntryTextsContext, SheetSection } from './fields';
 import type { SheetContext } from './sheet-context';
 import { PolarPreview } from './PolarPreview';
@@ -21,8 +21,7 @@ export function BacklashSection({ context, disabled }: { context: SheetContext; 
     pinionTeeth: set?.pinionTeeth,
     pressureAngleDeg: set?.pressureAngleDeg,
   });
-  const format = (value: number) =>
-    formatLength(lengthToMm(value, unit), unit as LengthUnit, resolution as IndicatorResolutionId);
+  const format = (value: number) => formatLength(lengthToMm(value, unit), unit, resolution as IndicatorResolutionId);
   const count = readings.length;
 
   const texts = useContext(EntryTextsContext);

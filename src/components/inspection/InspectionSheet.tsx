@@ -181,6 +181,7 @@ function Sheet({ props, boot, store }: { props: SheetProps; boot: BootResult; st
   return (
     <FormProvider {...form}>
       <EntryTextsContext.Provider value={texts}>
+        {/* eslint-disable-next-line jsx-a11y/no-noninteractive-element-interactions -- Enter in any field moves to the next one; the keys come from the fields inside */}
         <form
           onSubmit={onSubmit}
           onKeyDown={moveOnEnter}

@@ -3,7 +3,7 @@ import { useController, useFormContext, useWatch } from 'react-hook-form';
 import { judgeMeasuredRunout } from '../../lib/inspection/live-figures';
 import { parseDecimalText } from '../../lib/inspection/entry-text';
 import type { SheetValues } from '../../lib/inspection/sheet-values';
-import { formatLength, lengthToMm, type IndicatorResolutionId, type LengthUnit } from '../../lib/units';
+import { formatLength, lengthToMm, type IndicatorResolutionId } from '../../lib/units';
 import { EntryField, FieldError, SheetSection } from './fields';
 import type { SheetContext } from './sheet-context';
 import { VerdictList } from './VerdictList';
@@ -23,7 +23,7 @@ export function MeasuresSection({
   const { control } = useFormContext<SheetValues>();
   const [unit, resolution, backFace] = useWatch({ control, name: ['unit', 'resolution', 'runout.backFace'] });
   const format = (v: number) =>
-    `${formatLength(lengthToMm(v, unit), unit as LengthUnit, resolution as IndicatorResolutionId)} ${unit}`;
+    `${formatLength(lengthToMm(v, unit), unit, resolution as IndicatorResolutionId)} ${unit}`;
   const profile = context.profile;
   const runoutVerdict =
     profile && typeof backFace === 'number'
@@ -139,7 +139,7 @@ function ShimStack({
   const { field, fieldState } = useController({ control, name: 'pinion.shims' });
   const [focusLast, setFocusLast] = useState(false);
   const parsed = rows.map((text) => parseDecimalText(text));
-  const shims = (field.value ?? []) as number[];
+  const shims = field.value ?? [];
   const total = shims.reduce((a, b) => a + b, 0);
 
   const update = (next: string[]) => {
@@ -169,6 +169,7 @@ function ShimStack({
                     autoComplete="off"
                     className="max-w-[11rem] tabular-nums"
                     value={text}
+                    // eslint-disable-next-line jsx-a11y/no-autofocus -- only the shim row just added by "Add a shim", so typing goes on in it
                     autoFocus={focusLast && i === rows.length - 1}
                     onChange={(e) => update(rows.map((r, j) => (j === i ? e.target.value : r)))}
                     aria-invalid={error ? 'true' : undefined}

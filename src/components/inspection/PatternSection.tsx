@@ -3,7 +3,7 @@ import { useController, useFormContext } from 'react-hook-form';
 import { describePattern } from '../../lib/analysis/contact-pattern';
 import type { SheetValues } from '../../lib/inspection/sheet-values';
 import { FieldError, SheetSection } from './fields';
-import { PatternPicker, type PatternValue } from './PatternPicker';
+import { PatternPicker } from './PatternPicker';
 
 const PLACE_WORDS: Record<string, string> = {
   centred: 'In the usual central region',
@@ -39,7 +39,7 @@ export function PatternSection({ disabled }: { disabled: boolean }) {
 function PatternSide({ side, disabled }: { side: 'drive' | 'coast'; disabled: boolean }) {
   const { control } = useFormContext<SheetValues>();
   const { field, fieldState } = useController({ control, name: `patterns.${side}` });
-  const value = (field.value ?? null) as PatternValue | null;
+  const value = field.value ?? null;
   const id = useId();
   const guidance = value ? describePattern({ side, alongTooth: value.along, upTooth: value.up }) : null;
   const title = side === 'drive' ? 'Drive side' : 'Coast side';

@@ -148,7 +148,7 @@ function PhotoSide({
             <a href={photo.url} target="_blank" rel="noopener">
               <img
                 src={photo.thumbnailUrl}
-                alt={`${title} pattern photo ${i + 1} (opens the full size)`}
+                alt={`${title} contact pattern, shot ${i + 1} (opens the full size)`}
                 className="aspect-square w-full rounded-md border border-rule object-cover"
                 loading="lazy"
                 data-testid="photo-thumbnail"

@@ -1,3 +1,4 @@
+import type { InspectionViewLite } from './inspection-api';
 import type { SourceNote, ToleranceProfile } from '../../lib/analysis/tolerance';
 import type { Role } from '../../lib/roles';
 import type { LengthUnit } from '../../lib/units';
@@ -43,7 +44,7 @@ export interface SheetUser {
 export interface SheetProps {
   mode: 'new' | 'edit';
   /** The inspection being edited (edit mode), as GET /api/inspections/:id answers it. */
-  inspection?: import('./inspection-api').InspectionViewLite;
+  inspection?: InspectionViewLite;
   user: SheetUser;
   role: Role;
   /** May change submitted inspections (crew chief, owner). */

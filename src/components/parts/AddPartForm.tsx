@@ -61,7 +61,7 @@ export default function AddPartForm({ onCreated, onCancel }: Props) {
     mode: 'onTouched',
   });
   const { register, handleSubmit, watch, setValue, setError, getFieldState, formState } = form;
-  const kind = watch('kind') as PartKind;
+  const kind: PartKind = watch('kind');
   const ring = watch('ringTeeth');
   const pinion = watch('pinionTeeth');
   const limit = defaultLimitFor(kind, settings.data);

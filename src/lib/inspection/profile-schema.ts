@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { validateProfile, type ToleranceProfile } from '../analysis/tolerance';
+import { validateProfile } from '../analysis/tolerance';
 
 /** A tolerance profile as the team edits it: canonical mm and N·m, checked by the engine's own rules. */
 const length = (label: string) =>
@@ -32,7 +32,7 @@ export const toleranceValuesSchema = z
   })
   .strict()
   .superRefine((values, ctx) => {
-    for (const issue of validateProfile(values as ToleranceProfile))
+    for (const issue of validateProfile(values))
       ctx.addIssue({ code: 'custom', path: issue.field.split('.'), message: issue.message });
   });
 

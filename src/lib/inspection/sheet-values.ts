@@ -62,13 +62,13 @@ const toJson = <T>(value: T): T => JSON.parse(JSON.stringify(value)) as T;
 
 /** The body of POST /api/inspections. */
 export function sheetToCreateBody(values: SheetValues): Record<string, unknown> {
-  return toJson(values) as Record<string, unknown>;
+  return toJson(values);
 }
 
 /** The body of PATCH /api/inspections/:id: everything but the gear set, which never changes. */
 export function sheetToPatchBody(values: SheetValues): Record<string, unknown> {
   const { gearSetId: _gearSet, ...rest } = toJson(values);
-  return rest as Record<string, unknown>;
+  return rest;
 }
 
 /** The inspection as the API answers it, as far as the sheet reads it. */

@@ -27,7 +27,7 @@ async function countTables(file: string): Promise<Record<string, number>> {
   try {
     const names = (
       await db.execute("SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' ORDER BY name")
-    ).rows.map((r) => String(r.name));
+    ).rows.map((r) => r.name as string);
     const counts: Record<string, number> = {};
     for (const name of names)
       counts[name] = Number((await db.execute(`SELECT count(*) AS n FROM "${name}"`)).rows[0]?.n ?? 0);

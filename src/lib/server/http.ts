@@ -1,3 +1,4 @@
+import type { APIContext } from 'astro';
 import type { z } from 'zod';
 import { zodIssuesToFields, zodIssuesToMessage } from '../validation';
 import { logSecurityEvent } from './security-log';
@@ -148,8 +149,8 @@ export function logServerFailure(method: string, path: string, error: unknown): 
 
 /** Wraps an endpoint so that an HttpError becomes its JSON answer and nothing else leaks. */
 export function handle(
-  work: (context: import('astro').APIContext) => Promise<Response>,
-): (context: import('astro').APIContext) => Promise<Response> {
+  work: (context: APIContext) => Response | Promise<Response>,
+): (context: APIContext) => Promise<Response> {
   return async (context) => {
     try {
       return await work(context);

@@ -32,7 +32,7 @@ async function decodeClaims(name: string, value: string): Promise<SessionClaims 
   secret ??= resolveAuthSecret();
   let token: { sub?: string; sv?: number; exp?: number } | null;
   try {
-    token = (await decode({ token: value, secret, salt: name })) as typeof token;
+    token = await decode<{ sub?: string; sv?: number; exp?: number }>({ token: value, secret, salt: name });
   } catch {
     return null;
   }

@@ -24,7 +24,7 @@ function renderForm(lifeLimitRuns: TeamSettingsAnswer['lifeLimitRuns'] = {}) {
   );
   return { user: userEvent.setup(), onCreated };
 }
-const limitInput = () => screen.getByLabelText('Life limit, in runs') as HTMLInputElement;
+const limitInput = () => screen.getByLabelText<HTMLInputElement>('Life limit, in runs');
 
 describe('the add-part form', () => {
   it('shows the ratio as the tooth counts are typed', async () => {

@@ -90,7 +90,7 @@ describe('the import preview', () => {
     );
     expect(screen.getByTestId('import-summary').textContent).toBe('runs.csv: 2 rows read — 2 ready, 0 with problems.');
     expect(screen.queryByRole('checkbox')).toBeNull();
-    expect((screen.getByRole('button', { name: 'Import 2 runs' }) as HTMLButtonElement).disabled).toBe(false);
+    expect(screen.getByRole<HTMLButtonElement>('button', { name: 'Import 2 runs' }).disabled).toBe(false);
   });
 
   it('counts lines the way the server does when a row is malformed', async () => {

@@ -104,7 +104,7 @@ describe('the log-run form', () => {
 
   it('logs a valid run with the prefilled event, reads a decimal comma, and starts the next one', async () => {
     const { user, send, onSaved } = renderForm();
-    expect((screen.getByLabelText('Event') as HTMLInputElement).value).toBe('Dry Lake Autumn Invitational');
+    expect(screen.getByLabelText<HTMLInputElement>('Event').value).toBe('Dry Lake Autumn Invitational');
     await user.click(screen.getByRole('radio', { name: /714 Ember/ }));
     await user.click(screen.getByRole('button', { name: 'Q2' }));
     await user.click(screen.getByRole('button', { name: 'Left lane' }));
@@ -128,8 +128,8 @@ describe('the log-run form', () => {
       'Every part in the car counts it.',
     );
     expect(screen.queryByRole('alert')).toBeNull();
-    expect((screen.getByRole('radio', { name: /714 Ember/ }) as HTMLInputElement).checked).toBe(false);
-    expect((screen.getByLabelText('Event') as HTMLInputElement).value).toBe('Dry Lake Autumn Invitational');
-    expect((screen.getByLabelText(/ET, seconds/) as HTMLInputElement).value).toBe('');
+    expect(screen.getByRole<HTMLInputElement>('radio', { name: /714 Ember/ }).checked).toBe(false);
+    expect(screen.getByLabelText<HTMLInputElement>('Event').value).toBe('Dry Lake Autumn Invitational');
+    expect(screen.getByLabelText<HTMLInputElement>(/ET, seconds/).value).toBe('');
   });
 });

@@ -45,7 +45,7 @@ describe('the parts page’s actions', () => {
     expect(calls.map((c) => c.path)).toEqual(['/api/team/settings']);
     expect(await screen.findByLabelText('Serial')).toBeTruthy();
     expect(screen.getByRole('heading', { name: 'Add a part' })).toBeTruthy();
-    await vi.waitFor(() => expect((screen.getByLabelText('Life limit, in runs') as HTMLInputElement).value).toBe('40'));
+    await vi.waitFor(() => expect(screen.getByLabelText<HTMLInputElement>('Life limit, in runs').value).toBe('40'));
     // The form read the request the button started; it did not ask again.
     expect(calls.filter((c) => c.path === '/api/team/settings')).toHaveLength(1);
   });

@@ -4,6 +4,7 @@ import { join } from 'node:path';
 import { createClient } from '@libsql/client';
 import { sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import type * as clientModule from '../../../src/db/client';
 import { holdWriteLock } from '../../helpers/lock-holder';
 
 /**
@@ -14,7 +15,8 @@ import { holdWriteLock } from '../../helpers/lock-holder';
  * write lock, no connection piles up, and every write of the process goes through one queue, in order.
  */
 
-type ClientModule = typeof import('../../../src/db/client');
+// Loaded after DATABASE_URL is set for this file; only its type is imported above.
+type ClientModule = typeof clientModule;
 
 let folder: string;
 let databaseUrl: string;

@@ -29,8 +29,10 @@ describe('shapePolarPreview', () => {
   it('keeps every point and the curve inside the drawing', () => {
     const shape = shapePolarPreview([0.3, 0.0, 0.0], 240);
     for (const p of shape.points) {
-      for (const v of [p.x, p.y, p.labelX, p.labelY])
-        (expect(v).toBeGreaterThanOrEqual(0), expect(v).toBeLessThanOrEqual(240));
+      for (const v of [p.x, p.y, p.labelX, p.labelY]) {
+        expect(v).toBeGreaterThanOrEqual(0);
+        expect(v).toBeLessThanOrEqual(240);
+      }
     }
     const numbers = shape.curve!.match(/[\d.]+/g)!.map(Number);
     expect(Math.min(...numbers)).toBeGreaterThanOrEqual(0);

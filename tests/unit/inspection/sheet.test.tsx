@@ -37,7 +37,7 @@ describe('the inspection sheet', { timeout: 20_000 }, () => {
     await user.type(screen.getByTestId('reading-1'), '13');
     expect(screen.getByTestId('reading-1-note').textContent).toBe('read as 0.13 mm (hundredths)');
     // The resolution follows the unit: a metric dial reads 0.01 mm.
-    expect((screen.getByLabelText('Indicator resolution') as HTMLSelectElement).value).toBe('0.01mm');
+    expect(screen.getByLabelText<HTMLSelectElement>('Indicator resolution').value).toBe('0.01mm');
   });
 
   it('moves to the next position on Enter, and from the last one to the next section', async () => {
@@ -76,7 +76,7 @@ describe('the inspection sheet', { timeout: 20_000 }, () => {
     vi.useFakeTimers({ shouldAdvanceTime: true });
     try {
       const { api, user } = await openSheet();
-      await waitFor(() => expect((screen.getByTestId('runs') as HTMLInputElement).value).toBe('44'));
+      await waitFor(() => expect(screen.getByTestId<HTMLInputElement>('runs').value).toBe('44'));
       await user.type(screen.getByTestId('reading-1'), '8');
       await act(() => vi.advanceTimersByTimeAsync(2000));
       await waitFor(() =>
@@ -109,7 +109,7 @@ describe('the inspection sheet', { timeout: 20_000 }, () => {
 
   it('asks why when the runs figure differs from Lashline’s count', async () => {
     const { user } = await openSheet();
-    const runs = screen.getByTestId('runs') as HTMLInputElement;
+    const runs = screen.getByTestId<HTMLInputElement>('runs');
     await waitFor(() => expect(runs.value).toBe('44'));
     expect(screen.queryByLabelText(/Why does the runs figure differ/)).toBeNull();
     await user.clear(runs);
@@ -125,14 +125,14 @@ describe('the inspection sheet', { timeout: 20_000 }, () => {
     cleanup();
     renderSheet(url);
     expect(await screen.findByTestId('restored')).toBeTruthy();
-    expect((screen.getByTestId('reading-1') as HTMLInputElement).value).toBe('9');
+    expect(screen.getByTestId<HTMLInputElement>('reading-1').value).toBe('9');
     expect(screen.getByTestId('reading-1-note').textContent).toBe('read as 0.009 in (thousandths)');
-    expect((screen.getByTestId('notes') as HTMLTextAreaElement).value).toBe('Light marks on the coast side.');
+    expect(screen.getByTestId<HTMLTextAreaElement>('notes').value).toBe('Light marks on the coast side.');
   });
 
   it('puts a server field error beside its field', async () => {
     const { api, user } = await openSheet();
-    await waitFor(() => expect((screen.getByTestId('runs') as HTMLInputElement).value).toBe('44'));
+    await waitFor(() => expect(screen.getByTestId<HTMLInputElement>('runs').value).toBe('44'));
     const message = 'Reading 2: at most 2.5 mm (0.0984 in).';
     api.state.createAnswer = {
       status: 400,

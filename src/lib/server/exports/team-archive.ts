@@ -102,8 +102,7 @@ export const archiveSchema = z
 
 function revive(row: Record<string, unknown>): Record<string, unknown> {
   const copy: Record<string, unknown> = { ...row };
-  for (const column of DATE_COLUMNS)
-    if (typeof copy[column] === 'string') copy[column] = new Date(copy[column] as string);
+  for (const column of DATE_COLUMNS) if (typeof copy[column] === 'string') copy[column] = new Date(copy[column]);
   return copy;
 }
 
@@ -146,7 +145,7 @@ export async function importTeamArchive(
         const copy = revive(row);
         copy.teamId = teamId;
         for (const column of PERSON_COLUMNS[name] ?? [])
-          if (typeof copy[column] === 'string') copy[column] = personMap.get(copy[column] as string) ?? null;
+          if (typeof copy[column] === 'string') copy[column] = personMap.get(copy[column]) ?? null;
         if (name === 'reviewComments')
           copy.mentions = ((copy.mentions as string[]) ?? []).map((id) => personMap.get(id) ?? id);
         return copy;

@@ -144,17 +144,15 @@ export async function createProfile(
   const profileId = randomUUID();
   await write(async (tx) => {
     const id = randomUUID();
-    await tx
-      .insert(toleranceProfileVersions)
-      .values({
-        id,
-        teamId: access.team.id,
-        profileId,
-        version: 1,
-        name: input.name,
-        values: input.values,
-        createdBy: access.user.id,
-      });
+    await tx.insert(toleranceProfileVersions).values({
+      id,
+      teamId: access.team.id,
+      profileId,
+      version: 1,
+      name: input.name,
+      values: input.values,
+      createdBy: access.user.id,
+    });
     await recordAudit(tx, {
       teamId: access.team.id,
       actorId: access.user.id,
@@ -175,17 +173,15 @@ export async function updateProfile(
 ): Promise<ProfileView> {
   const current = await getProfile(access.team.id, profileId);
   await write(async (tx) => {
-    await tx
-      .insert(toleranceProfileVersions)
-      .values({
-        id: randomUUID(),
-        teamId: access.team.id,
-        profileId,
-        version: current.version + 1,
-        name: input.name ?? current.name,
-        values: input.values,
-        createdBy: access.user.id,
-      });
+    await tx.insert(toleranceProfileVersions).values({
+      id: randomUUID(),
+      teamId: access.team.id,
+      profileId,
+      version: current.version + 1,
+      name: input.name ?? current.name,
+      values: input.values,
+      createdBy: access.user.id,
+    });
     await recordAudit(tx, {
       teamId: access.team.id,
       actorId: access.user.id,

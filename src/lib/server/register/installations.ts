@@ -94,20 +94,18 @@ export async function recordInstallation(
       targetId = last.targetId;
     }
     const id = randomUUID();
-    await tx
-      .insert(installationEvents)
-      .values({
-        id,
-        teamId,
-        action: input.action,
-        subjectType,
-        subjectId,
-        targetType,
-        targetId,
-        at,
-        actorId: access.user.id,
-        notes: input.notes ?? null,
-      });
+    await tx.insert(installationEvents).values({
+      id,
+      teamId,
+      action: input.action,
+      subjectType,
+      subjectId,
+      targetType,
+      targetId,
+      at,
+      actorId: access.user.id,
+      notes: input.notes ?? null,
+    });
     if (subjectType === 'part') await followStatus(tx, subjectId, input.action);
     const view: InstallationEventView = {
       id,

@@ -219,16 +219,14 @@ export async function addComment(access: TeamAccess, reviewId: string, body: str
   const set = await db.select({ serial: parts.serial }).from(parts).where(eq(parts.id, review.gearSetId)).get();
   const id = randomUUID();
   await write(async (tx) => {
-    await tx
-      .insert(reviewComments)
-      .values({
-        id,
-        teamId: access.team.id,
-        reviewId,
-        authorId: access.user.id,
-        body,
-        mentions: mentioned.map((m) => m.id),
-      });
+    await tx.insert(reviewComments).values({
+      id,
+      teamId: access.team.id,
+      reviewId,
+      authorId: access.user.id,
+      body,
+      mentions: mentioned.map((m) => m.id),
+    });
     await recordAudit(tx, {
       teamId: access.team.id,
       actorId: access.user.id,
@@ -273,20 +271,18 @@ export async function decideReview(
     if (input.decision === 'retire') {
       status = 'retired';
       if (where)
-        await tx
-          .insert(installationEvents)
-          .values({
-            id: randomUUID(),
-            teamId: access.team.id,
-            action: 'remove',
-            subjectType: 'part',
-            subjectId: review.gearSetId,
-            targetType: where.targetType,
-            targetId: where.targetId,
-            at: now,
-            actorId: access.user.id,
-            notes: 'Retired by review decision',
-          });
+        await tx.insert(installationEvents).values({
+          id: randomUUID(),
+          teamId: access.team.id,
+          action: 'remove',
+          subjectType: 'part',
+          subjectId: review.gearSetId,
+          targetType: where.targetType,
+          targetId: where.targetId,
+          at: now,
+          actorId: access.user.id,
+          notes: 'Retired by review decision',
+        });
     }
     await tx.update(parts).set({ status }).where(eq(parts.id, review.gearSetId));
     const [row] = await tx

@@ -47,7 +47,7 @@ export function createFilesystemStorage(folder: string): ObjectStorage {
         const extension = key.slice(key.lastIndexOf('.') + 1);
         return {
           // readFile's Buffer is never backed by a SharedArrayBuffer.
-          body: new Uint8Array(bytes.buffer as ArrayBuffer, bytes.byteOffset, bytes.byteLength),
+          body: new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength),
           contentType: CONTENT_TYPES[extension] ?? 'application/octet-stream',
           size: bytes.byteLength,
         };

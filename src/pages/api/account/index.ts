@@ -4,7 +4,7 @@ import { requireUser } from '../../../lib/server/guard';
 import { handle, json, readJson } from '../../../lib/server/http';
 
 /** The signed-in person, with their current team and role. */
-export const GET = handle(async ({ locals }) => {
+export const GET = handle(({ locals }) => {
   const user = requireUser(locals);
   return json({ ...user, team: locals.team });
 });

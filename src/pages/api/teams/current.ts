@@ -4,7 +4,7 @@ import { handle, json, readJson } from '../../../lib/server/http';
 import { findRole, switchTeam } from '../../../lib/server/teams';
 
 /** The current team. */
-export const GET = handle(async ({ locals }) => {
+export const GET = handle(({ locals }) => {
   requireUser(locals);
   return json({ team: locals.team });
 });

@@ -6,5 +6,5 @@ export function stubResizeObserver(): void {
     observe(): void {}
     unobserve(): void {}
     disconnect(): void {}
-  } as unknown as typeof ResizeObserver;
+  };
 }
