@@ -14,7 +14,7 @@ import { noiseImage } from '../tests/helpers/images';
 import { createInspection } from '../tests/helpers/inspections';
 import { percentile } from '../tests/helpers/load';
 import { startServer } from '../tests/helpers/server';
-import { createRandom, pickInteger } from '../tests/unit/analysis/seeded-random';
+import { createRandom, pickInteger } from '../tests/helpers/seeded-random';
 
 const kills = Number(process.argv[2] ?? 100);
 const seed = Number(process.argv[3] ?? Date.now() % 100_000);

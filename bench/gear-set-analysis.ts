@@ -5,7 +5,7 @@
  *   npm run build && npx tsx bench/gear-set-analysis.ts [inspections] [requests]
  */
 import { signedInClient } from '../tests/helpers/api-client';
-import { draftBody, submitInspection } from '../tests/helpers/inspection';
+import { draftBody, submitInspection } from '../tests/helpers/inspections';
 import { startServer } from '../tests/helpers/server';
 
 const count = Number(process.argv[2] ?? 200);

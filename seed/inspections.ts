@@ -1,8 +1,8 @@
 import { randomUUID } from 'node:crypto';
 import { write } from '../src/db/client';
 import { inspections } from '../src/db/schema';
-import { draftToData } from '../src/lib/inspection/record';
-import { inspectionDraftSchema } from '../src/lib/inspection/schemas';
+import { draftToData } from '../src/lib/inspections/record';
+import { inspectionDraftSchema } from '../src/lib/inspections/schemas';
 import { ensureDefaultProfile, profileForGearSet } from '../src/lib/server/inspections/profiles';
 import { countRunsForPart } from '../src/lib/server/register/run-counts';
 import type { SeededPeople } from './people';

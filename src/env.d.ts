@@ -2,10 +2,12 @@
 
 declare namespace App {
   interface Locals {
-    /** The signed-in person, read from the database on this request; null when signed out. */
+    /** The signed-in person (`loadSession` in lib/server/session.ts); null when signed out. */
     user: import('./lib/server/accounts').PublicUser | null;
-    /** The person's current team and their role in it, read fresh on this request. */
+    /** The person's current team and their role in it (`loadSession`). */
     team: { id: string; name: string; role: import('./lib/roles').Role; secondFactorMissing?: boolean } | null;
+    /** Why a page guard refused this request; set only while the refusal page renders. */
+    refusal?: string;
   }
 }
 

@@ -1,12 +1,15 @@
 import { defineMiddleware, sequence } from 'astro:middleware';
-import { bodyLimitFor, errorResponse, HttpError } from './lib/server/http';
+import { bodyLimitFor } from './lib/server/body-limits';
+import { errorResponse, HttpError, tooLargeFor } from './lib/server/http';
 import { applySecurityHeaders } from './lib/security-headers.mjs';
+import { PageExit } from './lib/server/guard';
 import { loadSession } from './lib/server/session';
 import { ensureStarted } from './lib/server/startup';
 import { runSignInAttempt, signInRetryAfterSeconds } from './lib/server/sign-in-limiter';
 import { logSecurityEvent } from './lib/server/security-log';
 
 const SIGN_IN_CALLBACK = '/api/auth/callback/credentials';
+const REFUSAL_PAGE = '/not-allowed';
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
 /** Security headers on every answer, errors included. */
@@ -35,7 +38,8 @@ const startup = defineMiddleware(async (_context, next) => {
 
 /**
  * JSON endpoints that change state refuse a foreign Origin (Astro's own check covers form posts),
- * and refuse a body over its route's limit (1 MB, more for uploads and imports) before reading it.
+ * and refuse a body declared larger than its route's limit (the table in lib/server/body-limits.ts)
+ * before reading it.
  */
 const apiGate = defineMiddleware(async ({ request, url }, next) => {
   if (!url.pathname.startsWith('/api/') || SAFE_METHODS.has(request.method)) return next();
@@ -45,12 +49,7 @@ const apiGate = defineMiddleware(async ({ request, url }, next) => {
     return errorResponse(new HttpError(403, `Requests from ${origin} are not accepted; use Lashline's own pages.`));
   }
   const declared = Number(request.headers.get('content-length') ?? '0');
-  const limit = bodyLimitFor(url.pathname);
-  if (declared > limit) {
-    return errorResponse(
-      new HttpError(413, `The request body is larger than ${Math.floor(limit / (1024 * 1024))} MB; send less.`),
-    );
-  }
+  if (declared > bodyLimitFor(url.pathname)) return errorResponse(tooLargeFor(url.pathname));
   return next();
 });
 
@@ -81,10 +80,25 @@ const signInLimit = defineMiddleware(async (context, next) => {
   return runSignInAttempt(context.clientAddress, next);
 });
 
-/** The person and their role, read from the database on every request. */
+/**
+ * A page guard (`requirePageAccess`) ends the response by throwing: a redirect, or the refusal page
+ * (status 403) rendered in the place of the page, at the page's own address.
+ */
+const pageExits = defineMiddleware(async (context, next) => {
+  try {
+    return await next();
+  } catch (error) {
+    if (!(error instanceof PageExit)) throw error;
+    if ('redirect' in error.exit) return context.redirect(error.exit.redirect);
+    context.locals.refusal = error.exit.message;
+    return context.rewrite(REFUSAL_PAGE);
+  }
+});
+
+/** The person and their role in the current team, through `loadSession` (its cache rules are there). */
 const session = defineMiddleware(async ({ cookies, locals }, next) => {
   Object.assign(locals, await loadSession((name) => cookies.get(name)?.value));
   return next();
 });
 
-export const onRequest = sequence(securityHeaders, startup, apiGate, signInLimit, session);
+export const onRequest = sequence(securityHeaders, startup, apiGate, signInLimit, session, pageExits);

@@ -1,6 +1,10 @@
 import { sql } from 'drizzle-orm';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 
+import type { ToleranceProfile } from '../lib/analysis/tolerance';
+import type { InspectionData } from '../lib/inspections/record';
+import type { NoticeKind } from '../lib/notices/compose';
+import type { TeamSettings } from '../lib/register/team-settings';
 import { ROLES } from '../lib/roles';
 import { PART_KINDS, PART_STATUSES } from '../lib/register/kinds';
 
@@ -108,8 +112,8 @@ export const auditEvents = sqliteTable(
     action: text('action').notNull(),
     recordType: text('record_type').notNull(),
     recordId: text('record_id').notNull(),
-    before: text('before', { mode: 'json' }),
-    after: text('after', { mode: 'json' }),
+    before: text('before', { mode: 'json' }).$type<unknown>(),
+    after: text('after', { mode: 'json' }).$type<unknown>(),
     at: createdAt(),
   },
   (table) => [index('audit_team_record_idx').on(table.teamId, table.recordType, table.recordId)],
@@ -127,7 +131,7 @@ export const teamSettings = sqliteTable('team_settings', {
   teamId: text('team_id')
     .primaryKey()
     .references(() => teams.id, { onDelete: 'cascade' }),
-  values: text('values', { mode: 'json' }).notNull(),
+  values: text('values', { mode: 'json' }).$type<Partial<TeamSettings>>().notNull(),
   updatedAt: createdAt(),
 });
 
@@ -274,7 +278,7 @@ export const toleranceProfileVersions = sqliteTable(
     profileId: text('profile_id').notNull(),
     version: integer('version').notNull(),
     name: text('name').notNull(),
-    values: text('values', { mode: 'json' }).notNull(),
+    values: text('values', { mode: 'json' }).$type<ToleranceProfile>().notNull(),
     createdBy: text('created_by').references(() => users.id),
     createdAt: createdAt(),
   },
@@ -288,7 +292,7 @@ export const INSPECTION_STATUSES = ['draft', 'submitted'] as const;
 
 /**
  * One teardown inspection of a gear set. `data` holds every measurement in canonical units (mm,
- * N·m) with the entry unit and the resolution beside it (src/lib/inspection/record.ts).
+ * N·m) with the entry unit and the resolution beside it (src/lib/inspections/record.ts).
  */
 export const inspections = sqliteTable(
   'inspections',
@@ -304,7 +308,7 @@ export const inspections = sqliteTable(
     status: text('status', { enum: INSPECTION_STATUSES }).notNull().default('draft'),
     inspectedAt: integer('inspected_at', { mode: 'timestamp_ms' }).notNull(),
     runsAtInspection: integer('runs_at_inspection').notNull(),
-    data: text('data', { mode: 'json' }).notNull(),
+    data: text('data', { mode: 'json' }).$type<InspectionData>().notNull(),
     profileVersionId: text('profile_version_id').references(() => toleranceProfileVersions.id),
     technicianId: text('technician_id').references(() => users.id),
     createdBy: text('created_by')
@@ -410,7 +414,7 @@ export const reviewComments = sqliteTable(
       .notNull()
       .references(() => users.id),
     body: text('body').notNull(),
-    mentions: text('mentions', { mode: 'json' }).notNull(),
+    mentions: text('mentions', { mode: 'json' }).$type<string[]>().notNull(),
     createdAt: createdAt(),
   },
   (table) => [index('review_comments_review_idx').on(table.reviewId)],
@@ -435,7 +439,7 @@ export const noticePreferences = sqliteTable(
     teamId: text('team_id')
       .notNull()
       .references(() => teams.id, { onDelete: 'cascade' }),
-    muted: text('muted', { mode: 'json' }).notNull(),
+    muted: text('muted', { mode: 'json' }).$type<NoticeKind[]>().notNull(),
     updatedAt: createdAt(),
   },
   (table) => [primaryKey({ columns: [table.userId, table.teamId] })],

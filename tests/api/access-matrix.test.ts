@@ -1,8 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ApiClient, signedInClient } from '../helpers/api-client';
 import { uploadPhoto } from '../helpers/images';
-import { draftBody, newKey } from '../helpers/inspection';
-import { createInspection } from '../helpers/inspections';
+import { createInspection, draftBody, newKey } from '../helpers/inspections';
 import { freshSerial, makeTeamRecords, recordsToParams, smallPng, type TeamRecords } from '../helpers/records';
 import { fillPattern, listApiEndpoints } from '../helpers/routes';
 import { startServer, type RunningServer } from '../helpers/server';

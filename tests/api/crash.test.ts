@@ -11,7 +11,7 @@ import { fetchPhoto, noiseImage } from '../helpers/images';
 import { createInspection } from '../helpers/inspections';
 import { startServer, type RunningServer } from '../helpers/server';
 import { SmtpFake } from '../helpers/smtp-fake';
-import { createRandom, pickInteger } from '../unit/analysis/seeded-random';
+import { createRandom, pickInteger } from '../helpers/seeded-random';
 
 /**
  * kill -9 in the middle of writes, five times (bench/crash-restart.ts does it a hundred times):

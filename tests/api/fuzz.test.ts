@@ -15,7 +15,7 @@ import {
   queryString,
 } from '../helpers/hostile';
 import { noiseImage, pngBomb, pngHeaderBomb, uploadPhoto } from '../helpers/images';
-import { draftBody } from '../helpers/inspection';
+import { draftBody } from '../helpers/inspections';
 import { makeTeamRecords, recordsToParams, type TeamRecords } from '../helpers/records';
 import { listApiRoutes, patternParams } from '../helpers/routes';
 import { startServer, type RunningServer } from '../helpers/server';

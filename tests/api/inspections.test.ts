@@ -1,7 +1,7 @@
 import { createClient } from '@libsql/client';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { signedInClient, type ApiClient } from '../helpers/api-client';
-import { draftBody, newKey, submitInspection } from '../helpers/inspection';
+import { draftBody, newKey, submitInspection } from '../helpers/inspections';
 import { startServer, type RunningServer } from '../helpers/server';
 import { SmtpFake } from '../helpers/smtp-fake';
 import { makeTeamOfFour, type TeamOfFour } from '../helpers/team';

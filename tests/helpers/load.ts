@@ -1,6 +1,6 @@
 import { performance } from 'node:perf_hooks';
 import type { ApiClient } from './api-client';
-import { draftBody } from './inspection';
+import { draftBody } from './inspections';
 
 /**
  * Concurrent write traffic for the load test and bench/load-writes.ts: clients logging runs and

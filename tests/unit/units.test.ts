@@ -14,7 +14,7 @@ import {
   torqueUnitToLabel,
 } from '../../src/lib/units';
 import type { IndicatorResolution, IndicatorResolutionId, LengthUnit, TorqueUnit } from '../../src/lib/units';
-import { createRandom, pickBetween } from './analysis/seeded-random';
+import { createRandom, pickBetween } from '../helpers/seeded-random';
 
 function resolution(id: IndicatorResolutionId): IndicatorResolution {
   const found = findResolution(id);

@@ -1,5 +1,5 @@
 import { toGearSetChartInput, type GearSetChartInput } from '../../lib/charts/gear-set-input';
-import type { GearSetAnalysis } from '../../lib/inspection/gear-set-analysis';
+import type { GearSetAnalysis } from '../../lib/inspections/gear-set-analysis';
 import type { TeamAccess } from '../../lib/server/guard';
 import { HttpError } from '../../lib/server/http';
 import { analyseStoredGearSet } from '../../lib/server/inspections/gear-set-analysis';

@@ -5,27 +5,16 @@ import { summariseBacklash } from './backlash';
 import { judgeBacklash } from './judge';
 import { computeTighteningSequence } from './tightening-sequence';
 import { fitTrendLine, projectTrend } from './trend';
+import type { HarmonicFit } from './harmonic-fit';
 import type { MeasureVerdict } from './judge';
 import type { BacklashRequest, TrendRequest } from './schemas';
+import type { ReadingStatistics } from './statistics';
 import type { TrendReason } from './trend';
 
 /** Response of POST /api/analysis/backlash; every length in the request's unit. */
-export interface BacklashAnalysis {
+export interface BacklashAnalysis extends ReadingStatistics {
   readonly unit: 'in' | 'mm';
-  readonly count: number;
-  readonly mean: number;
-  readonly min: number;
-  readonly max: number;
-  readonly spread: number;
-  readonly sd: number;
-  readonly harmonic: {
-    readonly a: number;
-    readonly b: number;
-    readonly amplitude: number;
-    readonly loosestAngleDeg: number | null;
-    readonly tightestAngleDeg: number | null;
-    readonly residuals: number[];
-  };
+  readonly harmonic: HarmonicFit;
   readonly runoutEstimate?: { readonly k: number; readonly deltaDeg: number; readonly tir: number };
   readonly verdicts?: MeasureVerdict[];
 }

@@ -5,6 +5,7 @@
 
 import { fitFirstHarmonic, MIN_POSITIONS } from '../analysis/harmonic-fit';
 import { computeMean } from '../analysis/statistics';
+import { DEG, polarToXY, roundCoordinate as round } from './polar-geometry';
 import type { IndicatorResolutionId, LengthUnit } from '../units';
 import { coarsestResolution, lengthToText, resolutionStep, stepTicks, valueDomain } from './format';
 
@@ -56,14 +57,7 @@ export interface PolarShape {
   summary: string;
 }
 
-const DEG = Math.PI / 180;
-const round = (n: number) => Math.round(n * 100) / 100;
 const MARKS: PolarSeriesShape['mark'][] = ['circle', 'square'];
-
-/** Clockwise from the top, as the ring gear is drawn. */
-export function polarToXY(centre: number, radius: number, angleDeg: number): { x: number; y: number } {
-  return { x: round(centre + radius * Math.sin(angleDeg * DEG)), y: round(centre - radius * Math.cos(angleDeg * DEG)) };
-}
 
 function circlePath(centre: number, r: number): string {
   return `M${round(centre - r)} ${centre} a${round(r)} ${round(r)} 0 1 0 ${round(2 * r)} 0 a${round(r)} ${round(r)} 0 1 0 ${round(-2 * r)} 0`;

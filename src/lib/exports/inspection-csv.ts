@@ -1,6 +1,6 @@
 import Papa from 'papaparse';
 import { findResolution } from '../units';
-import type { InspectionData } from '../inspection/record';
+import type { InspectionData } from '../inspections/record';
 
 /**
  * An inspection as CSV, one row per backlash reading: the value as typed with its unit, the same in

@@ -10,7 +10,9 @@ export function reachedThresholds(
 ): ('near-limit' | 'life-reached')[] {
   if (lifeLimitRuns === null || lifeLimitRuns <= 0) return [];
   const reached: ('near-limit' | 'life-reached')[] = [];
-  if (totalRuns >= lifeLimitRuns - Math.ceil(nearShare * lifeLimitRuns)) reached.push('near-limit');
+  // Runs left within the share, compared as numbers (a 7 % share of 100 is 7 runs, not the 7.000000000000001
+  // that rounding up would make 8).
+  if (lifeLimitRuns - totalRuns <= nearShare * lifeLimitRuns + 1e-9) reached.push('near-limit');
   if (totalRuns >= lifeLimitRuns) reached.push('life-reached');
   return reached;
 }

@@ -18,7 +18,10 @@ export const RUN_CSV_COLUMNS = [
 ] as const;
 
 export interface RowProblem {
-  /** The line of the file, counting the header as line 1. */
+  /**
+   * The record's line: the header is line 1 and each record the next. Blank lines are skipped and not
+   * counted (a file of runs seldom has one), so after a blank line this is the record's row number.
+   */
   line: number;
   fields: Record<string, string>;
 }
@@ -92,7 +95,8 @@ export function checkRunRecords(
       delete fields.carId;
       fields.car = record.car?.trim() ? `No car called “${record.car.trim()}” in this team.` : 'Name the car.';
     }
-    const ahead = parsed.success ? checkRunTime(parsed.data.at, now) : null;
+    // A date too far ahead is named even when something else in the row is wrong too.
+    const ahead = !fields.at && typeof body.at === 'string' && body.at ? checkRunTime(body.at, now) : null;
     if (ahead) fields.at = ahead;
     if (parsed.success && Object.keys(fields).length === 0) check.valid.push({ line, run: parsed.data });
     else check.problems.push({ line, fields });

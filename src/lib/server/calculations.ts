@@ -2,6 +2,7 @@ import type { APIRoute } from 'astro';
 import type { z } from 'zod';
 import { analyseBacklash, analyseTrend, tighteningSequence } from '../analysis';
 import { backlashRequestSchema, tighteningQuerySchema, trendRequestSchema } from '../analysis/schemas';
+import { bodyLimitFor } from './body-limits';
 import { requireMember } from './guard';
 import { handle, json, parseWith, readJson } from './http';
 
@@ -25,9 +26,7 @@ function defineCalculation<S extends z.ZodType>(calculation: Calculation<S>): Ca
   return calculation;
 }
 
-// 24 readings and a profile fit in well under 1 KB; 1000 trend points are about 40 KB of JSON.
-// 64 KB leaves room for whitespace and nothing more.
-const MAX_BODY_BYTES = 64 * 1024;
+const MAX_BODY_BYTES = bodyLimitFor('/api/analysis/');
 
 /** Every calculation route, by name. */
 export const CALCULATIONS = {

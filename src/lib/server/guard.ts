@@ -38,11 +38,12 @@ export function requirePermission(locals: App.Locals, permission: Permission): T
 }
 
 export type PageAccess =
-  { ok: true; access: TeamAccess } | { ok: false; redirect?: string; status?: number; message?: string };
+  { ok: true; access: TeamAccess } | { ok: false; redirect: string } | { ok: false; status: 403; message: string };
 
 /**
- * The same guard for pages: where to send a visitor who may not see the page.
- * Signed out → sign-in (and back); no team → create one; role lacking → 403 with a message.
+ * The decision for a page: where to send a visitor who may not see it. Signed out → sign-in (and back);
+ * no team → create one; a second factor the team requires → the account page; role lacking → 403 with
+ * a message naming the role.
  */
 export function checkPageAccess(locals: App.Locals, url: URL, permission: Permission = 'team:read'): PageAccess {
   if (!locals.user) return { ok: false, redirect: `/sign-in?next=${encodeURIComponent(url.pathname + url.search)}` };
@@ -56,4 +57,22 @@ export function checkPageAccess(locals: App.Locals, url: URL, permission: Permis
     };
   }
   return { ok: true, access: { user: locals.user, team: locals.team } };
+}
+
+/** Thrown by `requirePageAccess`; the middleware (`pageExits`) turns it into the redirect or the refusal page. */
+export class PageExit extends Error {
+  constructor(readonly exit: Exclude<PageAccess, { ok: true }>) {
+    super('redirect' in exit ? `redirect to ${exit.redirect}` : exit.message);
+  }
+}
+
+/**
+ * The guard of every page: the access, or the response ends here (a redirect, or the 403 page naming
+ * what the role cannot do), so the page's next line runs only for someone allowed to see it.
+ * @example const access = requirePageAccess(Astro.locals, Astro.url, 'audit:read');
+ */
+export function requirePageAccess(locals: App.Locals, url: URL, permission: Permission = 'team:read'): TeamAccess {
+  const decision = checkPageAccess(locals, url, permission);
+  if (!decision.ok) throw new PageExit(decision);
+  return decision.access;
 }

@@ -1,6 +1,7 @@
 import type { APIContext } from 'astro';
 import type { z } from 'zod';
 import { zodIssuesToFields, zodIssuesToMessage } from '../validation';
+import { bodyLimitFor, findBodyLimit } from './body-limits';
 import { logSecurityEvent } from './security-log';
 
 /** An error that already knows its HTTP status and the message the client should read. */
@@ -13,17 +14,6 @@ export class HttpError extends Error {
   ) {
     super(message);
   }
-}
-
-export const MAX_JSON_BYTES = 1024 * 1024;
-
-/** Body limits above the 1 MB default, by route: photo uploads and CSV imports. */
-export function bodyLimitFor(pathname: string): number {
-  // A wide gate here; the photo route itself refuses past 15 MB with a message naming the file.
-  if (/^\/api\/inspections\/[^/]+\/photos$/.test(pathname)) return 16 * 1024 * 1024;
-  if (pathname === '/api/runs/import') return 5 * 1024 * 1024;
-  if (pathname === '/api/imports/team') return 64 * 1024 * 1024;
-  return MAX_JSON_BYTES;
 }
 
 /** The headers of every JSON answer. */
@@ -82,6 +72,14 @@ export async function readBodyText(request: Request, maxBytes: number): Promise<
   return (await readBodyBytes(request, maxBytes)).toString('utf8');
 }
 
+/** The 413 for a body sent to `pathname` past its cap, in the route's own words where it has them. */
+export function tooLargeFor(pathname: string, headers?: Record<string, string>): HttpError {
+  const limit = findBodyLimit(pathname);
+  return limit.refusal
+    ? new HttpError(413, limit.refusal.message, limit.refusal.fields, headers)
+    : tooLarge(limit.bytes, headers);
+}
+
 /** The 413 for a body past `maxBytes`, with the limit in words. */
 export function tooLarge(maxBytes: number, headers?: Record<string, string>): HttpError {
   const size = maxBytes >= 1024 * 1024 ? `${maxBytes / (1024 * 1024)} MB` : `${maxBytes / 1024} KB`;
@@ -95,7 +93,7 @@ export function tooLarge(maxBytes: number, headers?: Record<string, string>): Ht
 export async function readJson<S extends z.ZodType>(
   request: Request,
   schema: S,
-  maxBytes = MAX_JSON_BYTES,
+  maxBytes = bodyLimitFor(new URL(request.url).pathname),
 ): Promise<z.infer<S>> {
   if (!isJsonContentType(request.headers.get('content-type'))) {
     throw new HttpError(415, 'Send the body as JSON with Content-Type: application/json.');

@@ -1,13 +1,15 @@
-import { MAX_PHOTO_BYTES, MULTIPART_OVERHEAD_BYTES, photoFieldsSchema, type PhotoSide } from '../photos/upload-rules';
-import { HttpError, parseWith, readBodyBytes } from './http';
+import { MAX_PHOTO_BYTES, photoFieldsSchema, type PhotoSide } from '../photos/upload-rules';
+import { bodyLimitFor } from './body-limits';
+import { HttpError, parseWith, readBodyBytes, tooLargeFor } from './http';
 
 export interface PhotoUpload {
   bytes: Uint8Array;
   side: PhotoSide;
 }
 
-const MAX_BODY_BYTES = MAX_PHOTO_BYTES + MULTIPART_OVERHEAD_BYTES;
-const LIMIT_MB = MAX_PHOTO_BYTES / (1024 * 1024);
+const PHOTO_ROUTE = '/api/inspections/:id/photos';
+const MAX_BODY_BYTES = bodyLimitFor(PHOTO_ROUTE);
+const tooLarge = (headers?: Record<string, string>) => tooLargeFor(PHOTO_ROUTE, headers);
 
 /**
  * Reads the multipart/form-data of a photo upload (`file`, `side`): 415 for another content type;
@@ -39,13 +41,4 @@ export async function readPhotoUpload(request: Request): Promise<PhotoUpload> {
   if (file.size > MAX_PHOTO_BYTES) throw tooLarge();
   const { side } = parseWith(photoFieldsSchema, { side: form.get('side') ?? undefined });
   return { bytes: new Uint8Array(await file.arrayBuffer()), side };
-}
-
-function tooLarge(headers?: Record<string, string>): HttpError {
-  return new HttpError(
-    413,
-    `file: a photo may be at most ${LIMIT_MB} MB; send a smaller one.`,
-    { file: `larger than ${LIMIT_MB} MB` },
-    headers,
-  );
 }

@@ -1,4 +1,4 @@
-import source from '../../components/inspection/sheet-worker.js?raw';
+import source from '../../components/inspections/sheet-worker.js?raw';
 
 /**
  * The inspection sheet's service worker. Served from here rather than public/ so that it carries a

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { fitFirstHarmonic, normaliseDegrees, positionToAngleDeg } from '../../../src/lib/analysis/harmonic-fit';
-import { createRandom, pickBetween, pickInteger } from './seeded-random';
+import { createRandom, pickBetween, pickInteger } from '../../helpers/seeded-random';
 
 const TWO_PI = 2 * Math.PI;
 

@@ -8,7 +8,7 @@ import {
   DEFAULT_PRESSURE_ANGLE_DEG,
   DEFAULT_PRESSURE_ANGLE_SOURCE,
 } from '../../../src/lib/analysis/runout';
-import { createRandom, pickBetween, pickInteger } from './seeded-random';
+import { createRandom, pickBetween, pickInteger } from '../../helpers/seeded-random';
 
 const DEG = Math.PI / 180;
 

@@ -1,7 +1,7 @@
 import { sampleStandardDeviation } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
 import { computeMean, summariseReadings } from '../../../src/lib/analysis/statistics';
-import { createRandom, pickBetween, pickInteger } from './seeded-random';
+import { createRandom, pickBetween, pickInteger } from '../../helpers/seeded-random';
 
 describe('summariseReadings', () => {
   it('reproduces the certified mean and sample SD of NumAcc1 exactly', () => {

@@ -2,7 +2,7 @@ import { linearRegression, rSquared } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
 import { computeRunsLeft, fitTrendLine, projectTrend } from '../../../src/lib/analysis/trend';
 import type { TrendPoint } from '../../../src/lib/analysis/trend';
-import { createRandom, pickBetween, pickInteger } from './seeded-random';
+import { createRandom, pickBetween, pickInteger } from '../../helpers/seeded-random';
 
 // NIST StRD Norris, as listed in TRADE.md: pairs "y x".
 const NORRIS_YX = [

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { shapeBacklashTrend } from '../../../src/lib/charts/backlash-trend';
-import { FALLING, makeInput, RISING } from './fixtures';
+import { FALLING, makeInput, RISING } from '../../helpers/chart-fixtures';
 
 describe('shapeBacklashTrend', () => {
   it('draws nothing for a set with no inspection and says what to do', () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { shapePreloadTrend, shapeRunoutTrend, shapeSpreadTrend } from '../../../src/lib/charts/measure-trends';
-import { makeInput, RISING } from './fixtures';
+import { makeInput, RISING } from '../../helpers/chart-fixtures';
 
 describe('shapeSpreadTrend', () => {
   it('draws each spread against its limit line', () => {

@@ -3,7 +3,7 @@ import { buildPartsTable, PART_COLUMNS } from '../../../src/lib/register/parts-t
 import { PART_COLUMN_IDS } from '../../../src/lib/register/parts-columns';
 import { DEFAULT_PARTS_VIEW, type PartsView } from '../../../src/lib/register/parts-view';
 import type { PartView } from '../../../src/lib/server/register/parts';
-import { LOOKUP, makePart, PARTS } from './part-fixtures';
+import { LOOKUP, makePart, PARTS } from '../../helpers/part-fixtures';
 
 function tableOf(view: Partial<PartsView>, parts: PartView[] = PARTS) {
   return buildPartsTable(parts, LOOKUP, 8, { ...DEFAULT_PARTS_VIEW, ...view });

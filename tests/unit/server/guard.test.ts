@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { checkPageAccess, requireMember, requirePermission, requireUser } from '../../../src/lib/server/guard';
+import {
+  checkPageAccess,
+  PageExit,
+  requireMember,
+  requirePageAccess,
+  requirePermission,
+  requireUser,
+} from '../../../src/lib/server/guard';
 import { HttpError } from '../../../src/lib/server/http';
 import { PERMISSIONS, ROLES, roleCan, type Role } from '../../../src/lib/roles';
 
@@ -68,8 +75,7 @@ describe('the server-side guard', () => {
   it('sends a person without a team to make one, and refuses a page the role may not open', () => {
     expect(checkPageAccess(localsFor(null), new URL('http://x.test/'))).toEqual({ ok: false, redirect: '/teams/new' });
     const refused = checkPageAccess(localsFor('viewer'), new URL('http://x.test/audit'), 'audit:read');
-    expect(refused.ok).toBe(false);
-    expect(refused.ok === false && refused.status).toBe(403);
+    expect(refused).toMatchObject({ ok: false, status: 403 });
   });
 });
 
@@ -89,5 +95,60 @@ describe('a team that requires a second factor', () => {
       ok: false,
       redirect: '/account?secondFactor=required',
     });
+  });
+});
+
+describe('the page guard', () => {
+  const page = new URL('http://x.test/parts?kind=gear-set');
+
+  /** What `requirePageAccess` ends the response with; fails if it lets the request through. */
+  function exitOf(work: () => unknown): PageExit['exit'] {
+    try {
+      work();
+    } catch (error) {
+      if (error instanceof PageExit) return error.exit;
+      throw error;
+    }
+    throw new Error('expected a PageExit');
+  }
+
+  it('returns the access to a role that may open the page', () => {
+    expect(requirePageAccess(localsFor('viewer'), page)).toEqual({
+      user: { ...user },
+      team: { id: 't1', name: 'Team', role: 'viewer' },
+    });
+    // A crew chief may read the audit trail (README, Roles).
+    expect(requirePageAccess(localsFor('crew-chief'), new URL('http://x.test/audit'), 'audit:read').team.role).toBe(
+      'crew-chief',
+    );
+  });
+
+  it('ends a signed-out visit with the sign-in redirect, back to the page after', () => {
+    expect(exitOf(() => requirePageAccess(localsFor(null, false), page))).toEqual({
+      ok: false,
+      redirect: '/sign-in?next=%2Fparts%3Fkind%3Dgear-set',
+    });
+  });
+
+  it('sends a person without a team to make one', () => {
+    expect(exitOf(() => requirePageAccess(localsFor(null), page))).toEqual({ ok: false, redirect: '/teams/new' });
+  });
+
+  it('sends a person the team asks for a second factor to the account page', () => {
+    const held: App.Locals = {
+      user: { ...user },
+      team: { id: 't1', name: 'Team', role: 'owner', secondFactorMissing: true },
+    };
+    expect(exitOf(() => requirePageAccess(held, page))).toEqual({
+      ok: false,
+      redirect: '/account?secondFactor=required',
+    });
+  });
+
+  it('refuses a role without the permission with 403 and a message naming the role', () => {
+    // A viewer may not read the audit trail (README, Roles).
+    const exit = exitOf(() => requirePageAccess(localsFor('viewer'), new URL('http://x.test/audit'), 'audit:read'));
+    expect(exit).toMatchObject({ ok: false, status: 403 });
+    expect('message' in exit && exit.message).toContain('viewer');
   });
 });

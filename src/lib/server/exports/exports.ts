@@ -4,7 +4,6 @@ import { installationEvents, parts, reviews } from '../../../db/schema';
 import { historyToCsv, type HistoryRow } from '../../exports/history-csv';
 import { inspectionToCsv } from '../../exports/inspection-csv';
 import { summariseRetirements, type RetirementSummary } from '../../exports/retirements';
-import type { InspectionData } from '../../inspection/record';
 import { HttpError } from '../http';
 import { requireTeamInspection } from '../inspections/access';
 import { listInspectionRows } from '../inspections/inspections';
@@ -25,7 +24,7 @@ export async function exportInspectionCsv(
     inspectedAt: row.inspectedAt.toISOString(),
     runsAtInspection: row.runsAtInspection,
     status: row.status,
-    data: row.data as InspectionData,
+    data: row.data,
   });
   return { filename: `lashline-inspection-${set.serial}-${row.inspectedAt.toISOString().slice(0, 10)}.csv`, csv };
 }
@@ -54,7 +53,7 @@ export async function exportGearSetHistoryCsv(
     });
   }
   for (const inspection of await listInspectionRows(teamId, gearSetId)) {
-    const data = inspection.data as InspectionData;
+    const data = inspection.data;
     const complete = data.backlashMm.every((r) => r !== null) && data.backlashMm.length >= 3;
     const summary = complete ? summariseBacklash(data.backlashMm as number[]) : null;
     rows.push({

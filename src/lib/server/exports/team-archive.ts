@@ -7,6 +7,7 @@ import type { TeamAccess } from '../guard';
 import { IMPORTED_ACCOUNT_HASH, type PublicUser } from '../accounts';
 import { HttpError } from '../http';
 import { recordAudit } from '../audit';
+import { resolveTeamSettings } from '../../register/team-settings';
 
 /**
  * The whole team as one JSON document, for backup and for leaving, and its import into another
@@ -139,7 +140,8 @@ export async function importTeamArchive(
     }
     await tx.insert(t.teams).values({ id: teamId, name: archive.team.name });
     await tx.insert(t.memberships).values({ teamId, userId: importer.id, role: 'owner' });
-    if (archive.settings) await tx.insert(t.teamSettings).values({ teamId, values: archive.settings });
+    if (archive.settings)
+      await tx.insert(t.teamSettings).values({ teamId, values: resolveTeamSettings(archive.settings) });
     for (const name of ORDER) {
       const rows = (archive[name] as Record<string, unknown>[]).map((row) => {
         const copy = revive(row);

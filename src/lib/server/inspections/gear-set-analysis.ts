@@ -1,6 +1,5 @@
-import { analyseGearSet, type GearSetAnalysis } from '../../inspection/gear-set-analysis';
-import type { InspectionData } from '../../inspection/record';
-import { summariseInspection, type ReaderUnits } from '../../inspection/summary';
+import { analyseGearSet, type GearSetAnalysis } from '../../inspections/gear-set-analysis';
+import { summariseInspection, type ReaderUnits } from '../../inspections/summary';
 import type { ToleranceProfile } from '../../analysis/tolerance';
 import { mmToLength } from '../../units';
 import { HttpError } from '../http';
@@ -34,7 +33,7 @@ export async function analyseStoredGearSet(
   for (const row of rows) {
     // An inspection judged by a version of another profile (the set changed profile) falls back to the current one.
     const values: ToleranceProfile = (row.profileVersionId && versions.get(row.profileVersionId)) || profile.values;
-    const data = row.data as InspectionData;
+    const data = row.data;
     inspections.push({
       id: row.id,
       inspectedAt: row.inspectedAt.toISOString(),

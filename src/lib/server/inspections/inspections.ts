@@ -2,9 +2,9 @@ import { randomUUID } from 'node:crypto';
 import { and, asc, eq } from 'drizzle-orm';
 import { getDb, write } from '../../../db/client';
 import { assemblies, inspections, parts, type Inspection, type Part } from '../../../db/schema';
-import { dataToEntry, draftToData, type InspectionData } from '../../inspection/record';
-import { findMissingForSubmit, inspectionDraftSchema, type InspectionDraft } from '../../inspection/schemas';
-import { summariseInspection, type InspectionSummary, type ReaderUnits } from '../../inspection/summary';
+import { dataToEntry, draftToData, type InspectionData } from '../../inspections/record';
+import { findMissingForSubmit, inspectionDraftSchema, type InspectionDraft } from '../../inspections/schemas';
+import { summariseInspection, type InspectionSummary, type ReaderUnits } from '../../inspections/summary';
 import type { ToleranceProfile } from '../../analysis/tolerance';
 import { zodIssuesToFields, zodIssuesToMessage } from '../../validation';
 import type { TeamAccess } from '../guard';
@@ -68,7 +68,7 @@ export async function toInspectionView(
   gearSet?: Part,
   profile?: ToleranceProfile,
 ): Promise<InspectionView> {
-  const data = row.data as InspectionData;
+  const data = row.data;
   const set = gearSet ?? (await requireGearSet(teamId, row.gearSetId));
   const values = profile ?? (await profileValuesFor(teamId, row));
   return {
@@ -168,7 +168,7 @@ function rowToDraftInput(row: Inspection): Record<string, unknown> {
     inspectedAt: row.inspectedAt.toISOString(),
     runsAtInspection: row.runsAtInspection,
     technicianId: row.technicianId,
-    ...dataToEntry(row.data as InspectionData),
+    ...dataToEntry(row.data),
   };
 }
 
@@ -230,7 +230,7 @@ export async function submitInspection(access: TeamAccess, inspectionId: string)
   const existing = await requireTeamInspection(access.team.id, inspectionId);
   if (existing.status === 'submitted') return toInspectionView(access.team.id, existing, readerUnitsOf(access));
   const row = await requireChangeableInspection(access, inspectionId);
-  const missing = findMissingForSubmit({ readings: (row.data as InspectionData).backlashMm });
+  const missing = findMissingForSubmit({ readings: row.data.backlashMm });
   if (missing.length)
     throw new HttpError(
       422,

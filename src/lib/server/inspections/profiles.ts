@@ -4,7 +4,7 @@ import type { z } from 'zod';
 import { getDb, write } from '../../../db/client';
 import { parts, toleranceProfileVersions, type ToleranceProfileVersion } from '../../../db/schema';
 import { DEFAULT_PROFILE, DEFAULT_PROFILE_SOURCES, type ToleranceProfile } from '../../analysis/tolerance';
-import type { profileCreateSchema, profileUpdateSchema } from '../../inspection/profile-schema';
+import type { profileCreateSchema, profileUpdateSchema } from '../../inspections/profile-schema';
 import type { TeamAccess } from '../guard';
 import { HttpError } from '../http';
 import { recordAudit } from '../audit';
@@ -34,7 +34,7 @@ function toView(row: ToleranceProfileVersion, defaultProfileId: string): Profile
     version: row.version,
     name: row.name,
     isDefault: row.profileId === defaultProfileId,
-    values: row.values as ToleranceProfile,
+    values: row.values,
     sources: DEFAULT_PROFILE_SOURCES,
     createdAt: row.createdAt.toISOString(),
   };

@@ -34,7 +34,7 @@ export async function queueNotice(
   let queued = 0;
   for (const member of members) {
     if (member.id === notice.except) continue;
-    if (((member.muted as NoticeKind[] | null) ?? []).includes(notice.kind)) continue;
+    if ((member.muted ?? []).includes(notice.kind)) continue;
     const token = makeUnsubscribeToken({ userId: member.id, teamId: notice.teamId, kind: notice.kind });
     const message = composeNotice({ ...notice, teamName: team.name }, `${notice.baseUrl}/unsubscribe?token=${token}`);
     await queueMessage(tx, { teamId: notice.teamId, to: member.email, subject: message.subject, text: message.text });
@@ -51,7 +51,7 @@ export async function readMutedKinds(userId: string, teamId: string): Promise<No
     .from(noticePreferences)
     .where(and(eq(noticePreferences.userId, userId), eq(noticePreferences.teamId, teamId)))
     .get();
-  return (row?.muted as NoticeKind[] | undefined) ?? [];
+  return row?.muted ?? [];
 }
 
 /** Saves which kinds a person has muted for a team. */

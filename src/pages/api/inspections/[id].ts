@@ -1,4 +1,4 @@
-import { inspectionPatchSchema } from '../../../lib/inspection/schemas';
+import { inspectionPatchSchema } from '../../../lib/inspections/schemas';
 import { requireMember, requirePermission } from '../../../lib/server/guard';
 import { handle, json, readJson } from '../../../lib/server/http';
 import { deleteDraft, getInspection, updateInspection } from '../../../lib/server/inspections/inspections';

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { inspectionDraftSchema } from '../../../lib/inspection/schemas';
+import { inspectionDraftSchema } from '../../../lib/inspections/schemas';
 import { requireMember, requirePermission } from '../../../lib/server/guard';
 import { handle, json, parseWith, readJson } from '../../../lib/server/http';
 import { readIdempotencyKey } from '../../../lib/server/idempotency';

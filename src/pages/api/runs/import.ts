@@ -1,11 +1,10 @@
 import { z } from 'zod';
 import { requirePermission } from '../../../lib/server/guard';
+import { bodyLimitFor } from '../../../lib/server/body-limits';
 import { handle, json, parseWith, readBodyText } from '../../../lib/server/http';
 import { importRuns } from '../../../lib/server/register/runs';
 import { resolveBaseUrl } from '../../../lib/server/base-url';
 import { afterRunsChanged } from '../../../lib/server/notices/after-runs';
-
-const MAX_IMPORT_BYTES = 5 * 1024 * 1024;
 
 const recordsBodySchema = z.object({
   records: z
@@ -23,7 +22,7 @@ const recordsBodySchema = z.object({
 export const POST = handle(async ({ locals, request, url }) => {
   const access = requirePermission(locals, 'runs:record');
   const type = (request.headers.get('content-type') ?? '').toLowerCase();
-  const text = await readBodyText(request, MAX_IMPORT_BYTES);
+  const text = await readBodyText(request, bodyLimitFor(url.pathname));
   if (type.startsWith('text/csv')) {
     const dryRun = url.searchParams.get('dryRun') === '1';
     const result = await importRuns(access, { csv: text }, dryRun);

@@ -1,4 +1,4 @@
-import { profileUpdateSchema } from '../../../lib/inspection/profile-schema';
+import { profileUpdateSchema } from '../../../lib/inspections/profile-schema';
 import { requireMember, requirePermission } from '../../../lib/server/guard';
 import { handle, json, readJson } from '../../../lib/server/http';
 import { getProfile, listProfileVersions, updateProfile } from '../../../lib/server/inspections/profiles';

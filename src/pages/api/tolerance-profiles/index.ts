@@ -1,4 +1,4 @@
-import { profileCreateSchema } from '../../../lib/inspection/profile-schema';
+import { profileCreateSchema } from '../../../lib/inspections/profile-schema';
 import { requireMember, requirePermission } from '../../../lib/server/guard';
 import { handle, json, readJson } from '../../../lib/server/http';
 import { createProfile, listProfiles } from '../../../lib/server/inspections/profiles';

@@ -4,7 +4,7 @@ import { afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { ChartFigure } from '../../../../src/components/charts/ChartFigure';
 import { shapeBacklashTrend } from '../../../../src/lib/charts/backlash-trend';
 import { shapeRunoutTrend } from '../../../../src/lib/charts/measure-trends';
-import { makeInput, RISING } from '../../charts/fixtures';
+import { makeInput, RISING } from '../../../helpers/chart-fixtures';
 import { stubResizeObserver } from './setup';
 
 beforeAll(stubResizeObserver);

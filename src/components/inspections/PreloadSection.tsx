@@ -1,0 +1,131 @@
+import { useController, useFormContext, useWatch } from 'react-hook-form';
+import { judgePreload, preloadBandIn } from '../../lib/inspections/live-figures';
+import type { SheetValues } from '../../lib/inspections/sheet-values';
+import { bandToSourceText, formatTorque } from '../../lib/inspections/verdict-text';
+import { torqueUnitToLabel } from '../../lib/units';
+import { EntryField, SheetSection } from './fields';
+import type { SheetContext } from './sheet-context';
+import { VerdictList } from './VerdictList';
+
+/** Bearing preload: the pinion turning torque against its band, and the hub check on each side. */
+export function PreloadSection({ context, disabled }: { context: SheetContext; disabled: boolean }) {
+  const { control, register } = useFormContext<SheetValues>();
+  const [torqueUnit, bearings, pinionTorque] = useWatch({
+    control,
+    name: ['torqueUnit', 'preload.bearings', 'preload.pinionTorque'],
+  });
+  const unit = torqueUnit ?? 'lbf-in';
+  const kind = bearings ?? 'used';
+  const profile = context.profile;
+  const field = kind === 'new' ? 'pinionPreloadNew' : 'pinionPreloadUsed';
+  const band = profile ? preloadBandIn(profile.values, kind, unit) : null;
+  const verdicts =
+    profile && typeof pinionTorque === 'number'
+      ? [
+          {
+            measure: `pinion-preload-${kind}`,
+            value: pinionTorque,
+            ...judgePreload(pinionTorque, kind, unit, profile.values),
+          },
+        ]
+      : [];
+
+  return (
+    <SheetSection id="preload" title="Bearing preload">
+      <fieldset disabled={disabled} className="grid gap-4 md:grid-cols-2">
+        <legend className="sr-only">Pinion bearing preload</legend>
+        <fieldset className="flex flex-col gap-1">
+          <legend className="font-semibold">Pinion bearings</legend>
+          <div className="flex gap-2">
+            {(['new', 'used'] as const).map((b) => (
+              <label key={b} className="choice">
+                <input type="radio" value={b} {...register('preload.bearings')} className="sr-only" data-enter-next />
+                {b === 'new' ? 'New' : 'Used'}
+              </label>
+            ))}
+          </div>
+          {band && profile && (
+            <p className="text-sm" data-testid="preload-band">
+              Band for {kind} bearings:{' '}
+              <strong>
+                {band.min.toFixed(1)}–{formatTorque(band.max, unit)}
+              </strong>
+              . {bandToSourceText(profile.values, field, profile.sources, profile.name)}.
+            </p>
+          )}
+        </fieldset>
+        <EntryField
+          name="preload.pinionTorque"
+          label="Pinion turning torque"
+          kind="decimal"
+          unitLabel={torqueUnitToLabel(unit)}
+          testId="pinion-torque"
+          hint="Turning the pinion with an inch-pound dial wrench, seal in or out as the team’s procedure says."
+        />
+      </fieldset>
+      {profile && verdicts.length > 0 && (
+        <div className="mt-3" aria-live="polite">
+          <VerdictList verdicts={verdicts} format={(v) => formatTorque(v, unit)} profile={profile} />
+        </div>
+      )}
+      <h3 className="mt-5 mb-1 font-bold">Hub check (solid spacer)</h3>
+      <p className="mb-3 text-sm text-ink-soft">
+        Does the turning effort stay the same from medium to full nut torque? It should when the spacer length is right
+        (common practice).
+      </p>
+      <fieldset disabled={disabled} className="grid gap-4 md:grid-cols-2">
+        <legend className="sr-only">Hub check on each side</legend>
+        <HubCheck side="Left" name="preload.hubLeft" unitLabel={torqueUnitToLabel(unit)} />
+        <HubCheck side="Right" name="preload.hubRight" unitLabel={torqueUnitToLabel(unit)} />
+      </fieldset>
+    </SheetSection>
+  );
+}
+
+function HubCheck({
+  side,
+  name,
+  unitLabel,
+}: {
+  side: string;
+  name: 'preload.hubLeft' | 'preload.hubRight';
+  unitLabel: string;
+}) {
+  const { control } = useFormContext<SheetValues>();
+  const { field } = useController({ control, name: `${name}.unchanged` });
+  const options: [boolean | null, string][] = [
+    [true, 'Unchanged'],
+    [false, 'Changed'],
+    [null, 'Not checked'],
+  ];
+  return (
+    <div className="flex flex-col gap-3 rounded-md border border-rule p-3">
+      <fieldset className="flex flex-col gap-1">
+        <legend className="font-semibold">{side} hub: effort unchanged?</legend>
+        <div className="flex flex-wrap gap-2">
+          {options.map(([value, label]) => (
+            <label key={label} className="choice">
+              <input
+                type="radio"
+                name={`${name}.unchanged`}
+                className="sr-only"
+                checked={field.value === value}
+                onChange={() => field.onChange(value)}
+                data-enter-next
+              />
+              {label}
+            </label>
+          ))}
+        </div>
+      </fieldset>
+      <EntryField
+        name={`${name}.torque`}
+        label={`${side} hub turning torque, if measured`}
+        kind="decimal"
+        unitLabel={unitLabel}
+        empty={undefined}
+        testId={`hub-${side.toLowerCase()}-torque`}
+      />
+    </div>
+  );
+}
