@@ -1,4 +1,3 @@
-import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'astro/config';
 import node from '@astrojs/node';
 import react from '@astrojs/react';
@@ -14,27 +13,11 @@ const extraHosts = (process.env.ALLOWED_HOSTS ?? '')
   .map((host) => host.trim())
   .filter(Boolean);
 
-/**
- * Builds src/fast-lane.ts as a second server entry, dist/server/fast-lane.mjs, beside Astro's own: one
- * build, so the two share every module (one database connection, one set of caches). scripts/serve.mjs
- * offers each request to it first (docs/decisions/007-calculations-beside-astro.md).
- */
-const fastLaneEntry = {
-  name: 'lashline-fast-lane',
-  hooks: {
-    'astro:build:setup': ({ vite, target }) => {
-      if (target !== 'server') return;
-      const options = ((vite.build ??= {}).rollupOptions ??= {});
-      options.input = [...[options.input ?? []].flat(), fileURLToPath(new URL('./src/fast-lane.ts', import.meta.url))];
-    },
-  },
-};
-
 export default defineConfig({
   output: 'server',
   // Middleware mode: scripts/serve.mjs wraps the handler with the security headers and the static files.
   adapter: node({ mode: 'middleware' }),
-  integrations: [react(), auth(), fastLaneEntry],
+  integrations: [react(), auth()],
   server: { host: process.env.HOST ?? 'localhost', port: Number(process.env.PORT ?? 4321) },
   security: {
     checkOrigin: true,

@@ -1,4 +1,4 @@
-import { existsSync, readdirSync } from 'node:fs';
+import { readdirSync } from 'node:fs';
 import { createServer } from 'node:http';
 import { join, relative, resolve, sep } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -10,22 +10,13 @@ import { API_CSP, BASE_SECURITY_HEADERS } from '../src/lib/security-headers.mjs'
  * response, including those Astro answers before any middleware runs (its origin check's 403) and
  * the static files. Pages keep their own Content-Security-Policy, which replaces the strict default.
  * Static files are listed once at start, so an API request never waits on the disk to learn it is
- * not a file. The calculation routes go to the fast lane (src/fast-lane.ts, built beside the app),
- * which hands back to Astro whatever it cannot answer exactly as Astro would. Plain JavaScript:
- * nothing compiles on the request path.
+ * not a file. Plain JavaScript: nothing compiles on the request path.
  *
  *   HOST=localhost PORT=4321 node scripts/serve.mjs        (LASHLINE_DIST picks another build folder)
- *   LASHLINE_FAST_LANE=off                                 every request through Astro (to compare)
  */
 const dist = resolve(process.env.LASHLINE_DIST ?? 'dist');
 const clientDir = join(dist, 'client');
 const { handler } = await import(pathToFileURL(join(dist, 'server', 'entry.mjs')).href);
-const fastLaneFile = join(dist, 'server', 'fast-lane.mjs');
-if (!existsSync(fastLaneFile)) throw new Error(`${fastLaneFile} is missing: build again with \`npm run build\`.`);
-const lane = process.env.LASHLINE_FAST_LANE ?? 'on';
-if (lane !== 'on' && lane !== 'off') throw new Error(`LASHLINE_FAST_LANE must be "on" or "off", not "${lane}".`);
-const { answerInFastLane } =
-  lane === 'off' ? { answerInFastLane: () => false } : await import(pathToFileURL(fastLaneFile).href);
 
 /** Every file of the built client, as the URL path that serves it. */
 function listFiles(dir) {
@@ -53,7 +44,6 @@ const server = createServer((req, res) => {
     send(req, path, { root: clientDir, dotfiles: 'deny', immutable: hashed, maxAge: hashed ? '1y' : 0 }).pipe(res);
     return;
   }
-  if (answerInFastLane(req, res)) return;
   handler(req, res, () => {
     res.statusCode = 404;
     res.setHeader('Content-Type', 'text/plain; charset=utf-8');

@@ -37,7 +37,6 @@ let connection: Connection | undefined;
 let opening: Promise<Connection> | undefined;
 let writer: Writer | undefined;
 let writeQueue: Promise<unknown> = Promise.resolve();
-let writesEnded = 0;
 
 /** Turns a `file:` URL with a relative path into one with an absolute path, creating its folder. */
 export function fileUrlToAbsolute(url: string): string {
@@ -137,25 +136,9 @@ export function write<T>(work: (tx: Transaction) => Promise<T>): Promise<T> {
     const { db, embedded, url } = await openDatabase();
     return embedded ? runOnWriter(url, work) : db.transaction(work);
   };
-  const result = writeQueue.then(run, run).finally(() => {
-    writesEnded += 1;
-  });
+  const result = writeQueue.then(run, run);
   writeQueue = result.catch(() => undefined);
   return result;
-}
-
-/**
- * How many write transactions of this process have ended (committed or rolled back). A value read
- * before a query and still the same afterwards means no write of this process has changed the
- * database since, so what that query read is still current — the basis of the session cache.
- */
-export function countEndedWrites(): number {
-  return writesEnded;
-}
-
-/** Whether the database is an embedded file, which only this machine's processes can change. */
-export async function isEmbeddedDatabase(): Promise<boolean> {
-  return (await openDatabase()).embedded;
 }
 
 /** Closes the connections (tests and command-line scripts). */

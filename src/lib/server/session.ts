@@ -1,6 +1,6 @@
 import { decode } from '@auth/core/jwt';
 import { and, eq, sql } from 'drizzle-orm';
-import { countEndedWrites, getDb, isEmbeddedDatabase, type Database } from '../../db/client';
+import { getDb, type Database } from '../../db/client';
 import { memberships, teams, users } from '../../db/schema';
 import { userToPublic } from './accounts';
 import { resolveAuthSecret } from './auth-secret';
@@ -17,10 +17,10 @@ interface SessionClaims {
 }
 
 // Decoding a cookie costs an HKDF derivation plus AES-CBC and HMAC through WebCrypto, which was most of the
-// time of a signed-in API call (bench/analysis-throughput.mjs). The same cookie value always decodes to the
+// time of a signed-in API call when it was measured. The same cookie value always decodes to the
 // same claims, so the claims of recent cookies are kept until their own expiry. Only decoded, unexpired
 // tokens are kept, so a flood of made-up cookies adds nothing. The person, the session version and the role
-// are still read from the database on every request (docs/decisions/005-cache-decoded-session-cookies.md).
+// are read by `readSessionRow` below, under its own rules (docs/decisions/005-cache-decoded-session-cookies.md).
 const DECODED = new Map<string, SessionClaims>();
 const MAX_DECODED = 1000;
 
@@ -66,37 +66,19 @@ function prepareSessionQuery(db: Database) {
 
 type SessionRow = NonNullable<Awaited<ReturnType<ReturnType<typeof prepareSessionQuery>['get']>>>;
 
-// The person and role, as last read, per person. An entry is used only while no write of this process
-// has ended since it was read (every change to people, teams and roles is a write through `write()`), and
-// for at most a second, which bounds what another process writing the same file could leave unseen. On a
-// libSQL server other instances write too, so nothing is kept there
-// (docs/decisions/007-calculations-beside-astro.md).
-const ROWS = new Map<string, { row: SessionRow | undefined; writes: number; readAt: number }>();
-const MAX_ROW_AGE_MS = 1000;
-const MAX_ROWS = 1000;
-
+/** The person and their role in the current team, read on every request, so a change made through any process holds at once. */
 async function readSessionRow(userId: string): Promise<SessionRow | undefined> {
-  const now = Date.now();
-  const writes = countEndedWrites();
-  const kept = ROWS.get(userId);
-  if (kept && kept.writes === writes && now - kept.readAt < MAX_ROW_AGE_MS) return kept.row;
   const db = await getDb();
   let query = PREPARED.get(db);
   if (!query) PREPARED.set(db, (query = prepareSessionQuery(db)));
-  const row = await query.get({ id: userId });
-  if (await isEmbeddedDatabase()) {
-    if (ROWS.size >= MAX_ROWS && !ROWS.has(userId)) ROWS.delete(ROWS.keys().next().value as string);
-    // `writes` as it was before the query: a write that ended meanwhile makes this entry stale at once.
-    ROWS.set(userId, { row, writes, readAt: now });
-  }
-  return row;
+  return query.get({ id: userId });
 }
 
 /** The session as the rest of the server sees it: the person and their current team, or nulls. */
 export type SessionLocals = Pick<App.Locals, 'user' | 'team'>;
 
 /**
- * Reads the Auth.js session cookie (through `readCookie`, so pages and the fast lane share it) and
+ * Reads the Auth.js session cookie (through `readCookie`) and
  * loads the person and their current team's role, so a removed or demoted member loses access on
  * their very next request, and a session whose version is behind the person's (password changed,
  * signed out everywhere) is refused.

@@ -155,18 +155,4 @@ describe('the database module on an embedded file', () => {
     const rows = await db.all<{ n: number }>(sql`SELECT n FROM items ORDER BY seq`);
     expect(rows.map((row) => Number(row.n))).toEqual(expected);
   });
-
-  it('counts each write as it ends, committed or rolled back, and only once it has ended', async () => {
-    const before = database.countEndedWrites();
-    let seenInside = -1;
-    await database.write(async (tx) => {
-      seenInside = database.countEndedWrites();
-      await insert(1000)(tx);
-    });
-    // Inside the transaction the change is not yet visible to readers: the count must not have moved.
-    expect(seenInside).toBe(before);
-    expect(database.countEndedWrites()).toBe(before + 1);
-    await database.write(() => Promise.reject(new Error('rolled back'))).catch(() => undefined);
-    expect(database.countEndedWrites()).toBe(before + 2);
-  });
 });
