@@ -38,21 +38,21 @@ export async function seedRegister(tx: Transaction, people: SeededPeople): Promi
       teamId,
       serial: 'RE-01',
       name: 'Ember rear end',
-      housing: 'Fabricated 9 in style housing, spool',
+      housing: 'Fabricated housing, spool',
     },
     {
       id: assemblyIds.re02,
       teamId,
       serial: 'RE-02',
       name: 'Blackwater rear end',
-      housing: 'Fabricated 9 in style housing, spool',
+      housing: 'Fabricated housing, spool',
     },
     {
       id: assemblyIds.re03,
       teamId,
       serial: 'RE-03',
       name: 'Spare rear end',
-      housing: 'Fabricated 9 in style housing, spool',
+      housing: 'Fabricated housing, spool',
     },
   ]);
 
@@ -72,7 +72,7 @@ export async function seedRegister(tx: Transaction, people: SeededPeople): Promi
       ringTeeth,
       pinionTeeth,
       maker: 'Kestrel Gearworks',
-      model: 'Pro 9.5 lightened',
+      model: 'KG-95L',
       material: '9310 steel',
       notes,
     });

@@ -214,7 +214,7 @@ describe('reviews and decisions', () => {
 });
 
 describe('notices after runs and the outbox', () => {
-  it('queues one life-reached notice when a run takes a set over its limit, not one per later run', async () => {
+  it('queues one life-reached notice when a run takes a set over its limit, not one per later run, and no near-limit notice beside it', async () => {
     const setId = (
       await team.chief.post('/api/gear-sets', { serial: 'RV-LIFE', ringTeeth: 41, pinionTeeth: 10, lifeLimitRuns: 2 })
     ).body.id;
@@ -242,9 +242,36 @@ describe('notices after runs and the outbox', () => {
         (m) => m.to.includes(ownerEmail) && m.subject.includes('RV-LIFE has reached its life limit'),
       ),
     ).toHaveLength(1);
+    // It went past "near" and "reached" with the same run: only the notice that applies is sent.
     expect(
       smtp.received.filter((m) => m.to.includes(ownerEmail) && m.subject.includes('RV-LIFE is near its life limit')),
-    ).toHaveLength(1);
+    ).toHaveLength(0);
+  });
+
+  it('tells the team a set is near its limit, then that it reached it, once each, as the runs come', async () => {
+    const setId = (
+      await team.chief.post('/api/gear-sets', { serial: 'RV-NEAR', ringTeeth: 41, pinionTeeth: 10, lifeLimitRuns: 10 })
+    ).body.id;
+    const car = (await team.chief.post('/api/cars', { name: 'Near car' })).body.id;
+    await team.chief.post('/api/installations', {
+      action: 'install',
+      partId: setId,
+      carId: car,
+      at: '2026-04-01T00:00:00Z',
+    });
+    const ownerEmail = (await team.owner.get('/api/account')).body.email;
+    const told = (words: string) =>
+      smtp.received.filter((m) => m.to.includes(ownerEmail) && m.subject.includes(`RV-NEAR ${words}`));
+    // With the default near share of a tenth (CP), 9 of 10 runs is near the limit.
+    for (let run = 1; run <= 9; run += 1)
+      await team.tech.post('/api/runs', { carId: car, at: `2026-04-02T10:${String(run).padStart(2, '0')}:00Z` });
+    await smtp.waitFor((m) => m.to.includes(ownerEmail) && m.subject.includes('RV-NEAR is near its life limit'));
+    expect(told('has reached its life limit')).toHaveLength(0);
+    for (const minute of [30, 31]) await team.tech.post('/api/runs', { carId: car, at: `2026-04-02T10:${minute}:00Z` });
+    await smtp.waitFor((m) => m.to.includes(ownerEmail) && m.subject.includes('RV-NEAR has reached its life limit'));
+    await new Promise((r) => setTimeout(r, 2000));
+    expect(told('is near its life limit')).toHaveLength(1);
+    expect(told('has reached its life limit')).toHaveLength(1);
   });
 
   it('holds a message while the mail server is down and delivers it exactly once when it is back', async () => {

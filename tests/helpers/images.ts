@@ -8,7 +8,7 @@ import type { ApiClient } from './api-client';
  */
 
 export const CAMERA_MAKE = 'LashlineTestCam';
-const XMP = `<x:xmpmeta xmlns:x="adobe:ns:meta/"><rdf:RDF xmlns:rdf="http://www.w3.org/1999/02/22-rdf-syntax-ns#"><rdf:Description xmlns:exif="http://ns.adobe.com/exif/1.0/" exif:GPSLatitude="40,26.769N" exif:GPSLongitude="79,58.6W"/></rdf:RDF></x:xmpmeta>`;
+const XMP = `<x:xmpmeta xmlns:x="adobe:ns:meta/"><rdf:RDF xmlns:rdf="http://www.w3.org/1999/02/22-rdf-syntax-ns#"><rdf:Description xmlns:exif="http://ns.adobe.com/exif/1.0/" exif:GPSLatitude="30,0.0N" exif:GPSLongitude="40,0.0W"/></rdf:RDF></x:xmpmeta>`;
 
 /**
  * A 400×300 JPEG as the sensor stored it — left half red, right half blue — carrying EXIF
@@ -27,9 +27,9 @@ export function cameraJpeg(): Promise<Buffer> {
       IFD0: { Make: CAMERA_MAKE, Model: 'Pit Camera 9' },
       IFD3: {
         GPSLatitudeRef: 'N',
-        GPSLatitude: '40/1 26/1 4614/100',
+        GPSLatitude: '30/1 0/1 0/1',
         GPSLongitudeRef: 'W',
-        GPSLongitude: '79/1 58/1 3600/100',
+        GPSLongitude: '40/1 0/1 0/1',
       },
     })
     .withXmp(XMP)

@@ -8,7 +8,9 @@ import { queueNotice } from './notices';
 
 /**
  * After runs are logged: announce each gear set that reached "near limit" or "life reached" — once
- * per set and threshold, however many runs follow — and each re-inspection that fell due.
+ * per set and threshold, however many runs follow, and only the one that applies (a set that went past
+ * both at once is told it reached its limit, not also that it is near it) — and each re-inspection that
+ * fell due.
  */
 export async function announceRunThresholds(teamId: string, baseUrl: string): Promise<number> {
   const db = await getDb();
@@ -35,13 +37,17 @@ export async function announceRunThresholds(teamId: string, baseUrl: string): Pr
     threshold: 'near-limit' | 'life-reached';
     runs: number;
     limit: number;
+    /** Recorded as announced without a message: a set that reached its limit is past being near it. */
+    silent: boolean;
   }[] = [];
   for (const set of sets) {
     if (set.status === 'retired' || set.status === 'scrapped') continue;
     const runs = counts.get(set.id)?.totalRuns ?? 0;
-    for (const threshold of reachedThresholds(runs, set.lifeLimitRuns, settings.nearShare)) {
-      if (!seen.has(`${set.id}:${threshold}`))
-        work.push({ partId: set.id, serial: set.serial, threshold, runs, limit: set.lifeLimitRuns! });
+    const reached = reachedThresholds(runs, set.lifeLimitRuns, settings.nearShare);
+    for (const threshold of reached) {
+      if (seen.has(`${set.id}:${threshold}`)) continue;
+      const silent = threshold === 'near-limit' && reached.includes('life-reached');
+      work.push({ partId: set.id, serial: set.serial, threshold, runs, limit: set.lifeLimitRuns!, silent });
     }
   }
   const reminders = due.filter((r) => (counts.get(r.gearSetId)?.totalRuns ?? 0) >= r.reinspectAtRuns!);
@@ -55,7 +61,7 @@ export async function announceRunThresholds(teamId: string, baseUrl: string): Pr
         .values({ partId: item.partId, threshold: item.threshold, teamId })
         .onConflictDoNothing()
         .returning();
-      if (!inserted.length) continue;
+      if (!inserted.length || item.silent) continue;
       const reached = item.threshold === 'life-reached';
       queued += await queueNotice(tx, {
         teamId,
