@@ -22,7 +22,12 @@ function getTransporter(): Transporter {
 }
 
 /** Sends one plain-text message over SMTP; throws when the server refuses or cannot be reached. */
-export async function sendMail(message: { to: string; subject: string; text: string }): Promise<void> {
+export async function sendMail(message: {
+  to: string;
+  subject: string;
+  text: string;
+  messageId?: string;
+}): Promise<void> {
   const env = readEnvironment();
   await getTransporter().sendMail({ from: env.MAIL_FROM, ...message });
 }
