@@ -118,8 +118,13 @@ export async function deliverDueMessages(now = new Date()): Promise<number> {
   return delivered;
 }
 
-/** Asks the worker to look at the outbox soon (after the current transaction has committed). */
+/**
+ * Asks the worker to look at the outbox soon (after the current transaction has committed). Only a
+ * process whose worker runs sends: a command-line step (the demo seed in `npm start`'s prepare) leaves
+ * what it queued to the server, so it opens no mail connection and exits when its work is done.
+ */
 export function kickOutbox(): void {
+  if (!timer) return;
   setTimeout(() => void deliverDueMessages().catch(() => undefined), 50).unref();
 }
 
