@@ -19,6 +19,7 @@ export interface CaughtMail {
 const caught: CaughtMail[] = [];
 let started: Promise<void> | undefined;
 let nextId = 1;
+let listeningPort: number | undefined;
 
 /** Starts the catcher once, when the environment asks for it. */
 export function startMailCatcher(): Promise<void> {
@@ -45,13 +46,31 @@ export function startMailCatcher(): Promise<void> {
           .catch((error: Error) => callback(error));
       },
     });
-    server.on('error', (error) => {
-      console.warn(`[lashline] mail catcher: ${error.message}`);
+    const listen = (port: number) => server.listen(port, '127.0.0.1');
+    server.server.on('listening', () => {
+      const address = server.server.address();
+      listeningPort = typeof address === 'object' && address ? address.port : env.SMTP_PORT;
+      console.log(`[lashline] mail catcher: catching this process's mail on 127.0.0.1:${listeningPort}`);
       resolve();
     });
-    server.listen(env.SMTP_PORT, '127.0.0.1', () => resolve());
+    server.on('error', (error: NodeJS.ErrnoException) => {
+      // Another process (a second server on this machine) holds the port: this one catches its own mail
+      // on a port of its own rather than handing it to the other's catcher.
+      if (error.code === 'EADDRINUSE' && listeningPort === undefined) {
+        console.warn(`[lashline] mail catcher: 127.0.0.1:${env.SMTP_PORT} is in use; choosing a free port.`);
+        listen(0);
+        return;
+      }
+      console.warn(`[lashline] mail catcher: ${error.message}`);
+    });
+    listen(env.SMTP_PORT);
   });
   return started;
+}
+
+/** The port this process's catcher listens on, once started (the mailer sends there). */
+export function catcherPort(): number | undefined {
+  return listeningPort;
 }
 
 /** The mail caught so far, newest first. */

@@ -1,5 +1,6 @@
 import nodemailer, { type Transporter } from 'nodemailer';
 import { readEnvironment, usesMailCatcher } from '../../environment';
+import { catcherPort } from './mail-catcher';
 
 let transporter: Transporter | undefined;
 
@@ -9,7 +10,7 @@ function getTransporter(): Transporter {
   const catcher = usesMailCatcher(env);
   transporter = nodemailer.createTransport({
     host: catcher ? '127.0.0.1' : env.SMTP_HOST,
-    port: env.SMTP_PORT,
+    port: (catcher ? catcherPort() : undefined) ?? env.SMTP_PORT,
     secure: env.SMTP_SECURE === 'true',
     auth: env.SMTP_USER ? { user: env.SMTP_USER, pass: env.SMTP_PASS ?? '' } : undefined,
     // The local catcher speaks plain SMTP on loopback; a real server negotiates STARTTLS as it offers.
