@@ -24,6 +24,13 @@ export class ApiClient {
     return [...this.cookies].map(([name, value]) => `${name}=${value}`).join('; ');
   }
 
+  /** The same person (the same cookies) talking to another server, e.g. a second process on one database. */
+  atServer(baseUrl: string): ApiClient {
+    const other = new ApiClient(baseUrl);
+    for (const [name, value] of this.cookies) other.cookies.set(name, value);
+    return other;
+  }
+
   hasSessionCookie(): boolean {
     return [...this.cookies.keys()].some((name) => name.endsWith('authjs.session-token'));
   }

@@ -6,6 +6,7 @@ export interface ReceivedMail {
   to: string;
   subject: string;
   text: string;
+  messageId?: string;
 }
 
 /** A local fake mail server speaking real SMTP, for the server under test to deliver to. */
@@ -27,7 +28,7 @@ export class SmtpFake {
         simpleParser(stream)
           .then((mail) => {
             const to = Array.isArray(mail.to) ? mail.to.map((a) => a.text).join(', ') : (mail.to?.text ?? '');
-            this.received.push({ to, subject: mail.subject ?? '', text: mail.text ?? '' });
+            this.received.push({ to, subject: mail.subject ?? '', text: mail.text ?? '', messageId: mail.messageId });
             callback();
           })
           .catch(callback);
