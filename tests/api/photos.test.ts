@@ -17,6 +17,7 @@ import {
   uploadPhoto,
 } from '../helpers/images';
 import { createInspection } from '../helpers/inspections';
+import { sendStreamedBody } from '../helpers/streamed-body';
 import { startServer, type RunningServer } from '../helpers/server';
 import { SmtpFake } from '../helpers/smtp-fake';
 import { makeTeamOfFour, type TeamOfFour } from '../helpers/team';
@@ -248,27 +249,16 @@ describe('refusing an upload stores nothing', () => {
         `--${boundary}\r\nContent-Disposition: form-data; name="side"\r\n\r\ndrive\r\n--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="a.jpg"\r\nContent-Type: image/jpeg\r\n\r\n\xff\xd8\xff`,
         'latin1',
       );
-      let sent = 0;
-      const chunk = Buffer.alloc(1024 * 1024, 0x20);
-      const body = new ReadableStream<Uint8Array>({
-        pull(controller) {
-          if (sent === 0) controller.enqueue(head);
-          sent += 1;
-          if (sent <= 100) controller.enqueue(chunk);
-          else controller.close();
-        },
+      const answer = await sendStreamedBody(server.baseUrl, `/api/inspections/${inspection.byTech}/photos`, {
+        headers: { 'content-type': `multipart/form-data; boundary=${boundary}`, cookie: team.tech.cookieHeader() },
+        head,
+        chunk: Buffer.alloc(1024 * 1024, 0x20),
+        maxChunks: 100,
       });
-      const init: RequestInit & { duplex: 'half' } = {
-        method: 'POST',
-        headers: { 'content-type': `multipart/form-data; boundary=${boundary}` },
-        body,
-        duplex: 'half',
-      };
-      const response = await team.tech.request(`/api/inspections/${inspection.byTech}/photos`, init);
-      expect(response.status).toBe(413);
-      expect(response.headers.get('connection')).toBe('close');
+      expect(answer.status).toBe(413);
+      expect(answer.headers.connection).toBe('close');
       // The server stopped reading a little past 15 MB; kernel buffers let the client push some more.
-      expect(sent).toBeLessThan(100);
+      expect(answer.sentBytes).toBeLessThan(100 * 1024 * 1024);
     }));
 
   it('refuses a truncated JPEG with 422', () =>
