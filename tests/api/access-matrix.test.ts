@@ -184,9 +184,10 @@ const MATRIX: Record<string, Rule> = {
   },
   'GET /api/runs/[id]': { own: MEMBER, other: NOT_FOUND },
   'PATCH /api/runs/[id]': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS), body: () => ({ notes: 'matrix' }) },
+  // A technician may delete a run they logged themselves within a day; the fresh run here is the owner's.
   'DELETE /api/runs/[id]': {
     own: MANAGERS,
-    other: NOT_FOUND_FOR(MANAGERS),
+    other: NOT_FOUND_FOR(RECORDERS),
     fresh: async () => freshRecord('/api/runs', { carId: own.carId, at: runAt() }),
   },
   'POST /api/runs/import': { own: RECORDERS, other: null },

@@ -1,28 +1,45 @@
 import { useState } from 'react';
 import type { RunView } from '../../lib/server/register/runs';
+import { mayDeleteRun } from '../../lib/register/run-deletion';
+import type { Role } from '../../lib/roles';
 import { callApi, messageWithoutField } from '../shared/api';
 import { ConfirmAction } from '../shared/ConfirmAction';
 import { useHydrated } from '../shared/use-hydrated';
 import { isoToText } from '../shared/when';
 import { LogRunForm, type RunCar } from './LogRunForm';
 
+/** The person reading the log, for the runs they may take back themselves. */
+export interface RunViewer {
+  userId: string;
+  role: Role;
+}
+
 interface Props {
   runs: RunView[];
   cars: RunCar[];
   canEdit: boolean;
+  viewer: RunViewer;
   onChanged: (run: RunView) => void;
   onDeleted: (runId: string) => void;
 }
 
 const measure = (value: number | null, unit: string) => (value === null ? null : `${value} ${unit}`);
 
-/** The run log, newest first; a crew chief or owner can correct or delete a run. */
-export function RecentRuns({ runs, cars, canEdit, onChanged, onDeleted }: Props) {
+/** The run log, newest first; a crew chief or owner can correct or delete a run, its logger delete it for a day. */
+export function RecentRuns({ runs, cars, canEdit, viewer, onChanged, onDeleted }: Props) {
   const hydrated = useHydrated();
   const [editing, setEditing] = useState<string | null>(null);
   const [deleting, setDeleting] = useState<string | null>(null);
   const [problem, setProblem] = useState<{ runId: string; text: string } | null>(null);
   const carName = (id: string) => cars.find((c) => c.id === id)?.name ?? 'a car no longer listed';
+  // Decided again at each render: the 24-hour window closes while the page stays open.
+  const deletable = (run: RunView) =>
+    mayDeleteRun(
+      viewer.role,
+      viewer.userId,
+      { recordedBy: run.recordedBy, createdAt: new Date(run.createdAt) },
+      new Date(),
+    );
 
   if (runs.length === 0) return <p>No runs logged yet.</p>;
   return (
@@ -44,16 +61,18 @@ export function RecentRuns({ runs, cars, canEdit, onChanged, onDeleted }: Props)
                 </p>
                 {run.notes && <p className="text-ink-soft">{run.notes}</p>}
               </div>
-              {canEdit && editing !== run.id && (
+              {(canEdit || deletable(run)) && editing !== run.id && (
                 <div className="flex flex-wrap gap-2">
-                  <button
-                    type="button"
-                    className="btn btn-quiet"
-                    onClick={() => setEditing(run.id)}
-                    aria-label={`Edit the run of ${carName(run.carId)} at ${isoToText(run.at, hydrated)}`}
-                  >
-                    Edit
-                  </button>
+                  {canEdit && (
+                    <button
+                      type="button"
+                      className="btn btn-quiet"
+                      onClick={() => setEditing(run.id)}
+                      aria-label={`Edit the run of ${carName(run.carId)} at ${isoToText(run.at, hydrated)}`}
+                    >
+                      Edit
+                    </button>
+                  )}
                   <ConfirmAction
                     label="Delete"
                     ariaLabel={`Delete the run of ${carName(run.carId)} at ${isoToText(run.at, hydrated)}`}

@@ -3,7 +3,7 @@ import type { RunView } from '../../lib/server/register/runs';
 import { callApi, type Page } from '../shared/api';
 import { LogRunForm, type RunCar } from './LogRunForm';
 import { runKey } from './run-form';
-import { RecentRuns } from './RecentRuns';
+import { RecentRuns, type RunViewer } from './RecentRuns';
 
 // Papaparse, zod and the shared run check load only when someone opens the import.
 const ImportRuns = lazy(() => import('./ImportRuns'));
@@ -14,13 +14,15 @@ export interface RunsIslandProps {
   initialPage: Page<RunView>;
   canRecord: boolean;
   canEdit: boolean;
+  /** Who is looking: a technician may delete the runs they logged in the last 24 hours. */
+  viewer: RunViewer;
 }
 
 const PAGE_PATH = '/api/runs?limit=50';
 const byNewest = (a: RunView, b: RunView) => b.at.localeCompare(a.at) || b.id.localeCompare(a.id);
 
 /** The runs page: log a run, read and correct the log, import a file. */
-export default function RunsIsland({ teamId, cars, initialPage, canRecord, canEdit }: RunsIslandProps) {
+export default function RunsIsland({ teamId, cars, initialPage, canRecord, canEdit, viewer }: RunsIslandProps) {
   const [runs, setRuns] = useState(initialPage.items);
   const [cursor, setCursor] = useState(initialPage.nextCursor);
   const [loading, setLoading] = useState(false);
@@ -99,6 +101,7 @@ export default function RunsIsland({ teamId, cars, initialPage, canRecord, canEd
           runs={runs}
           cars={cars}
           canEdit={canEdit}
+          viewer={viewer}
           onChanged={upsert}
           onDeleted={(id) => setRuns((current) => current.filter((r) => r.id !== id))}
         />

@@ -4,6 +4,7 @@ import type { z } from 'zod';
 import { getDb, write } from '../../../db/client';
 import { cars, runs, type Run } from '../../../db/schema';
 import { checkRunRecords, parseRunCsv, type RowProblem } from '../../register/run-import';
+import { mayDeleteRun } from '../../register/run-deletion';
 import { checkRunTime, type RunInput, type runUpdateSchema } from '../../register/schemas';
 import type { TeamAccess } from '../guard';
 import { HttpError } from '../http';
@@ -179,7 +180,8 @@ export async function updateRun(
   });
 }
 
-export async function deleteRun(access: TeamAccess, runId: string): Promise<void> {
+/** Deletes a run: crew chiefs and owners any run, whoever logged it within 24 hours (see run-deletion.ts). */
+export async function deleteRun(access: TeamAccess, runId: string, now = new Date()): Promise<void> {
   await write(async (tx) => {
     const before = await tx
       .select()
@@ -187,6 +189,11 @@ export async function deleteRun(access: TeamAccess, runId: string): Promise<void
       .where(and(eq(runs.id, runId), eq(runs.teamId, access.team.id)))
       .get();
     if (!before) throw new HttpError(404, 'No such run in this team.');
+    if (!mayDeleteRun(access.team.role, access.user.id, before, now))
+      throw new HttpError(
+        403,
+        'You may delete a run you logged yourself within 24 hours of logging it; ask a crew chief to delete this one.',
+      );
     await tx.delete(runs).where(eq(runs.id, runId));
     await recordAudit(tx, {
       teamId: access.team.id,

@@ -18,7 +18,8 @@ export const PATCH = handle(async ({ locals, params, request, url }) => {
   return json(run);
 });
 
+/** Crew chief or owner; a technician only a run they logged within the last 24 hours. */
 export const DELETE = handle(async ({ locals, params }) => {
-  await deleteRun(requirePermission(locals, 'runs:edit'), params.id ?? '');
+  await deleteRun(requirePermission(locals, 'runs:record'), params.id ?? '');
   return new Response(null, { status: 204 });
 });
