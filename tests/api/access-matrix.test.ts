@@ -133,6 +133,16 @@ const MATRIX: Record<string, Rule> = {
   'GET /api/invitations': { own: MANAGERS, other: null },
   'POST /api/invitations': { own: MANAGERS, other: null },
   'POST /api/invitations/accept': { own: SIGNED_IN, other: null },
+  'DELETE /api/invitations/[id]': {
+    own: MANAGERS,
+    other: NOT_FOUND_FOR(MANAGERS),
+    fresh: () =>
+      freshRecord('/api/invitations', {
+        email: freshSerial('cancel').toLowerCase() + '@lashline.test',
+        role: 'viewer',
+      }),
+  },
+  'POST /api/invitations/[id]/resend': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS) },
   'GET /api/members': { own: MEMBER, other: null },
   'PATCH /api/members/[userId]': {
     own: OWNER_ONLY,

@@ -21,6 +21,8 @@ export interface TeamRecords {
   profileId: string;
   /** A member of the team other than the manager (for /api/members/[userId]). */
   memberId: string;
+  /** An open invitation, to nobody in particular. */
+  invitationId: string;
 }
 
 let serial = 0;
@@ -65,6 +67,13 @@ export async function makeTeamRecords(
   const photo = await uploadPhoto(author, inspectionId, await smallPng(), { type: 'image/png', filename: 'p.png' });
   if (photo.status !== 201) throw new Error(`making a photo: ${photo.status} ${JSON.stringify(photo.body)}`);
   const reviewId = await created(manager.post('/api/reviews', { gearSetId }), 'a review');
+  const invitationId = await created(
+    manager.post('/api/invitations', {
+      email: `${freshSerial('invited').toLowerCase()}@lashline.test`,
+      role: 'viewer',
+    }),
+    'an invitation',
+  );
   const profiles = await manager.get<{ items: { profileId: string }[] }>('/api/tolerance-profiles');
   const profileId = profiles.body.items[0]?.profileId;
   if (!profileId) throw new Error(`no tolerance profile: ${JSON.stringify(profiles.body)}`);
@@ -80,6 +89,7 @@ export async function makeTeamRecords(
     photoId: photo.body.id as string,
     reviewId,
     profileId,
+    invitationId,
   };
 }
 
@@ -98,6 +108,7 @@ export function recordsToParams(records: TeamRecords, pattern: string): Record<s
     ['/reviews/', records.reviewId],
     ['/runs/', records.runId],
     ['/teams/', records.teamId],
+    ['/invitations/', records.invitationId],
   ];
   const id = byPrefix.find(([prefix]) => path.startsWith(prefix))?.[1];
   return { ...(id === undefined ? {} : { id }), photoId: records.photoId, userId: records.memberId };

@@ -10,7 +10,10 @@ export const GET = handle(async ({ locals }) => {
   return json({ items: await listOpenInvitations(team.id), nextCursor: null });
 });
 
-/** `{ email, role }` → 201; the e-mail with the single-use link leaves through the outbox. */
+/**
+ * `{ email, role }` → 201; the e-mail with the single-use link leaves through the outbox. An address with an
+ * open invitation gets it again with a new link (200, `resent: true`); a member of the team is refused (409).
+ */
 export const POST = handle(async ({ request, locals, url }) => {
   const { user, team } = requirePermission(locals, 'members:invite');
   const { email, role } = await readJson(request, invitationSchema);
@@ -22,5 +25,12 @@ export const POST = handle(async ({ request, locals, url }) => {
     role,
     baseUrl: resolveBaseUrl(url),
   });
-  return json({ id: invitation.id, email, role, expiresAt: invitation.expiresAt.toISOString() }, 201);
+  const view = {
+    id: invitation.id,
+    email,
+    role,
+    expiresAt: invitation.expiresAt.toISOString(),
+    resent: invitation.resent,
+  };
+  return json(view, invitation.resent ? 200 : 201);
 });
