@@ -103,7 +103,12 @@ describe('reviews and decisions', () => {
     expect(decided.status).toBe(200);
     expect(decided.body).toMatchObject({ status: 'decided', decision: 'keep', reinspectAtRuns: 2 });
     expect((await team.viewer.get(`/api/parts/${setId}`)).body.status).toBe('in-service');
-    await smtp.waitFor((m) => m.subject.includes('Decision on gear set') && m.subject.includes('Keep in service'));
+    const decisionMail = await smtp.waitFor(
+      (m) => m.subject.includes('Decision on gear set') && m.subject.includes('Keep in service'),
+    );
+    // The set's state in words, never the stored value.
+    expect(decisionMail.text).toContain('The set is now: in service');
+    expect(decisionMail.text).not.toMatch(/in-service/);
     await team.tech.post('/api/runs', { carId, at: '2026-02-02T10:00:00Z' });
     expect(smtp.received.filter((m) => m.subject.includes('Re-inspection due'))).toHaveLength(0);
     await team.tech.post('/api/runs', { carId, at: '2026-02-02T11:00:00Z' });

@@ -15,6 +15,7 @@ import {
 import { DECISION_LABELS, type decisionSchema } from '../../reviews/schemas';
 import { findMentions, mentionMatches } from '../../notices/compose';
 import type { TeamAccess } from '../guard';
+import { PART_STATUS_LABELS } from '../../register/kinds';
 import { HttpError } from '../http';
 import { recordAudit } from '../audit';
 import { analyseStoredGearSet } from '../inspections/gear-set-analysis';
@@ -326,7 +327,7 @@ export async function decideReview(
         ...(input.reinspectAfterRuns
           ? [`Re-inspect after ${input.reinspectAfterRuns} more runs (at ${set.totalRuns + input.reinspectAfterRuns}).`]
           : []),
-        `New status: ${status}`,
+        `The set is now: ${PART_STATUS_LABELS[status].toLowerCase()}`,
       ],
       link: `${baseUrl}/reviews/${reviewId}`,
     });
