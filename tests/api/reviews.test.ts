@@ -112,7 +112,8 @@ describe('reviews and decisions', () => {
     await team.tech.post('/api/runs', { carId, at: '2026-02-02T10:00:00Z' });
     expect(smtp.received.filter((m) => m.subject.includes('Re-inspection due'))).toHaveLength(0);
     await team.tech.post('/api/runs', { carId, at: '2026-02-02T11:00:00Z' });
-    await smtp.waitFor((m) => m.subject.includes('Re-inspection due'));
+    const due = await smtp.waitFor((m) => m.subject.includes('Re-inspection due'));
+    expect(due.text).toContain('Decision: Keep in service — re-inspect after 2 runs');
     await team.tech.post('/api/runs', { carId, at: '2026-02-02T12:00:00Z' });
     await new Promise((r) => setTimeout(r, 2500));
     const ownerEmail = (await team.owner.get('/api/account')).body.email;

@@ -2,6 +2,7 @@ import { and, eq, isNotNull, isNull } from 'drizzle-orm';
 import { getDb, write } from '../../../db/client';
 import { parts, partNotices, reviews } from '../../../db/schema';
 import { reachedThresholds } from '../../notices/thresholds';
+import { DECISION_LABELS } from '../../reviews/schemas';
 import { readTeamSettings } from '../register/team-settings';
 import { countRunsForParts } from '../register/run-counts';
 import { queueNotice } from './notices';
@@ -93,7 +94,7 @@ export async function announceRunThresholds(teamId: string, baseUrl: string): Pr
         subject: `Re-inspection due for gear set ${set?.serial ?? ''}`,
         facts: [
           `Gear set: ${set?.serial ?? review.gearSetId}`,
-          `Decision: ${review.decision} — re-inspect after ${review.reinspectAfterRuns} runs`,
+          `Decision: ${review.decision ? DECISION_LABELS[review.decision] : 'none recorded'} — re-inspect after ${review.reinspectAfterRuns} runs`,
           `Runs now: ${counts.get(review.gearSetId)?.totalRuns ?? 0} (due at ${review.reinspectAtRuns})`,
         ],
         link: `${baseUrl}/inspections/new?gearSetId=${review.gearSetId}`,
