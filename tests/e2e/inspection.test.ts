@@ -161,10 +161,12 @@ describe('the inspection sheet in a real browser', () => {
     );
     expect(again).toBe(200);
 
-    // A photo of the drive side, with its upload progress, once the inspection is on the server.
-    await page
-      .getByTestId('photo-input-drive')
-      .setInputFiles({ name: 'drive.jpg', mimeType: 'image/jpeg', buffer: await patternJpeg() });
+    // A photo of the drive side, with its upload progress, once the inspection is on the server. Enter on
+    // "Add drive photos" opens the picker, as Space does.
+    const chooser = page.waitForEvent('filechooser', { timeout: 10_000 });
+    await page.getByTestId('photo-input-drive').focus();
+    await page.keyboard.press('Enter');
+    await (await chooser).setFiles({ name: 'drive.jpg', mimeType: 'image/jpeg', buffer: await patternJpeg() });
     await page.getByTestId('photos-drive').getByTestId('photo-thumbnail').waitFor({ timeout: 20_000 });
 
     // The gear set's page lists it, and the detail page reads back in the reader's unit.

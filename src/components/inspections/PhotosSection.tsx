@@ -208,6 +208,13 @@ function PhotoSide({
           onAdd(e.target.files);
           e.target.value = '';
         }}
+        onKeyDown={(e) => {
+          // A file input opens its picker on Space only; Enter would otherwise move the sheet to its next field.
+          if (e.key !== 'Enter') return;
+          e.preventDefault();
+          e.stopPropagation();
+          e.currentTarget.click();
+        }}
         data-testid={`photo-input-${side}`}
       />
       <label

@@ -1,4 +1,4 @@
-import { lazy, Suspense, useState, type ReactElement } from 'react';
+import { lazy, Suspense, useEffect, useRef, useState, type ReactElement } from 'react';
 import { addedPartToHref } from '../../lib/register/parts-href';
 import { fetchTeamSettings, type TeamSettingsAnswer } from './team-settings-query';
 
@@ -18,6 +18,8 @@ export default function PartActions({ onAdded = goTo }: Props): ReactElement {
   // The team's defaults are asked for when the form is opened, while its code is still on the way.
   const [settings, setSettings] = useState<Promise<TeamSettingsAnswer> | null>(null);
 
+  const button = useRef<HTMLButtonElement>(null);
+
   const open = () => {
     const answer = fetchTeamSettings();
     // The form reports a failure itself; this keeps it from also being an unhandled rejection.
@@ -25,12 +27,25 @@ export default function PartActions({ onAdded = goTo }: Props): ReactElement {
     setSettings(answer);
   };
 
+  // A press made before this island hydrated was noted on the button by the page's script: honour it now.
+  useEffect(() => {
+    const element = button.current;
+    if (!element) return;
+    element.dataset.ready = 'true';
+    if (element.dataset.pressed) {
+      delete element.dataset.pressed;
+      open();
+    }
+  }, []);
+
   if (!settings) {
     return (
       <div className="mb-4">
         <button
+          ref={button}
           type="button"
           className="btn"
+          data-add-part
           onClick={open}
           onPointerEnter={() => void loadAddPart()}
           onFocus={() => void loadAddPart()}
