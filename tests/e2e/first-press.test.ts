@@ -35,4 +35,22 @@ describe('a press made while a page is still waking', () => {
     await page.getByRole('heading', { name: 'Add a part' }).waitFor({ timeout: 20_000 });
     await page.close();
   });
+
+  it('says so after a few seconds when the inspection sheet cannot open, and offers a reload that opens it', async () => {
+    const page = await browser.newPage({ viewport: { width: 800, height: 1280 } });
+    await signInOnPage(page, server.baseUrl, 'tech@lashline.test');
+    const sheetCode = /\/_astro\/InspectionSheet[^/]*\.js$/;
+    await page.route(sheetCode, (route) => route.abort('internetdisconnected'));
+    await page.goto(`${server.baseUrl}/inspections/new`);
+    const late = page.getByTestId('sheet-not-opening');
+    expect(await page.getByText('Opening the inspection sheet…').isVisible()).toBe(true);
+    expect(await late.isVisible()).toBe(false);
+    await late.waitFor({ state: 'visible', timeout: 15_000 });
+    expect(await late.textContent()).toMatch(/What you typed on this device is kept/);
+
+    await page.unroute(sheetCode);
+    await late.getByRole('link', { name: 'Reload the sheet' }).click();
+    await page.getByTestId('inspection-sheet').waitFor({ timeout: 20_000 });
+    await page.close();
+  });
 });

@@ -40,7 +40,14 @@ export default function InspectionSheet(props: SheetProps) {
   if (!opened) {
     return (
       <div className="card" aria-busy="true">
-        Opening the inspection sheet…
+        <p>Opening the inspection sheet…</p>
+        {/* Shown by CSS only after a few seconds: if the sheet's code never arrives, this is what remains. */}
+        <p className="late-notice mt-2" data-testid="sheet-not-opening">
+          The sheet has not opened: its code did not arrive, perhaps because the connection dropped. What you typed on
+          this device is kept.{' '}
+          {/* eslint-disable-next-line jsx-a11y/anchor-is-valid -- an empty address is this very page, query included: a reload with no script */}
+          <a href="">Reload the sheet</a>
+        </p>
       </div>
     );
   }
