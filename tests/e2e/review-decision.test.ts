@@ -39,10 +39,26 @@ describe('a crew chief decides a review in the browser', () => {
         .count(),
     ).toBe(1);
 
-    await page.getByLabel('Retire').check();
+    // Nothing chosen: the page says so at the field and keeps what was typed.
     await page.getByLabel('Reason').fill('Runout beyond the limit');
+    await page.getByRole('button', { name: 'Check the decision' }).click();
+    await page.getByText('Choose one of the three decisions.').waitFor();
+    expect(await page.getByLabel('Reason').inputValue()).toBe('Runout beyond the limit');
+    expect(page.url()).toMatch(/#decide$/);
+    // Each choice is a target a gloved finger can hit.
+    const tile = await page.locator('label.choice-tile').first().boundingBox();
+    expect(tile!.height).toBeGreaterThanOrEqual(44);
+
+    await page.getByLabel('Retire').check();
     await page.getByLabel('Notes').fill('Wave keeps growing; past its life anyway.');
-    await page.getByRole('button', { name: 'Record the decision' }).click();
+    await page.getByRole('button', { name: 'Check the decision' }).click();
+    // The decision in words, once more, before it is recorded.
+    const summary = page.getByTestId('decision-summary');
+    await summary.waitFor();
+    expect(await summary.textContent()).toContain('Check, then record: Retire');
+    expect(await summary.textContent()).toContain('Reason: Runout beyond the limit');
+    expect(await page.locator('[data-testid="decision"]').count()).toBe(0);
+    await summary.getByRole('button', { name: 'Record: Retire' }).click();
     await page.waitForSelector('[data-testid="decision"]');
     expect(await page.getByTestId('decision').textContent()).toContain('Decision: Retire');
 

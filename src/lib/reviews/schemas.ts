@@ -15,6 +15,12 @@ export const commentSchema = z.object({
 
 export const DECISIONS = ['keep', 'reshim', 'retire'] as const;
 export const DECISION_LABELS = { keep: 'Keep in service', reshim: 'Re-shim and re-inspect', retire: 'Retire' } as const;
+/** What each decision means for the set, under its choice on the form. */
+export const DECISION_HINTS = {
+  keep: 'The set runs on as it is, and is inspected again after the runs below.',
+  reshim: 'The set is re-shimmed, then inspected again after the runs below.',
+  retire: 'The set comes out of service for good and leaves the board.',
+} as const;
 
 export const DEFAULT_RETIREMENT_REASONS = [
   'Spalling or pitting on the teeth',
