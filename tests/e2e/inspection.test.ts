@@ -137,6 +137,16 @@ describe('the inspection sheet in a real browser', () => {
     await page.keyboard.press('Enter');
     await page.getByTestId('submitted').waitFor();
     expect(await sheet.getAttribute('data-status')).toBe('submitted');
+    // The save bar says so where the button was, holds the focus, and offers the next step.
+    const done = page.getByTestId('submitted-bar');
+    await expect
+      .poll(() => page.evaluate(() => document.activeElement?.getAttribute('data-testid')))
+      .toBe('submitted-bar');
+    expect(await done.textContent()).toContain('Submitted.');
+    expect(await done.getByRole('link', { name: 'Open the inspection' }).getAttribute('href')).toMatch(
+      /^\/inspections\/[0-9a-f-]{36}$/,
+    );
+    expect(await done.getByRole('link', { name: 'Record another' }).getAttribute('href')).toBe('/inspections/new');
 
     // What the server keeps is what was typed.
     const stored = await page.evaluate(

@@ -163,6 +163,28 @@ function Sheet({ props, boot, store }: { props: SheetProps; boot: BootResult; st
     sync.change({ shimRows: rows }, false);
   };
 
+  // The save bar sits over the bottom of the page: focus never lands behind it (scroll padding of its height).
+  const barRef = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    const bar = barRef.current;
+    if (!bar || typeof ResizeObserver === 'undefined') return;
+    const root = document.documentElement;
+    const observer = new ResizeObserver(() => {
+      root.style.scrollPaddingBottom = `${bar.offsetHeight + 12}px`;
+    });
+    observer.observe(bar);
+    return () => {
+      observer.disconnect();
+      root.style.scrollPaddingBottom = '';
+    };
+  }, []);
+
+  // Just submitted: the bar says so where the button was, and focus goes there with the next steps.
+  const submittedRef = useRef<HTMLParagraphElement>(null);
+  useEffect(() => {
+    if (submitted) submittedRef.current?.focus();
+  }, [submitted]);
+
   const status = syncState.status;
   const readOnly = status === 'submitted' && !props.canEditAny;
   const editingSubmitted = status === 'submitted' && props.canEditAny;
@@ -237,7 +259,10 @@ function Sheet({ props, boot, store }: { props: SheetProps; boot: BootResult; st
           <PatternSection disabled={readOnly} />
           <PhotosSection inspectionId={serverId} online={online} canChange={canChangePhotos} />
           <ConditionSection disabled={readOnly} />
-          <div className="sticky bottom-0 z-10 -mx-4 flex items-center gap-3 border-t-2 border-ink-soft bg-panel px-4 py-2">
+          <div
+            ref={barRef}
+            className="sticky bottom-0 z-10 -mx-4 flex flex-wrap items-center gap-3 border-t-2 border-ink-soft bg-panel px-4 py-2"
+          >
             <p
               role="status"
               aria-live="polite"
@@ -249,6 +274,18 @@ function Sheet({ props, boot, store }: { props: SheetProps; boot: BootResult; st
               </span>
               {saveStatus.text}
             </p>
+            {submitted && serverId && (
+              <p
+                ref={submittedRef}
+                tabIndex={-1}
+                className="flex flex-wrap items-center gap-x-4 gap-y-1 font-semibold"
+                data-testid="submitted-bar"
+              >
+                <span>Submitted.</span>
+                <a href={`/inspections/${serverId}`}>Open the inspection</a>
+                <a href="/inspections/new">Record another</a>
+              </p>
+            )}
             {!readOnly && (
               <button
                 type="submit"

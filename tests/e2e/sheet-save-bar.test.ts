@@ -1,0 +1,49 @@
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launchBrowser, signInOnPage } from '../helpers/browser';
+import { startServer, type RunningServer } from '../helpers/server';
+
+let server: RunningServer;
+let browser: Browser;
+beforeAll(async () => {
+  server = await startServer({ demo: true });
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+describe('the sheet’s save bar on a tablet', () => {
+  it('never covers the field that has the focus while tabbing through the whole sheet', async () => {
+    const page = await browser.newPage({ viewport: { width: 800, height: 1280 } });
+    await signInOnPage(page, server.baseUrl, 'tech@lashline.test');
+    await page.goto(`${server.baseUrl}/inspections/new`);
+    await page.getByTestId('inspection-sheet').waitFor();
+    await page.getByTestId('reading-1').focus();
+
+    const hidden: string[] = [];
+    let visited = 0;
+    for (let step = 0; step < 150; step += 1) {
+      await page.keyboard.press('Tab');
+      const where = await page.evaluate(() => {
+        const focused = document.activeElement as HTMLElement | null;
+        const sheet = document.querySelector('[data-testid="inspection-sheet"]');
+        const bar = document.querySelector('[data-testid="save-status"]')?.parentElement;
+        if (!focused || !sheet?.contains(focused) || !bar) return null;
+        if (bar.contains(focused)) return { name: 'bar', covered: false, done: true };
+        const box = focused.getBoundingClientRect();
+        const barTop = bar.getBoundingClientRect().top;
+        const name = focused.getAttribute('data-testid') ?? focused.getAttribute('aria-label') ?? focused.tagName;
+        return { name, covered: box.bottom > barTop + 1, done: false };
+      });
+      if (!where) continue;
+      if (where.done) break;
+      visited += 1;
+      if (where.covered) hidden.push(where.name);
+    }
+    expect(visited).toBeGreaterThan(20);
+    expect(hidden).toEqual([]);
+    await page.close();
+  });
+});
