@@ -1,10 +1,10 @@
 import { useId } from 'react';
-import { useController, useFormContext, useWatch } from 'react-hook-form';
+import { useFormContext, useWatch } from 'react-hook-form';
 import { needsRunsReason, type SheetValues } from '../../lib/inspections/sheet-values';
 import { INDICATOR_RESOLUTIONS } from '../../lib/units';
-import { dateToLocalInput, localInputToIso } from '../shared/when';
 import { EntryField, FieldError, SelectField, SheetSection } from './fields';
 import type { SheetContext, SheetProps } from './sheet-context';
+import { WhenField } from './WhenField';
 
 interface SetupProps {
   props: SheetProps;
@@ -18,8 +18,6 @@ interface SetupProps {
 export function SetupSection({ props, context, countedRuns, gearSetLocked, disabled }: SetupProps) {
   const { control, register, formState, getFieldState } = useFormContext<SheetValues>();
   const [runs] = useWatch({ control, name: ['runsAtInspection'] });
-  const when = useController({ control, name: 'inspectedAt' });
-  const whenId = useId();
   const reasonId = useId();
   const set = context.gearSet;
   const showReason = needsRunsReason(runs, countedRuns);
@@ -58,20 +56,7 @@ export function SetupSection({ props, context, countedRuns, gearSetLocked, disab
             ...props.assemblies.map((a) => ({ value: a.id, label: `${a.serial} ${a.name}` })),
           ]}
         />
-        <div className="flex flex-col gap-1">
-          <label htmlFor={whenId}>Date and time of the inspection</label>
-          <input
-            id={whenId}
-            type="datetime-local"
-            ref={when.field.ref}
-            value={when.field.value ? dateToLocalInput(new Date(when.field.value)) : ''}
-            onChange={(e) => when.field.onChange(localInputToIso(e.target.value) ?? '')}
-            onBlur={when.field.onBlur}
-            aria-invalid={when.fieldState.error ? 'true' : undefined}
-            data-enter-next
-          />
-          <FieldError id={`${whenId}-error`} message={when.fieldState.error?.message} />
-        </div>
+        <WhenField />
         <EntryField
           name="runsAtInspection"
           label="Runs at inspection"

@@ -14,7 +14,7 @@ afterAll(async () => {
   await server?.stop();
 });
 
-describe('the sheet’s save bar on a tablet', () => {
+describe('the sheet on a tablet', () => {
   it('never covers the field that has the focus while tabbing through the whole sheet', async () => {
     const page = await browser.newPage({ viewport: { width: 800, height: 1280 } });
     await signInOnPage(page, server.baseUrl, 'tech@lashline.test');
@@ -44,6 +44,30 @@ describe('the sheet’s save bar on a tablet', () => {
     }
     expect(visited).toBeGreaterThan(20);
     expect(hidden).toEqual([]);
+    await page.close();
+  });
+
+  it('takes the date and time in one field with a Now button: two Tab presses to the runs field, not seven', async () => {
+    const page = await browser.newPage({ viewport: { width: 800, height: 1280 } });
+    await signInOnPage(page, server.baseUrl, 'tech@lashline.test');
+    await page.goto(`${server.baseUrl}/inspections/new`);
+    const when = page.getByTestId('inspected-at');
+    await when.waitFor();
+    await when.fill('2026-05-03 7:05');
+    await when.press('Tab');
+    expect(await when.inputValue()).toBe('2026-05-03 07:05');
+    expect(await page.getByTestId('inspected-at-read').textContent()).toMatch(/2026/);
+    expect(await page.evaluate(() => document.activeElement?.textContent)).toBe('Now');
+    await page.keyboard.press('Tab');
+    expect(await page.evaluate(() => document.activeElement?.getAttribute('data-testid'))).toBe('runs');
+
+    // Words that are no time are answered at the field; "now" is this minute.
+    await when.fill('yesterday');
+    await when.press('Tab');
+    expect(await page.getByText(/Not a date and time/).count()).toBe(1);
+    await page.getByRole('button', { name: 'Now', exact: true }).click();
+    expect(await page.getByText(/Not a date and time/).count()).toBe(0);
+    expect(await when.inputValue()).toMatch(/^\d{4}-\d\d-\d\d \d\d:\d\d$/);
     await page.close();
   });
 });
