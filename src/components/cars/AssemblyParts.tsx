@@ -26,7 +26,7 @@ export function AssemblyParts({ placeName, parts, dueWithin, canInstall, busy, o
           data-serial={part.serial}
         >
           <div className="min-w-40 flex-1">
-            <a href={`/parts/${encodeURIComponent(part.id)}`} className="text-lg font-bold">
+            <a href={`/parts/${encodeURIComponent(part.id)}`} className="tap-link text-lg font-bold">
               {part.serial}
             </a>{' '}
             <span className="text-ink-soft">

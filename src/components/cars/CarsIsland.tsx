@@ -234,7 +234,7 @@ export default function CarsIsland({ canInstall, canEdit, dueWithin, ...initial 
           <ul className="grid gap-2 sm:grid-cols-2">
             {loose.map((part) => (
               <li key={part.id} className="flex flex-wrap items-center gap-2">
-                <a href={`/parts/${encodeURIComponent(part.id)}`} className="font-bold">
+                <a href={`/parts/${encodeURIComponent(part.id)}`} className="tap-link font-bold">
                   {part.serial}
                 </a>
                 <span className="text-ink-soft">

@@ -19,7 +19,7 @@ import { PALETTE } from './palette';
 
 /**
  * One "measure against runs" chart, drawn from a shape made in src/lib/charts. Each point is a link
- * to its inspection (a real <a> in the SVG: click, tap or Enter opens it), with a 36 px hit area; the
+ * to its inspection (a real <a> in the SVG: click, tap or Enter opens it), with a 44 px hit area; the
  * fitted line is solid, its projection dashed to the run where it meets a limit. Recharts writes
  * inline styles, which the page CSP refuses in server HTML, so the chart itself is drawn only once
  * the island runs; the server sends a box of the same size and the figures in words and a table.
@@ -55,7 +55,7 @@ function PointShape({
       onMouseEnter={() => onSelect(payload)}
       onFocus={() => onSelect(payload)}
     >
-      <circle className="chart-point-hit" cx={cx} cy={cy} r={18} fill="transparent" />
+      <circle className="chart-point-hit" cx={cx} cy={cy} r={22} fill="transparent" />
       {mark === 'circle' ? (
         <circle cx={cx} cy={cy} r={6.5} fill={PALETTE.ink} stroke={PALETTE.panel} strokeWidth={2} />
       ) : (

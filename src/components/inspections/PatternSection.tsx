@@ -99,7 +99,7 @@ function PatternSide({ side, disabled }: { side: 'drive' | 'coast'; disabled: bo
             value={percent(value?.length ?? 0.4)}
             onChange={(e) => setPart('length', e.target.value)}
             disabled={disabled || !value}
-            className="!min-h-0 !border-0 !p-0 accent-petrol"
+            className="!min-h-11 !border-0 !p-0 accent-petrol"
             data-testid={`pattern-${side}-length`}
           />
         </div>
