@@ -1,5 +1,6 @@
-import { useId } from 'react';
+import { useId, useState } from 'react';
 import { useFormContext, useWatch } from 'react-hook-form';
+import { gearSetOptionLabel, pickableGearSets } from '../../lib/inspections/gear-set-picker';
 import { needsRunsReason, type SheetValues } from '../../lib/inspections/sheet-values';
 import { INDICATOR_RESOLUTIONS } from '../../lib/units';
 import { EntryField, FieldError, SelectField, SheetSection } from './fields';
@@ -20,6 +21,10 @@ export function SetupSection({ props, context, countedRuns, gearSetLocked, disab
   const [runs] = useWatch({ control, name: ['runsAtInspection'] });
   const reasonId = useId();
   const set = context.gearSet;
+  const [query, setQuery] = useState('');
+  const searchId = useId();
+  const chosenId = useWatch({ control, name: 'gearSetId' }) || null;
+  const offered = pickableGearSets(props.gearSets, query, chosenId);
   const showReason = needsRunsReason(runs, countedRuns);
   const reasonError = getFieldState('runsChangeReason', formState).error?.message;
   const choice = (name: 'unit' | 'torqueUnit', value: string, label: string) => (
@@ -33,19 +38,35 @@ export function SetupSection({ props, context, countedRuns, gearSetLocked, disab
     <SheetSection id="setup" title="Set-up">
       <fieldset disabled={disabled} className="grid gap-4 md:grid-cols-2">
         <legend className="sr-only">Which gear set, when and how</legend>
-        <SelectField
-          name="gearSetId"
-          label="Gear set"
-          disabled={gearSetLocked}
-          hint={gearSetLocked ? 'Fixed once the draft is on Lashline.' : undefined}
-          options={[
-            { value: '', label: 'Choose a gear set…' },
-            ...props.gearSets.map((g) => ({
-              value: g.id,
-              label: `${g.serial}${g.ratioLabel ? ` · ${g.ratioLabel}` : ''}${g.status === 'in-service' ? '' : ` · ${g.status}`}`,
-            })),
-          ]}
-        />
+        <div className="flex flex-col gap-2">
+          {!gearSetLocked && props.gearSets.length > 8 && (
+            <div className="flex flex-col gap-1">
+              <label htmlFor={searchId}>Find a gear set by serial</label>
+              <input
+                id={searchId}
+                type="search"
+                value={query}
+                onChange={(e) => setQuery(e.target.value)}
+                autoComplete="off"
+                aria-describedby={`${searchId}-count`}
+                data-testid="gear-set-search"
+              />
+              <p id={`${searchId}-count`} className="text-sm text-ink-soft" aria-live="polite">
+                {`${offered.length} of ${props.gearSets.length} sets`}
+              </p>
+            </div>
+          )}
+          <SelectField
+            name="gearSetId"
+            label="Gear set"
+            disabled={gearSetLocked}
+            hint={gearSetLocked ? 'Fixed once the draft is on Lashline.' : 'Retired and scrapped sets are not offered.'}
+            options={[
+              { value: '', label: 'Choose a gear set…' },
+              ...offered.map((g) => ({ value: g.id, label: gearSetOptionLabel(g) })),
+            ]}
+          />
+        </div>
         <SelectField
           name="assemblyId"
           label="Rear-end assembly"
