@@ -4,7 +4,7 @@ import { Secret, TOTP } from 'otpauth';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { type ApiClient, TEST_PASSWORD, signedInClient } from '../helpers/api-client';
 import { startServer, type RunningServer } from '../helpers/server';
-import { postSignIn } from '../helpers/sign-in-requests';
+import { postSignIn, prepareSignIn } from '../helpers/sign-in-requests';
 
 /**
  * The review's finding 7 (and the code-guessing half of 3): a TOTP code taken twice, 40-bit recovery
@@ -77,11 +77,22 @@ describe('the second factor, attacked', () => {
     }
   });
 
-  it('spends a recovery code once, even when it is sent five times at the same moment', async () => {
+  it('spends a recovery code once, even when it is sent ten times at the same moment', async () => {
     const { email, recoveryCodes } = await ownerWithSecondFactor();
-    const answers = await Promise.all(
-      Array.from({ length: 5 }, () => signInWith(email, TEST_PASSWORD, recoveryCodes[0])),
+    // Every request holds its CSRF token first, so the ten leave together.
+    const sends = await Promise.all(
+      Array.from({ length: 10 }, () =>
+        prepareSignIn(server.baseUrl, {
+          email,
+          password: TEST_PASSWORD,
+          code: recoveryCodes[0],
+          headers: newAddress(),
+        }),
+      ),
     );
+    const answers = (await Promise.all(sends.map((send) => send()))).map(({ client }) => ({
+      signedIn: client.hasSessionCookie(),
+    }));
     expect(answers.filter((a) => a.signedIn)).toHaveLength(1);
   });
 

@@ -26,7 +26,7 @@ let addressCounter = 0;
 const fromOwnAddress = () => ({ 'x-forwarded-for': `198.51.100.${(addressCounter += 1)}` });
 
 describe('the sign-in limit, attacked', () => {
-  it('(control) signs in with a JSON body, and with a repeated e-mail field Auth.js reads the last', async () => {
+  it('(control) signs in with a JSON body, with a repeated e-mail field (Auth.js reads the last) and at the path with a trailing slash', async () => {
     const { email } = await signedInClient(proxied.baseUrl);
     const json = await postSignIn(proxied.baseUrl, {
       email,
@@ -41,6 +41,13 @@ describe('the sign-in limit, attacked', () => {
       headers: fromOwnAddress(),
     });
     expect(repeated.client.hasSessionCookie()).toBe(true);
+    const slash = await postSignIn(proxied.baseUrl, {
+      email,
+      password: TEST_PASSWORD,
+      headers: fromOwnAddress(),
+      path: '/api/auth/callback/credentials/',
+    });
+    expect(slash.client.hasSessionCookie()).toBe(true);
   });
 
   it('counts JSON bodies against the account: a locked account stays locked, whatever the body type', async () => {

@@ -14,10 +14,11 @@ export interface SignInRequest {
   path?: string;
 }
 
-export async function postSignIn(
+/** Fetches the CSRF token now and returns the sign-in to send later (so a burst can leave at one moment). */
+export async function prepareSignIn(
   baseUrl: string,
   request: SignInRequest,
-): Promise<{ response: Response; client: ApiClient }> {
+): Promise<() => Promise<{ response: Response; client: ApiClient }>> {
   const client = new ApiClient(baseUrl);
   const csrf = await client.get<{ csrfToken: string }>('/api/auth/csrf');
   const fields: [string, string][] = [
@@ -31,13 +32,23 @@ export async function postSignIn(
     ...(request.code === undefined ? [] : [['code', request.code] as [string, string]]),
   ];
   const json = request.as === 'json';
-  const response = await client.request(request.path ?? '/api/auth/callback/credentials', {
-    method: 'POST',
-    headers: {
-      'content-type': json ? 'application/json' : 'application/x-www-form-urlencoded',
-      ...request.headers,
-    },
-    body: json ? JSON.stringify(Object.fromEntries(fields)) : new URLSearchParams(fields),
-  });
-  return { response, client };
+  return async () => {
+    const response = await client.request(request.path ?? '/api/auth/callback/credentials', {
+      method: 'POST',
+      headers: {
+        'content-type': json ? 'application/json' : 'application/x-www-form-urlencoded',
+        ...request.headers,
+      },
+      body: json ? JSON.stringify(Object.fromEntries(fields)) : new URLSearchParams(fields),
+    });
+    return { response, client };
+  };
+}
+
+/** Sends one sign-in request now. */
+export async function postSignIn(
+  baseUrl: string,
+  request: SignInRequest,
+): Promise<{ response: Response; client: ApiClient }> {
+  return (await prepareSignIn(baseUrl, request))();
 }
