@@ -227,7 +227,10 @@ beforeAll(async () => {
     await database.execute(
       "SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' ORDER BY name",
     )
-  ).rows.map((row) => String(row.name));
+  ).rows
+    .map((row) => String(row.name))
+    // A refused password or code is counted against its limit by design: that table's rows are the refusal.
+    .filter((name) => name !== 'limit_attempts');
 }, 120_000);
 afterAll(async () => {
   database?.close();
