@@ -38,8 +38,12 @@ const config: FullAuthConfig = {
         const attempt = currentSignInAttempt();
         const parsed = signInSchema.safeParse(raw);
         // The middleware counted the attempt against the e-mail it read; anything else is refused.
-        if (!attempt || !parsed.success || parsed.data.email !== attempt.email) {
-          logSecurityEvent('sign-in-failed', { email: attempt?.email, reason: 'not counted by the limiter' });
+        if (!parsed.success) {
+          logSecurityEvent('sign-in-failed', { email: attempt?.email, reason: 'e-mail or password missing' });
+          return null;
+        }
+        if (!attempt || parsed.data.email !== attempt.email) {
+          logSecurityEvent('sign-in-failed', { email: parsed.data.email, reason: 'not counted by the limiter' });
           return null;
         }
         const { email, password } = parsed.data;

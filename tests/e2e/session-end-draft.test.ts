@@ -71,7 +71,7 @@ describe('an inspection sheet when the session ends', () => {
     await expect
       .poll(() => status(page).textContent(), { timeout: 15_000 })
       .toContain('Lashline did not take the last change');
-    expect((await page.evaluate(() => fetch('/api/account').then((r) => r.status))) as number).toBe(401);
+    expect(await page.evaluate(() => fetch('/api/account').then((r) => r.status))).toBe(401);
 
     // Opening the sheet again asks for a sign-in, and brings the person back to the same sheet.
     await page.reload();
