@@ -52,6 +52,7 @@ const TEMPLATES: Record<string, () => Record<string, unknown>> = {
   }),
   'POST /api/account/second-factor/confirm': () => ({ code: '123456' }),
   'POST /api/account/second-factor/disable': () => ({ password: 'not the password', code: '123456' }),
+  'POST /api/account/second-factor/recovery-codes': () => ({ password: 'not the password', code: '123456' }),
   'POST /api/accounts': () => ({ email: 'fuzz@example.test', password: 'short', name: 'Fuzz' }),
   'POST /api/analysis/backlash': () => ({
     unit: 'in',

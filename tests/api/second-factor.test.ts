@@ -109,6 +109,45 @@ describe('the second factor', () => {
   });
 });
 
+describe('recovery codes', () => {
+  it('are counted, and made anew with the password and a code; the old ones stop working', async () => {
+    const { client, email } = await signedInClient(server.baseUrl, { team: 'Recovery Crew' });
+    const setup = (await client.post('/api/account/second-factor')).body;
+    const first = (await client.post('/api/account/second-factor/confirm', { code: codeFor(setup.secret) })).body
+      .recoveryCodes as string[];
+    expect((await client.get('/api/account')).body.recoveryCodesLeft).toBe(10);
+    expect((await signInWithCode(email, first[0]!)).hasSessionCookie()).toBe(true);
+    expect((await client.get('/api/account')).body.recoveryCodesLeft).toBe(9);
+
+    const wrong = await client.post('/api/account/second-factor/recovery-codes', {
+      password: 'not the password at all',
+      code: first[1],
+    });
+    expect(wrong.status).toBe(400);
+    expect(wrong.body.error.fields).toHaveProperty('password');
+    // A recovery code, written with its dashes, proves the second factor here too (and is spent).
+    const remade = await client.post('/api/account/second-factor/recovery-codes', {
+      password: TEST_PASSWORD,
+      code: first[1],
+    });
+    expect(remade.status).toBe(200);
+    expect(remade.body.recoveryCodes).toHaveLength(10);
+    expect((await client.get('/api/account')).body.recoveryCodesLeft).toBe(10);
+    expect((await signInWithCode(email, first[2]!)).hasSessionCookie()).toBe(false);
+    expect((await signInWithCode(email, remade.body.recoveryCodes[0])).hasSessionCookie()).toBe(true);
+  });
+
+  it('are not offered to a person without a second factor', async () => {
+    const { client } = await signedInClient(server.baseUrl);
+    expect((await client.get('/api/account')).body.recoveryCodesLeft).toBeNull();
+    const refused = await client.post('/api/account/second-factor/recovery-codes', {
+      password: TEST_PASSWORD,
+      code: '123456',
+    });
+    expect(refused.status).toBe(409);
+  });
+});
+
 describe('a team that requires a second factor', () => {
   it('holds back its crew chiefs without one, until they turn it on; technicians are not asked', async () => {
     const owner = await signedInClient(server.baseUrl, { team: 'Strict Crew' });

@@ -1,8 +1,9 @@
-import { createCipheriv, createDecipheriv, createHmac, hkdfSync, randomBytes } from 'node:crypto';
+import { createCipheriv, createDecipheriv, hkdfSync, randomBytes } from 'node:crypto';
 import { and, eq, isNull, lt, or, sql } from 'drizzle-orm';
 import { Secret, TOTP } from 'otpauth';
 import { getDb, write } from '../../db/client';
 import { recoveryCodes, users, type User } from '../../db/schema';
+import { isRecoveryCodeShaped, makeRecoveryCodes, replaceRecoveryCodes, spendRecoveryCode } from './recovery-codes';
 import { SECOND_FACTOR_CODE_LIMIT, SECOND_FACTOR_CONFIRM_LIMIT } from '../rate-limit';
 import { requireAttemptAllowed } from './attempt-limits';
 import { requireRightPassword } from './password-recheck';
@@ -17,8 +18,6 @@ import { recordAudit } from './audit';
  * recovery codes of 80 random bits kept only as HMACs. The TOTP secret is stored encrypted
  * (AES-256-GCM, key derived from the session secret).
  */
-const RECOVERY_CODES = 10;
-
 function secretKey(): Buffer {
   return Buffer.from(hkdfSync('sha256', resolveAuthSecret(), 'lashline', 'totp-secret', 32));
 }
@@ -48,29 +47,6 @@ function totpFor(email: string, base32: string): TOTP {
   });
 }
 
-// 80 random bits, the least ASVS 6.5.2 accepts for a recovery code.
-const RECOVERY_CODE_BYTES = 10;
-
-// Recovery codes are kept as HMAC-SHA-256 under a key derived from the session secret: a copy of the
-// database alone cannot test guesses against them, and checking one costs no argon2 run (so a right
-// password with a wrong code takes as long as a wrong password).
-function recoveryKey(): Buffer {
-  return Buffer.from(hkdfSync('sha256', resolveAuthSecret(), 'lashline', 'recovery-code', 32));
-}
-
-const normaliseRecoveryCode = (code: string) => code.replace(/[\s-]/g, '').toLowerCase();
-const hashRecoveryCode = (code: string) =>
-  createHmac('sha256', recoveryKey()).update(normaliseRecoveryCode(code)).digest('hex');
-
-/** Ten new recovery codes, 80 random bits each, written `xxxxx-xxxxx-xxxxx-xxxxx`. */
-function makeRecoveryCodes(): string[] {
-  return Array.from({ length: RECOVERY_CODES }, () =>
-    randomBytes(RECOVERY_CODE_BYTES)
-      .toString('hex')
-      .replace(/(.{5})(?=.)/g, '$1-'),
-  );
-}
-
 /** The 30-second step a code from `totp` matches now, or null (one step of drift either way). */
 function matchingStep(totp: TOTP, token: string, now = Date.now()): number | null {
   const delta = totp.validate({ token, window: 1, timestamp: now });
@@ -87,24 +63,6 @@ async function takeTimeStep(userId: string, step: number): Promise<boolean> {
       .returning({ id: users.id }),
   );
   return taken.length === 1;
-}
-
-/** Uses up a recovery code in one conditional update: of two requests with one code, one wins. */
-async function spendRecoveryCode(userId: string, code: string): Promise<boolean> {
-  const used = await write((tx) =>
-    tx
-      .update(recoveryCodes)
-      .set({ usedAt: new Date() })
-      .where(
-        and(
-          eq(recoveryCodes.userId, userId),
-          eq(recoveryCodes.codeHash, hashRecoveryCode(code)),
-          isNull(recoveryCodes.usedAt),
-        ),
-      )
-      .returning({ userId: recoveryCodes.userId }),
-  );
-  return used.length === 1;
 }
 
 /** Starts setting up: a new secret waits for its first code. Returns what an authenticator app needs. */
@@ -151,12 +109,48 @@ export async function confirmSecondFactor(userId: string, code: string): Promise
         totpLastStep: step,
       })
       .where(eq(users.id, userId));
-    await tx.delete(recoveryCodes).where(eq(recoveryCodes.userId, userId));
-    await tx.insert(recoveryCodes).values(codes.map((c) => ({ userId, codeHash: hashRecoveryCode(c) })));
+    await replaceRecoveryCodes(tx, userId, codes);
     await recordAudit(tx, {
       teamId: null,
       actorId: userId,
       action: 'second-factor-on',
+      recordType: 'account',
+      recordId: userId,
+    });
+  });
+  return codes;
+}
+
+/**
+ * A signed-in person proving it again: the password (limited per account) and a current or recovery code
+ * (limited per account with the sign-in's code limit); 400 naming the field that is wrong, 429 past a limit.
+ */
+async function requirePasswordAndCode(user: User, password: string, code: string): Promise<void> {
+  await requireRightPassword(user, password, 'password');
+  const codeAttempt = await requireAttemptAllowed(
+    SECOND_FACTOR_CODE,
+    user.email,
+    SECOND_FACTOR_CODE_LIMIT,
+    'wrong codes',
+  );
+  if (!(await checkSecondFactor(user, code)))
+    throw new HttpError(400, 'code: that code does not match.', { code: 'does not match' });
+  await codeAttempt.forgive();
+}
+
+/** Ten new recovery codes in place of the old ones (used, lost or retired), with the password and a code. */
+export async function remakeRecoveryCodes(userId: string, password: string, code: string): Promise<string[]> {
+  const db = await getDb();
+  const user = await db.select().from(users).where(eq(users.id, userId)).get();
+  if (!user?.totpEnabledAt) throw new HttpError(409, 'The second factor is not on.');
+  await requirePasswordAndCode(user, password, code);
+  const codes = makeRecoveryCodes();
+  await write(async (tx) => {
+    await replaceRecoveryCodes(tx, userId, codes);
+    await recordAudit(tx, {
+      teamId: null,
+      actorId: userId,
+      action: 'recovery-codes-remade',
       recordType: 'account',
       recordId: userId,
     });
@@ -169,16 +163,7 @@ export async function disableSecondFactor(userId: string, password: string, code
   const db = await getDb();
   const user = await db.select().from(users).where(eq(users.id, userId)).get();
   if (!user?.totpEnabledAt) throw new HttpError(409, 'The second factor is not on.');
-  await requireRightPassword(user, password, 'password');
-  const codeAttempt = await requireAttemptAllowed(
-    SECOND_FACTOR_CODE,
-    user.email,
-    SECOND_FACTOR_CODE_LIMIT,
-    'wrong codes',
-  );
-  if (!(await checkSecondFactor(user, code)))
-    throw new HttpError(400, 'code: that code does not match.', { code: 'does not match' });
-  await codeAttempt.forgive();
+  await requirePasswordAndCode(user, password, code);
   await write(async (tx) => {
     await tx
       .update(users)
@@ -212,6 +197,6 @@ export async function checkSecondFactor(user: User, code: string): Promise<boole
     const step = matchingStep(totpFor(user.email, decryptSecret(user.totpSecret)), token);
     return step !== null && (await takeTimeStep(user.id, step));
   }
-  if (!/^[0-9a-f]{20}$/.test(normaliseRecoveryCode(code))) return false;
+  if (!isRecoveryCodeShaped(code)) return false;
   return spendRecoveryCode(user.id, code);
 }
