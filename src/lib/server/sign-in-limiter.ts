@@ -1,7 +1,7 @@
 import { AsyncLocalStorage } from 'node:async_hooks';
 import { emailSchema } from '../account-schemas';
 import { SECOND_FACTOR_CODE_LIMIT, SIGN_IN_ACCOUNT_LIMIT, SIGN_IN_ADDRESS_LIMIT } from '../rate-limit';
-import { clearAttempts, limitAttempt, limitAttempts, type AttemptVerdict } from './attempt-limits';
+import { clearAttempts, limitAttempt, limitAttempts, type AttemptCount, type AttemptVerdict } from './attempt-limits';
 
 /**
  * Sign-in attempts, limited per account and per client address, and wrong second-factor codes per
@@ -43,7 +43,8 @@ export async function readSignInEmail(request: Request): Promise<string> {
     return '';
   }
   const parsed = emailSchema.safeParse(raw);
-  return parsed.success ? parsed.data : typeof raw === 'string' ? raw.trim().toLowerCase() : '';
+  // Not an e-mail address: Auth.js's `authorize` refuses it before any account is looked up.
+  return parsed.success ? parsed.data : '';
 }
 
 /**
@@ -54,10 +55,16 @@ export async function beginSignInAttempt(
   email: string,
   clientAddress: string,
 ): Promise<{ retryAfterSeconds: number; attempt: SignInAttempt | null }> {
+  // With no readable e-mail there is no account to count against (and no sign-in can succeed); the address counts.
+  const perAccount: AttemptCount[] = email
+    ? [
+        { kind: SIGN_IN_ACCOUNT, key: email, ...SIGN_IN_ACCOUNT_LIMIT },
+        { kind: SECOND_FACTOR_CODE, key: email, ...SECOND_FACTOR_CODE_LIMIT, record: false },
+      ]
+    : [];
   const verdict: AttemptVerdict = await limitAttempts([
-    { kind: SIGN_IN_ACCOUNT, key: email, ...SIGN_IN_ACCOUNT_LIMIT },
+    ...perAccount,
     { kind: SIGN_IN_ADDRESS, key: clientAddress, ...SIGN_IN_ADDRESS_LIMIT },
-    { kind: SECOND_FACTOR_CODE, key: email, ...SECOND_FACTOR_CODE_LIMIT, record: false },
   ]);
   if (verdict.retryAfterSeconds > 0) return { retryAfterSeconds: verdict.retryAfterSeconds, attempt: null };
   return {
@@ -67,6 +74,7 @@ export async function beginSignInAttempt(
       clientAddress,
       succeeded: async () => {
         await verdict.forgive();
+        if (!email) return;
         await clearAttempts(SIGN_IN_ACCOUNT, email);
         await clearAttempts(SECOND_FACTOR_CODE, email);
       },
