@@ -73,8 +73,9 @@ const config: FullAuthConfig = {
   events: {
     // Sign-out ends this device's session on the server, so a copy of the cookie stops working too.
     async signOut(message) {
-      const sid = 'token' in message ? message.token?.sid : undefined;
-      if (typeof sid === 'string') await endSession(sid);
+      const token = 'token' in message ? message.token : null;
+      if (typeof token?.sid === 'string') await endSession(token.sid);
+      logSecurityEvent('sign-out', { userId: token?.sub });
     },
   },
   callbacks: {

@@ -31,12 +31,16 @@ async function ageSessions(userId: string, column: 'last_seen_at' | 'created_at'
 
 describe('sign-out, attacked', () => {
   it('ends the session on the server: a copy of the cookie taken before sign-out is refused', async () => {
-    const { client } = await signedInClient(server.baseUrl);
+    const { client, userId } = await signedInClient(server.baseUrl);
     const copy = client.atServer(server.baseUrl);
     expect((await copy.get('/api/account')).status).toBe(200);
     expect((await client.signOut()).status).toBe(302);
     expect(client.hasSessionCookie()).toBe(false);
     expect((await copy.get('/api/account')).status).toBe(401);
+    // And the security log says who signed out.
+    await expect
+      .poll(() => server.output().includes(`"event":"sign-out","userId":"${userId}"`), { timeout: 2000 })
+      .toBe(true);
   });
 
   it('ends only that device’s session: the same person signed in elsewhere stays signed in', async () => {

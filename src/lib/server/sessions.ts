@@ -1,5 +1,5 @@
 import { randomBytes } from 'node:crypto';
-import { and, eq, lt } from 'drizzle-orm';
+import { eq, lt } from 'drizzle-orm';
 import { write } from '../../db/client';
 import { sessions } from '../../db/schema';
 import { readEnvironment } from '../../environment';
@@ -26,10 +26,9 @@ export async function startSession(userId: string, now = new Date()): Promise<st
   const id = randomBytes(32).toString('base64url');
   await write(async (tx) => {
     await tx.insert(sessions).values({ id, userId, lastSeenAt: now });
-    // The person's sessions that can no longer be used are deleted here rather than by a timer.
-    await tx
-      .delete(sessions)
-      .where(and(eq(sessions.userId, userId), lt(sessions.lastSeenAt, new Date(now.getTime() - sessionIdleMs()))));
+    // Sessions that can no longer be used (anyone's) are deleted here rather than by a timer; one row per
+    // device keeps the table small enough to scan.
+    await tx.delete(sessions).where(lt(sessions.lastSeenAt, new Date(now.getTime() - sessionIdleMs())));
   });
   return id;
 }
