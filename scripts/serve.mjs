@@ -3,6 +3,7 @@ import { createServer } from 'node:http';
 import { join, relative, resolve, sep } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import send from 'send';
+import { clientAddressOf, parseTrustProxy } from '../src/lib/client-address.mjs';
 import { API_CSP, BASE_SECURITY_HEADERS } from '../src/lib/security-headers.mjs';
 
 /**
@@ -32,6 +33,9 @@ function listFiles(dir) {
 const staticFiles = new Set(listFiles(clientDir));
 
 const host = process.env.HOST ?? 'localhost';
+// Astro's Node adapter takes the client address from X-Forwarded-For unchecked; the header it reads is
+// rewritten below to the address this server can vouch for (TRUST_PROXY proxies in front, default none).
+const trustedProxies = parseTrustProxy(process.env.TRUST_PROXY);
 const port = Number(process.env.PORT ?? 4321);
 
 const server = createServer((req, res) => {
@@ -44,6 +48,11 @@ const server = createServer((req, res) => {
     send(req, path, { root: clientDir, dotfiles: 'deny', immutable: hashed, maxAge: hashed ? '1y' : 0 }).pipe(res);
     return;
   }
+  req.headers['x-forwarded-for'] = clientAddressOf(
+    req.headers['x-forwarded-for'],
+    req.socket.remoteAddress,
+    trustedProxies,
+  );
   handler(req, res, () => {
     res.statusCode = 404;
     res.setHeader('Content-Type', 'text/plain; charset=utf-8');

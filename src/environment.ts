@@ -29,6 +29,15 @@ const environmentSchema = z
     S3_ACCESS_KEY_ID: z.string().min(1).optional(),
     S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
     S3_FORCE_PATH_STYLE: z.enum(['true', 'false']).default('true'),
+    // How many proxies stand in front (each appends to X-Forwarded-For); none: the socket's address is the client's.
+    TRUST_PROXY: z.coerce
+      .number()
+      .int('must be a whole number of proxies')
+      .min(0, 'must be 0 or more')
+      .max(10, 'must be at most 10')
+      .default(0),
+    // Hours without a request after which a session ends (beside the 14-day maximum).
+    SESSION_IDLE_HOURS: z.coerce.number().positive('must be a number of hours above 0').max(336).default(12),
     NODE_ENV: z.string().optional(),
   })
   .refine((env) => !env.S3_ACCESS_KEY_ID === !env.S3_SECRET_ACCESS_KEY, {

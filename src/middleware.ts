@@ -5,10 +5,10 @@ import { applySecurityHeaders } from './lib/security-headers.mjs';
 import { PageExit } from './lib/server/guard';
 import { loadSession } from './lib/server/session';
 import { ensureStarted } from './lib/server/startup';
-import { runSignInAttempt, signInRetryAfterSeconds } from './lib/server/sign-in-limiter';
+import { beginSignInAttempt, readSignInEmail, runSignInAttempt } from './lib/server/sign-in-limiter';
+import { tooManyAttempts } from './lib/server/attempt-limits';
 import { logSecurityEvent } from './lib/server/security-log';
 
-const SIGN_IN_CALLBACK = '/api/auth/callback/credentials';
 const REFUSAL_PAGE = '/not-allowed';
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
@@ -53,31 +53,32 @@ const apiGate = defineMiddleware(async ({ request, url }, next) => {
   return next();
 });
 
-/** Sign-in attempts are limited per account and per client address (429 with Retry-After). */
-const signInLimit = defineMiddleware(async (context, next) => {
-  if (context.url.pathname !== SIGN_IN_CALLBACK || context.request.method !== 'POST') return next();
-  const form = await context.request
-    .clone()
-    .formData()
-    .catch(() => null);
-  const field = form?.get('email');
-  const email = typeof field === 'string' ? field.trim().toLowerCase() : '';
-  const wait = signInRetryAfterSeconds(email, context.clientAddress);
-  if (wait > 0) {
-    logSecurityEvent('sign-in-limited', { email, clientAddress: context.clientAddress, retryAfterSeconds: wait });
-    const minutes = Math.ceil(wait / 60);
-    return errorResponse(
-      new HttpError(
-        429,
-        `Too many failed sign-ins. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`,
-        undefined,
-        {
-          'Retry-After': String(wait),
-        },
-      ),
-    );
+/** Any Auth.js callback path, however it is spelled (Auth.js takes a trailing slash, and case in the host only). */
+function isSignInCallback(pathname: string): boolean {
+  let path = pathname;
+  try {
+    path = decodeURIComponent(pathname);
+  } catch {
+    // A malformed escape: Auth.js will not route it either; check it as it is.
   }
-  return runSignInAttempt(context.clientAddress, next);
+  return /^\/+api\/+auth\/+callback(\/|$)/i.test(path);
+}
+
+/**
+ * Sign-in attempts are limited per account and per client address, counted in the database before
+ * Auth.js checks the credentials: a refusal is a 429 with Retry-After (thrown inside Auth.js's
+ * `authorize`, it would become a redirect). The e-mail is read from the body whatever its type.
+ */
+const signInLimit = defineMiddleware(async (context, next) => {
+  if (context.request.method !== 'POST' || !isSignInCallback(context.url.pathname)) return next();
+  const email = await readSignInEmail(context.request);
+  const { clientAddress } = context;
+  const { retryAfterSeconds, attempt } = await beginSignInAttempt(email, clientAddress);
+  if (!attempt) {
+    logSecurityEvent('sign-in-limited', { email, clientAddress, retryAfterSeconds });
+    return errorResponse(tooManyAttempts(retryAfterSeconds, 'failed sign-ins'));
+  }
+  return runSignInAttempt(attempt, next);
 });
 
 /**

@@ -28,11 +28,12 @@ export const users = sqliteTable('users', {
   // Bumped whenever every other session of this person must end (password change, sign-out everywhere).
   sessionVersion: integer('session_version').notNull().default(1),
   // Second factor (TOTP): the secret encrypted with a key derived from the session secret; recovery
-  // codes kept only as hashes. A pending secret waits for its first code before it counts.
+  // codes live in `recovery_codes`. A pending secret waits for its first code before it counts.
   totpSecret: text('totp_secret'),
   totpPendingSecret: text('totp_pending_secret'),
   totpEnabledAt: integer('totp_enabled_at', { mode: 'timestamp_ms' }),
-  recoveryCodeHashes: text('recovery_code_hashes', { mode: 'json' }).$type<string[]>(),
+  // The last 30-second time step whose code was accepted: each step's code is taken once (ASVS 6.5.1).
+  totpLastStep: integer('totp_last_step'),
   createdAt: createdAt(),
 });
 
@@ -463,3 +464,50 @@ export const partNotices = sqliteTable(
 
 export type Review = typeof reviews.$inferSelect;
 export type ReviewComment = typeof reviewComments.$inferSelect;
+
+// ---------------------------------------------------------------------------------------------
+// Sign-in: sessions, recovery codes and attempt limits (shared by every process on the database)
+
+/** One signed-in device: its id rides in the session cookie; sign-out deletes the row. */
+export const sessions = sqliteTable(
+  'sessions',
+  {
+    id: text('id').primaryKey(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    createdAt: createdAt(),
+    // Moved on at most once a minute by the requests of the session; the idle timeout counts from it.
+    lastSeenAt: integer('last_seen_at', { mode: 'timestamp_ms' }).notNull(),
+  },
+  (table) => [index('sessions_user_idx').on(table.userId)],
+);
+
+/** Single-use recovery codes, kept as HMAC-SHA-256 under a server key; `used_at` set by one conditional update. */
+export const recoveryCodes = sqliteTable(
+  'recovery_codes',
+  {
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    codeHash: text('code_hash').notNull(),
+    usedAt: integer('used_at', { mode: 'timestamp_ms' }),
+    createdAt: createdAt(),
+  },
+  (table) => [primaryKey({ columns: [table.userId, table.codeHash] })],
+);
+
+/** Attempts counted against a limit (sign-in per account and per address, codes, password re-entry, resets). */
+export const limitAttempts = sqliteTable(
+  'limit_attempts',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    kind: text('kind').notNull(),
+    key: text('key').notNull(),
+    at: integer('at', { mode: 'timestamp_ms' }).notNull(),
+  },
+  (table) => [
+    index('limit_attempts_key_idx').on(table.kind, table.key, table.at),
+    index('limit_attempts_at_idx').on(table.at),
+  ],
+);

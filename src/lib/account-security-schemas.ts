@@ -14,6 +14,9 @@ export const disableSecondFactorSchema = z.object({
     .string({ error: 'Enter a code from the app or a recovery code.' })
     .trim()
     .min(6, 'Enter a code from the app or a recovery code.')
-    .max(20),
+    // A recovery code is 20 hex digits, written with dashes (23 characters), perhaps with spaces.
+    .max(40),
 });
+/** A password and a code, re-entered to make new recovery codes (the same proof as turning the factor off). */
+export const passwordAndCodeSchema = disableSecondFactorSchema;
 export const requireSecondFactorSchema = z.object({ required: z.boolean({ error: 'required: true or false.' }) });

@@ -61,6 +61,7 @@ const MATRIX: Record<string, Rule> = {
   'POST /api/account/second-factor': { own: [401, OK, OK, 403, 403], other: null },
   'POST /api/account/second-factor/confirm': { own: [401, OK, OK, 403, 403], other: null },
   'POST /api/account/second-factor/disable': { own: SIGNED_IN, other: null },
+  'POST /api/account/second-factor/recovery-codes': { own: SIGNED_IN, other: null },
   'POST /api/account/sessions/revoke': { own: SIGNED_IN, other: null, endsSession: true },
   'POST /api/accounts': { own: ANYONE, other: null },
   'POST /api/analysis/backlash': { own: MEMBER, other: null },

@@ -52,6 +52,7 @@ const TEMPLATES: Record<string, () => Record<string, unknown>> = {
   }),
   'POST /api/account/second-factor/confirm': () => ({ code: '123456' }),
   'POST /api/account/second-factor/disable': () => ({ password: 'not the password', code: '123456' }),
+  'POST /api/account/second-factor/recovery-codes': () => ({ password: 'not the password', code: '123456' }),
   'POST /api/accounts': () => ({ email: 'fuzz@example.test', password: 'short', name: 'Fuzz' }),
   'POST /api/analysis/backlash': () => ({
     unit: 'in',
@@ -227,7 +228,10 @@ beforeAll(async () => {
     await database.execute(
       "SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' ORDER BY name",
     )
-  ).rows.map((row) => String(row.name));
+  ).rows
+    .map((row) => String(row.name))
+    // A refused password or code is counted against its limit by design: that table's rows are the refusal.
+    .filter((name) => name !== 'limit_attempts');
 }, 120_000);
 afterAll(async () => {
   database?.close();

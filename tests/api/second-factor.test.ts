@@ -53,7 +53,9 @@ describe('the second factor', () => {
 
     expect((await signInWithCode(email, null)).hasSessionCookie()).toBe(false);
     expect((await signInWithCode(email, '123456')).hasSessionCookie()).toBe(false);
-    expect((await signInWithCode(email, codeFor(setup.body.secret))).hasSessionCookie()).toBe(true);
+    // The confirming code's 30-second step is used up; the app's next code (one step ahead is accepted) signs in.
+    expect((await signInWithCode(email, codeFor(setup.body.secret))).hasSessionCookie()).toBe(false);
+    expect((await signInWithCode(email, codeFor(setup.body.secret, 30_000))).hasSessionCookie()).toBe(true);
 
     // A recovery code works once.
     const recovery = confirmed.body.recoveryCodes[0];
@@ -61,20 +63,24 @@ describe('the second factor', () => {
     expect((await signInWithCode(email, recovery)).hasSessionCookie()).toBe(false);
   });
 
-  it('says the code is needed on the sign-in page, and is for owners and crew chiefs only', async () => {
+  it('is for owners and crew chiefs only, and a missing code is answered as a wrong password is', async () => {
     const owner = await signedInClient(server.baseUrl, { team: 'Roles Crew' });
     const tech = await joinByInvitation(server.baseUrl, smtp, owner.client, 'technician');
     expect((await tech.client.post('/api/account/second-factor')).status).toBe(403);
     const setup = (await owner.client.post('/api/account/second-factor')).body;
     await owner.client.post('/api/account/second-factor/confirm', { code: codeFor(setup.secret) });
-    const client = new ApiClient(server.baseUrl);
-    const csrf = await client.get('/api/auth/csrf');
-    const answer = await client.request('/api/auth/callback/credentials', {
-      method: 'POST',
-      headers: { 'content-type': 'application/x-www-form-urlencoded' },
-      body: new URLSearchParams({ email: owner.email, password: TEST_PASSWORD, csrfToken: csrf.body.csrfToken }),
-    });
-    expect(answer.headers.get('location')).toContain('code=second-factor');
+    const answerFor = async (password: string) => {
+      const client = new ApiClient(server.baseUrl);
+      const csrf = await client.get('/api/auth/csrf');
+      const answer = await client.request('/api/auth/callback/credentials', {
+        method: 'POST',
+        headers: { 'content-type': 'application/x-www-form-urlencoded' },
+        body: new URLSearchParams({ email: owner.email, password, csrfToken: csrf.body.csrfToken }),
+      });
+      return { status: answer.status, location: answer.headers.get('location') };
+    };
+    // Telling "code needed" from "wrong password" would confirm the password to whoever guessed it.
+    expect(await answerFor(TEST_PASSWORD)).toEqual(await answerFor('not the password at all'));
   });
 
   it('can be turned off with the password and a code, ending the sessions', async () => {
@@ -93,12 +99,52 @@ describe('the second factor', () => {
       (
         await client.post('/api/account/second-factor/disable', {
           password: TEST_PASSWORD,
-          code: codeFor(setup.secret),
+          // The step of the confirming code is used up: the next one.
+          code: codeFor(setup.secret, 30_000),
         })
       ).status,
     ).toBe(200);
     expect((await client.get('/api/account')).status).toBe(401);
     expect((await signInWithCode(email, null)).hasSessionCookie()).toBe(true);
+  });
+});
+
+describe('recovery codes', () => {
+  it('are counted, and made anew with the password and a code; the old ones stop working', async () => {
+    const { client, email } = await signedInClient(server.baseUrl, { team: 'Recovery Crew' });
+    const setup = (await client.post('/api/account/second-factor')).body;
+    const first = (await client.post('/api/account/second-factor/confirm', { code: codeFor(setup.secret) })).body
+      .recoveryCodes as string[];
+    expect((await client.get('/api/account')).body.recoveryCodesLeft).toBe(10);
+    expect((await signInWithCode(email, first[0]!)).hasSessionCookie()).toBe(true);
+    expect((await client.get('/api/account')).body.recoveryCodesLeft).toBe(9);
+
+    const wrong = await client.post('/api/account/second-factor/recovery-codes', {
+      password: 'not the password at all',
+      code: first[1],
+    });
+    expect(wrong.status).toBe(400);
+    expect(wrong.body.error.fields).toHaveProperty('password');
+    // A recovery code, written with its dashes, proves the second factor here too (and is spent).
+    const remade = await client.post('/api/account/second-factor/recovery-codes', {
+      password: TEST_PASSWORD,
+      code: first[1],
+    });
+    expect(remade.status).toBe(200);
+    expect(remade.body.recoveryCodes).toHaveLength(10);
+    expect((await client.get('/api/account')).body.recoveryCodesLeft).toBe(10);
+    expect((await signInWithCode(email, first[2]!)).hasSessionCookie()).toBe(false);
+    expect((await signInWithCode(email, remade.body.recoveryCodes[0])).hasSessionCookie()).toBe(true);
+  });
+
+  it('are not offered to a person without a second factor', async () => {
+    const { client } = await signedInClient(server.baseUrl);
+    expect((await client.get('/api/account')).body.recoveryCodesLeft).toBeNull();
+    const refused = await client.post('/api/account/second-factor/recovery-codes', {
+      password: TEST_PASSWORD,
+      code: '123456',
+    });
+    expect(refused.status).toBe(409);
   });
 });
 

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { type ApiClient, signedInClient, uniqueEmail } from '../helpers/api-client';
+import { type ApiClient, TEST_PASSWORD, signedInClient, uniqueEmail } from '../helpers/api-client';
 import { startServer, type RunningServer } from '../helpers/server';
+import { postSignIn } from '../helpers/sign-in-requests';
 import { SmtpFake } from '../helpers/smtp-fake';
 import { joinByInvitation } from '../helpers/team';
 
@@ -60,6 +61,29 @@ describe('two server processes on one database', () => {
     expect((await ownerOnFirst.patch(`/api/members/${tech.userId}`, { role: 'viewer' })).status).toBe(200);
     const refused = await techOnSecond.post('/api/runs', { carId: car, at: '2026-05-01T10:05:00Z' });
     expect(refused.status).toBe(403);
+  }, 60_000);
+
+  it('reaches the sign-in limit across both: failures alternating between them are counted together', async () => {
+    const { email } = await signedInClient(first.baseUrl);
+    const servers = [first, second];
+    for (let i = 0; i < 5; i += 1) {
+      const { response } = await postSignIn(servers[i % 2]!.baseUrl, { email, password: 'not the password at all' });
+      expect(response.status).toBe(302);
+    }
+    // Five failures per account in 15 minutes: the sixth is refused by either process, right password or not.
+    for (const server of servers) {
+      const { response, client } = await postSignIn(server.baseUrl, { email, password: TEST_PASSWORD });
+      expect(response.status).toBe(429);
+      expect(client.hasSessionCookie()).toBe(false);
+    }
+  }, 60_000);
+
+  it('ends a session signed out through one process on the very next request to the other', async () => {
+    const { client } = await signedInClient(first.baseUrl);
+    const copyOnSecond = client.atServer(second.baseUrl);
+    expect((await copyOnSecond.get('/api/account')).status).toBe(200);
+    await client.signOut();
+    expect((await copyOnSecond.get('/api/account')).status).toBe(401);
   }, 60_000);
 
   it('takes writes through both at once with no 5xx and keeps every one', async () => {

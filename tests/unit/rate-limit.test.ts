@@ -1,33 +1,26 @@
 import { describe, expect, it } from 'vitest';
-import { FailureWindow } from '../../src/lib/rate-limit';
+import { retryAfterMs } from '../../src/lib/rate-limit';
 
-describe('the failure window', () => {
-  const limit = { maxFailures: 3, windowMs: 60_000 };
+describe('the attempt window', () => {
+  const limit = { max: 3, windowMs: 60_000 };
 
-  it('blocks after the allowed failures and says how long to wait', () => {
-    const window = new FailureWindow(limit);
-    for (const at of [0, 1000, 2000]) window.recordFailure('k', at);
-    expect(window.retryAfterMs('k', 2500)).toBe(57_500);
+  it('refuses once the allowed attempts are used and says how long to wait', () => {
+    expect(retryAfterMs([0, 1000, 2000], limit, 2500)).toBe(57_500);
   });
 
-  it('does not block before the limit is reached', () => {
-    const window = new FailureWindow(limit);
-    window.recordFailure('k', 0);
-    window.recordFailure('k', 10);
-    expect(window.retryAfterMs('k', 20)).toBe(0);
+  it('allows an attempt before the limit is reached', () => {
+    expect(retryAfterMs([0, 10], limit, 20)).toBe(0);
   });
 
-  it('forgets failures older than the window', () => {
-    const window = new FailureWindow(limit);
-    for (const at of [0, 1000, 2000]) window.recordFailure('k', at);
-    expect(window.retryAfterMs('k', 60_001)).toBe(0);
+  it('forgets attempts older than the window', () => {
+    expect(retryAfterMs([0, 1000, 2000], limit, 60_500)).toBe(0);
   });
 
-  it('keeps keys apart and clears one on reset', () => {
-    const window = new FailureWindow(limit);
-    for (const at of [0, 1, 2]) window.recordFailure('a', at);
-    expect(window.retryAfterMs('b', 3)).toBe(0);
-    window.reset('a');
-    expect(window.retryAfterMs('a', 3)).toBe(0);
+  it('waits for the oldest of the latest allowed attempts, whatever order they come in', () => {
+    expect(retryAfterMs([5000, 0, 3000, 4000], limit, 6000)).toBe(57_000);
+  });
+
+  it('never answers a wait of 0 ms while refusing', () => {
+    expect(retryAfterMs([0, 0, 0], { max: 3, windowMs: 10 }, 9.9999)).toBeGreaterThan(0);
   });
 });

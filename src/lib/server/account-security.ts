@@ -1,6 +1,6 @@
 import { eq, sql } from 'drizzle-orm';
 import { getDb, write } from '../../db/client';
-import { teams, users } from '../../db/schema';
+import { sessions, teams, users } from '../../db/schema';
 import type { PublicUser } from './accounts';
 import { HttpError } from './http';
 import { recordAudit } from './audit';
@@ -25,6 +25,7 @@ export async function signOutEverywhere(userId: string): Promise<void> {
       .update(users)
       .set({ sessionVersion: sql`${users.sessionVersion} + 1` })
       .where(eq(users.id, userId));
+    await tx.delete(sessions).where(eq(sessions.userId, userId));
     await recordAudit(tx, {
       teamId: null,
       actorId: userId,

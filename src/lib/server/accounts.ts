@@ -6,6 +6,7 @@ import type { SignUpInput } from '../account-schemas';
 import { HttpError } from './http';
 import { getDecoyHash, hashPassword, verifyPassword } from './password';
 import { recordAudit } from './audit';
+import { requireRightPassword } from './password-recheck';
 
 /** The password hash of an account a team import made: it matches no password until claimed. */
 export const IMPORTED_ACCOUNT_HASH = 'imported-account:no-password';
@@ -108,9 +109,8 @@ export async function updateAccountSettings(
 /** Changes the password and ends every other session (the session version moves on). */
 export async function changePassword(userId: string, currentPassword: string, newPassword: string): Promise<User> {
   const user = await findUserById(userId);
-  if (!user || !(await verifyPassword(user.passwordHash, currentPassword))) {
-    throw new HttpError(400, 'currentPassword: the current password is not right.', { currentPassword: 'not right' });
-  }
+  if (!user) throw new HttpError(404, 'No such account.');
+  await requireRightPassword(user, currentPassword, 'currentPassword');
   const passwordHash = await hashPassword(newPassword);
   return write(async (tx) => {
     const [updated] = await tx

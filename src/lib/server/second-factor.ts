@@ -1,20 +1,23 @@
-import { createCipheriv, createDecipheriv, createHash, hkdfSync, randomBytes } from 'node:crypto';
-import { eq, sql } from 'drizzle-orm';
+import { createCipheriv, createDecipheriv, hkdfSync, randomBytes } from 'node:crypto';
+import { and, eq, isNull, lt, or, sql } from 'drizzle-orm';
 import { Secret, TOTP } from 'otpauth';
 import { getDb, write } from '../../db/client';
-import { users, type User } from '../../db/schema';
+import { recoveryCodes, users, type User } from '../../db/schema';
+import { isRecoveryCodeShaped, makeRecoveryCodes, replaceRecoveryCodes, spendRecoveryCode } from './recovery-codes';
+import { SECOND_FACTOR_CODE_LIMIT, SECOND_FACTOR_CONFIRM_LIMIT } from '../rate-limit';
+import { requireAttemptAllowed } from './attempt-limits';
+import { requireRightPassword } from './password-recheck';
+import { SECOND_FACTOR_CODE } from './sign-in-limiter';
 import { resolveAuthSecret } from './auth-secret';
 import { HttpError } from './http';
-import { verifyPassword } from './password';
 import { recordAudit } from './audit';
 
 /**
  * The second factor: time-based one-time codes (RFC 6238 through otpauth: SHA-1, 6 digits, 30 s,
- * one step of clock drift either way) and ten single-use recovery codes kept only as hashes. The
- * TOTP secret is stored encrypted (AES-256-GCM, key derived from the session secret).
+ * one step of clock drift either way), each time step accepted once per person, and ten single-use
+ * recovery codes of 80 random bits kept only as HMACs. The TOTP secret is stored encrypted
+ * (AES-256-GCM, key derived from the session secret).
  */
-const RECOVERY_CODES = 10;
-
 function secretKey(): Buffer {
   return Buffer.from(hkdfSync('sha256', resolveAuthSecret(), 'lashline', 'totp-secret', 32));
 }
@@ -44,7 +47,23 @@ function totpFor(email: string, base32: string): TOTP {
   });
 }
 
-const hashCode = (code: string) => createHash('sha256').update(code.replace(/[\s-]/g, '').toLowerCase()).digest('hex');
+/** The 30-second step a code from `totp` matches now, or null (one step of drift either way). */
+function matchingStep(totp: TOTP, token: string, now = Date.now()): number | null {
+  const delta = totp.validate({ token, window: 1, timestamp: now });
+  return delta === null ? null : Math.floor(now / 1000 / totp.period) + delta;
+}
+
+/** Takes a time step for the person, once: false when it, or a later one, was already used (ASVS 6.5.1). */
+async function takeTimeStep(userId: string, step: number): Promise<boolean> {
+  const taken = await write((tx) =>
+    tx
+      .update(users)
+      .set({ totpLastStep: step })
+      .where(and(eq(users.id, userId), or(isNull(users.totpLastStep), lt(users.totpLastStep, step))))
+      .returning({ id: users.id }),
+  );
+  return taken.length === 1;
+}
 
 /** Starts setting up: a new secret waits for its first code. Returns what an authenticator app needs. */
 export async function beginSecondFactor(user: Pick<User, 'id' | 'email'>): Promise<{ secret: string; uri: string }> {
@@ -64,17 +83,21 @@ export async function confirmSecondFactor(userId: string, code: string): Promise
   const user = await db.select().from(users).where(eq(users.id, userId)).get();
   if (!user?.totpPendingSecret)
     throw new HttpError(409, 'Start the set-up first: no second factor is waiting for a code.');
+  const attempt = await requireAttemptAllowed(
+    'second-factor-confirm',
+    userId,
+    SECOND_FACTOR_CONFIRM_LIMIT,
+    'wrong codes',
+  );
   const secret = decryptSecret(user.totpPendingSecret);
-  if (totpFor(user.email, secret).validate({ token: code.replace(/\s/g, ''), window: 1 }) === null) {
+  const step = matchingStep(totpFor(user.email, secret), code.replace(/\s/g, ''));
+  if (step === null) {
     throw new HttpError(400, 'code: that code does not match; check the time on the phone and try the next one.', {
       code: 'does not match',
     });
   }
-  const codes = Array.from({ length: RECOVERY_CODES }, () =>
-    randomBytes(5)
-      .toString('hex')
-      .replace(/(.{5})/, '$1-'),
-  );
+  await attempt.forgive();
+  const codes = makeRecoveryCodes();
   await write(async (tx) => {
     await tx
       .update(users)
@@ -82,13 +105,52 @@ export async function confirmSecondFactor(userId: string, code: string): Promise
         totpSecret: user.totpPendingSecret,
         totpPendingSecret: null,
         totpEnabledAt: new Date(),
-        recoveryCodeHashes: codes.map(hashCode),
+        // The confirming code's step counts as used: it cannot sign in afterwards.
+        totpLastStep: step,
       })
       .where(eq(users.id, userId));
+    await replaceRecoveryCodes(tx, userId, codes);
     await recordAudit(tx, {
       teamId: null,
       actorId: userId,
       action: 'second-factor-on',
+      recordType: 'account',
+      recordId: userId,
+    });
+  });
+  return codes;
+}
+
+/**
+ * A signed-in person proving it again: the password (limited per account) and a current or recovery code
+ * (limited per account with the sign-in's code limit); 400 naming the field that is wrong, 429 past a limit.
+ */
+async function requirePasswordAndCode(user: User, password: string, code: string): Promise<void> {
+  await requireRightPassword(user, password, 'password');
+  const codeAttempt = await requireAttemptAllowed(
+    SECOND_FACTOR_CODE,
+    user.email,
+    SECOND_FACTOR_CODE_LIMIT,
+    'wrong codes',
+  );
+  if (!(await checkSecondFactor(user, code)))
+    throw new HttpError(400, 'code: that code does not match.', { code: 'does not match' });
+  await codeAttempt.forgive();
+}
+
+/** Ten new recovery codes in place of the old ones (used, lost or retired), with the password and a code. */
+export async function remakeRecoveryCodes(userId: string, password: string, code: string): Promise<string[]> {
+  const db = await getDb();
+  const user = await db.select().from(users).where(eq(users.id, userId)).get();
+  if (!user?.totpEnabledAt) throw new HttpError(409, 'The second factor is not on.');
+  await requirePasswordAndCode(user, password, code);
+  const codes = makeRecoveryCodes();
+  await write(async (tx) => {
+    await replaceRecoveryCodes(tx, userId, codes);
+    await recordAudit(tx, {
+      teamId: null,
+      actorId: userId,
+      action: 'recovery-codes-remade',
       recordType: 'account',
       recordId: userId,
     });
@@ -101,10 +163,7 @@ export async function disableSecondFactor(userId: string, password: string, code
   const db = await getDb();
   const user = await db.select().from(users).where(eq(users.id, userId)).get();
   if (!user?.totpEnabledAt) throw new HttpError(409, 'The second factor is not on.');
-  if (!(await verifyPassword(user.passwordHash, password)))
-    throw new HttpError(400, 'password: not right.', { password: 'not right' });
-  if (!(await checkSecondFactor(user, code)))
-    throw new HttpError(400, 'code: that code does not match.', { code: 'does not match' });
+  await requirePasswordAndCode(user, password, code);
   await write(async (tx) => {
     await tx
       .update(users)
@@ -112,10 +171,11 @@ export async function disableSecondFactor(userId: string, password: string, code
         totpSecret: null,
         totpPendingSecret: null,
         totpEnabledAt: null,
-        recoveryCodeHashes: null,
+        totpLastStep: null,
         sessionVersion: sql`${users.sessionVersion} + 1`,
       })
       .where(eq(users.id, userId));
+    await tx.delete(recoveryCodes).where(eq(recoveryCodes.userId, userId));
     await recordAudit(tx, {
       teamId: null,
       actorId: userId,
@@ -126,20 +186,17 @@ export async function disableSecondFactor(userId: string, password: string, code
   });
 }
 
-/** Whether `code` is the current one-time code, or an unused recovery code (which it then uses up). */
+/**
+ * Whether `code` is a one-time code of a time step not used before, or an unused recovery code; either
+ * is used up by the check (one conditional update), so a code works once.
+ */
 export async function checkSecondFactor(user: User, code: string): Promise<boolean> {
   if (!user.totpSecret || !code) return false;
   const token = code.replace(/\s/g, '');
-  if (/^\d{6}$/.test(token))
-    return totpFor(user.email, decryptSecret(user.totpSecret)).validate({ token, window: 1 }) !== null;
-  const hash = hashCode(code);
-  const remaining = user.recoveryCodeHashes ?? [];
-  if (!remaining.includes(hash)) return false;
-  await write((tx) =>
-    tx
-      .update(users)
-      .set({ recoveryCodeHashes: remaining.filter((h) => h !== hash) })
-      .where(eq(users.id, user.id)),
-  );
-  return true;
+  if (/^\d{6}$/.test(token)) {
+    const step = matchingStep(totpFor(user.email, decryptSecret(user.totpSecret)), token);
+    return step !== null && (await takeTimeStep(user.id, step));
+  }
+  if (!isRecoveryCodeShaped(code)) return false;
+  return spendRecoveryCode(user.id, code);
 }

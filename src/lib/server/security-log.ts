@@ -1,5 +1,5 @@
 /**
- * Security events — sign-ins, failed sign-ins, denied requests — as one JSON line each on stdout,
+ * Security events — sign-ins, failed sign-ins, sign-outs, denied requests — as one JSON line each on stdout,
  * with who, what and when (UTC). Never a password, token or cookie.
  */
 export function logSecurityEvent(event: string, details: Record<string, string | number | undefined | null>): void {
