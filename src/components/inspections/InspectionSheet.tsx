@@ -257,7 +257,12 @@ function Sheet({ props, boot, store }: { props: SheetProps; boot: BootResult; st
           <MeasuresSection context={context} disabled={readOnly} shimRows={shimRows} onShimRows={onShimRows} />
           <PreloadSection context={context} disabled={readOnly} />
           <PatternSection disabled={readOnly} />
-          <PhotosSection inspectionId={serverId} online={online} canChange={canChangePhotos} />
+          <PhotosSection
+            draftId={boot.draft.localId}
+            inspectionId={serverId}
+            online={online}
+            canChange={canChangePhotos}
+          />
           <ConditionSection disabled={readOnly} />
           <div
             ref={barRef}

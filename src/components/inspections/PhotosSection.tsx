@@ -1,35 +1,45 @@
 import { useEffect, useId, useRef, useState } from 'react';
 import { inspectionApi, uploadPhoto, type PhotoView } from './inspection-api';
 import { SheetSection } from './fields';
+import { browserPhotoQueue, type PhotoQueue } from './photo-queue';
+import { reducePhoto } from './reduce-photo';
+import { newUuid } from './sheet-boot';
 
 /**
- * Photos of the pattern, several per side. They go straight to Lashline (no copy is kept in the
- * browser: a photo is megabytes), so they need the draft to exist on the server and a connection.
+ * Photos of the pattern, several per side. Each is made smaller on the device (2,560 px, JPEG, upright),
+ * kept there with the draft at once, and sent when the draft is on Lashline and there is a connection, so a
+ * photo taken offline, or before the draft reached the server, is never lost (decision 004).
  */
 interface Upload {
-  key: number;
+  key: string;
   file: File;
   side: 'drive' | 'coast';
   progress: number;
-  state: 'uploading' | 'failed';
+  state: 'waiting' | 'uploading' | 'failed';
   message?: string;
   /** A lost connection or a server fault is worth another try; a refused file is not. */
   retryable?: boolean;
 }
 
 export function PhotosSection({
+  draftId,
   inspectionId,
   online,
   canChange,
+  queue: givenQueue,
 }: {
+  /** The draft's local id: photos wait on the device under it. */
+  draftId: string;
   inspectionId: string | null;
   online: boolean;
   canChange: boolean;
+  queue?: PhotoQueue;
 }) {
+  const [queue] = useState(() => givenQueue ?? browserPhotoQueue());
   const [photos, setPhotos] = useState<PhotoView[]>([]);
   const [uploads, setUploads] = useState<Upload[]>([]);
   const [problem, setProblem] = useState('');
-  const next = useRef(1);
+  const sending = useRef(new Set<string>());
 
   useEffect(() => {
     if (!inspectionId || !online) return;
@@ -42,33 +52,80 @@ export function PhotosSection({
     };
   }, [inspectionId, online]);
 
+  // What waited on this device from an earlier visit comes back into the list.
+  useEffect(() => {
+    let live = true;
+    void queue.list(draftId).then((waiting) => {
+      if (!live) return;
+      setUploads((list) => [
+        ...list,
+        ...waiting
+          .filter((w) => !list.some((u) => u.key === w.key))
+          .map((w) => ({ key: w.key, file: w.file, side: w.side, progress: 0, state: 'waiting' as const })),
+      ]);
+    });
+    return () => {
+      live = false;
+    };
+  }, [queue, draftId]);
+
   const start = (upload: Upload) => {
-    if (!inspectionId) return;
-    setUploads((list) => [
-      ...list.filter((u) => u.key !== upload.key),
-      { ...upload, state: 'uploading', progress: 0, message: undefined },
-    ]);
+    if (!inspectionId || sending.current.has(upload.key)) return;
+    sending.current.add(upload.key);
+    setUploads((list) =>
+      list.map((u) => (u.key === upload.key ? { ...u, state: 'uploading', progress: 0, message: undefined } : u)),
+    );
     const job = uploadPhoto(inspectionId, upload.file, upload.side, (progress) =>
       setUploads((list) => list.map((u) => (u.key === upload.key ? { ...u, progress } : u))),
     );
-    void job.done.then((answer) => {
+    void job.done.then(async (answer) => {
+      sending.current.delete(upload.key);
       if (answer.ok) {
+        await queue.remove(upload.key);
         setPhotos((list) => [...list, answer.data]);
         setUploads((list) => list.filter((u) => u.key !== upload.key));
-      } else {
-        const retryable = answer.problem.status === 0 || answer.problem.status >= 500 || answer.problem.status === 429;
-        setUploads((list) =>
-          list.map((u) =>
-            u.key === upload.key ? { ...u, state: 'failed', message: answer.problem.message, retryable } : u,
-          ),
-        );
+        return;
       }
+      const lost = answer.problem.status === 0;
+      const retryable = lost || answer.problem.status >= 500 || answer.problem.status === 429;
+      setUploads((list) =>
+        list.map((u) =>
+          u.key !== upload.key
+            ? u
+            : lost
+              ? // The connection went: it waits on the device and goes again when the connection is back.
+                { ...u, state: 'waiting', progress: 0 }
+              : { ...u, state: 'failed', message: answer.problem.message, retryable },
+        ),
+      );
     });
   };
 
-  const add = (side: 'drive' | 'coast', files: FileList | null) => {
-    for (const file of Array.from(files ?? []))
-      start({ key: next.current++, file, side, progress: 0, state: 'uploading' });
+  // Send what waits as soon as the draft is on Lashline and there is a connection.
+  useEffect(() => {
+    if (!inspectionId || !online) return;
+    for (const upload of uploads) if (upload.state === 'waiting') start(upload);
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- start reads the latest props itself
+  }, [uploads, inspectionId, online]);
+
+  const add = async (side: 'drive' | 'coast', files: FileList | null) => {
+    for (const original of Array.from(files ?? [])) {
+      const file = await reducePhoto(original);
+      const waiting = { key: newUuid(), draftId, side, file, addedAt: Date.now() };
+      try {
+        await queue.put(waiting);
+      } catch {
+        setProblem(
+          'This device could not keep the photo (its storage is full or blocked); it is sent while the page stays open.',
+        );
+      }
+      setUploads((list) => [...list, { key: waiting.key, file, side, progress: 0, state: 'waiting' }]);
+    }
+  };
+
+  const dismiss = (upload: Upload) => {
+    void queue.remove(upload.key);
+    setUploads((list) => list.filter((u) => u.key !== upload.key));
   };
 
   const remove = async (photo: PhotoView) => {
@@ -78,12 +135,12 @@ export function PhotosSection({
     else setProblem(answer.problem.message);
   };
 
-  const why = !inspectionId
-    ? 'Photos can be added once the draft is on Lashline: it is sent as soon as the gear set, the time and the runs are filled in and there is a connection.'
-    : !online
-      ? 'Offline: photos go straight to Lashline, so add them when the connection is back. Everything typed is kept on this device meanwhile.'
-      : !canChange
-        ? 'You cannot add photos to this inspection.'
+  const why = !canChange
+    ? 'You cannot add photos to this inspection.'
+    : !inspectionId
+      ? 'Photos taken now are kept on this device and sent once the draft is on Lashline: as soon as the gear set, the time and the runs are filled in and there is a connection.'
+      : !online
+        ? 'Offline: photos taken now are kept on this device and sent when the connection is back.'
         : '';
 
   return (
@@ -105,10 +162,11 @@ export function PhotosSection({
             side={side}
             photos={photos.filter((p) => p.side === side)}
             uploads={uploads.filter((u) => u.side === side)}
-            enabled={!why}
-            onAdd={(files) => add(side, files)}
+            enabled={canChange}
+            canRemove={canChange && Boolean(inspectionId) && online}
+            onAdd={(files) => void add(side, files)}
             onRetry={start}
-            onDismiss={(u) => setUploads((list) => list.filter((x) => x.key !== u.key))}
+            onDismiss={dismiss}
             onRemove={remove}
           />
         ))}
@@ -122,6 +180,7 @@ function PhotoSide({
   photos,
   uploads,
   enabled,
+  canRemove,
   onAdd,
   onRetry,
   onDismiss,
@@ -131,6 +190,7 @@ function PhotoSide({
   photos: PhotoView[];
   uploads: Upload[];
   enabled: boolean;
+  canRemove: boolean;
   onAdd: (files: FileList | null) => void;
   onRetry: (u: Upload) => void;
   onDismiss: (u: Upload) => void;
@@ -158,7 +218,7 @@ function PhotoSide({
               type="button"
               className="btn btn-quiet !min-h-10 !px-2 text-sm"
               onClick={() => onRemove(photo)}
-              disabled={!enabled}
+              disabled={!canRemove}
               aria-label={`Remove ${title.toLowerCase()} photo ${i + 1}`}
             >
               Remove
@@ -169,7 +229,11 @@ function PhotoSide({
       {uploads.map((u) => (
         <div key={u.key} className="mb-3 rounded-md border border-rule p-2" data-testid="photo-upload">
           <p className="truncate text-sm font-semibold">{u.file.name}</p>
-          {u.state === 'uploading' ? (
+          {u.state === 'waiting' ? (
+            <p className="text-sm text-ink-soft" data-testid="photo-waiting">
+              Kept on this device; sent when the draft is on Lashline and there is a connection.
+            </p>
+          ) : u.state === 'uploading' ? (
             <>
               <progress className="progress-bar" max={1} value={u.progress} aria-label={`Uploading ${u.file.name}`} />
               <p className="text-sm text-ink-soft">{Math.round(u.progress * 100)} % sent</p>
