@@ -80,12 +80,13 @@ export function PolarChart({
       <p id={`${id}-title`} className="mb-1 text-lg font-bold">
         {title}
       </p>
-      <div className="grid grid-cols-[minmax(0,1fr)] gap-3 md:grid-cols-[auto_minmax(0,1fr)] md:items-start">
+      {/* The words sit beside the chart when there is room for a readable line (20 rem), else under it. */}
+      <div className="flex flex-wrap items-start gap-3">
         <svg
           viewBox={`0 0 ${size} ${size}`}
           width={size}
           height={size}
-          className="h-auto max-w-full"
+          className="h-auto max-w-full flex-none"
           role="img"
           aria-labelledby={`${id}-title ${id}-desc`}
           data-testid="polar-svg"
@@ -183,7 +184,7 @@ export function PolarChart({
             </g>
           ))}
         </svg>
-        <div>
+        <div className="min-w-[min(100%,20rem)] flex-1 basis-80">
           <ul className="mb-2 flex flex-wrap gap-x-4 gap-y-1 text-sm" aria-label="Legend">
             {shape.series.map((s, i) => (
               <li key={s.key} className="inline-flex items-center gap-1.5">
