@@ -14,5 +14,5 @@ export const FORMULA_START = /^[=+\-@\t\r]/;
  * @example toCsv({ fields: ['reason', 'runs'], data: [['=1+1', -3]] }) // 'reason,runs\n"\'=1+1",-3'
  */
 export function toCsv(input: { fields: string[]; data: unknown[][] } | Record<string, unknown>[]): string {
-  return Papa.unparse(input, { newline: '\n', escapeFormulae: FORMULA_START });
+  return Papa.unparse<unknown>(input, { newline: '\n', escapeFormulae: FORMULA_START });
 }
