@@ -502,10 +502,10 @@ function planReview(
   const statusBefore = p.check(z.enum(PART_STATUSES), row.statusBefore, 'statusBefore');
   const openedBy = p.person('openedBy', row.openedBy, false);
   const decidedBy = p.person('decidedBy', row.decidedBy);
-  const numbers = p.check(
-    z.object({ reinspectAtRuns: count, runsAtDecision: count }),
-    { reinspectAtRuns: row.reinspectAtRuns ?? null, runsAtDecision: row.runsAtDecision ?? null },
-  );
+  const numbers = p.check(z.object({ reinspectAtRuns: count, runsAtDecision: count }), {
+    reinspectAtRuns: row.reinspectAtRuns ?? null,
+    runsAtDecision: row.runsAtDecision ?? null,
+  });
   const snapshot = p.check(z.record(z.string(), z.unknown(), { error: 'an object' }), row.snapshot, 'snapshot');
   let decision: z.infer<typeof decisionSchema> | undefined;
   if (status === 'decided')

@@ -25,6 +25,8 @@ export function remapJson(value: unknown, ids: ReadonlyMap<string, string>): unk
 
 function mapJson(value: unknown, mapString: (text: string) => string): unknown {
   if (typeof value === 'string') return mapString(value);
+  // A row read from the database holds its times as Dates; JSON writes them as ISO text.
+  if (value instanceof Date) return value.toISOString();
   if (Array.isArray(value)) return value.map((item) => mapJson(item, mapString));
   if (value && typeof value === 'object') {
     const copy: Record<string, unknown> = {};
