@@ -70,12 +70,18 @@ afterAll(async () => {
   await server?.stop();
 });
 
-/** A small valid archive of the attacker's own: a car, a gear set, an inspection. */
+let round = 0;
+/**
+ * A small valid archive of the attacker's own: a car, a gear set, an inspection. Its local ids
+ * (car-1, set-1 …) get a suffix of their own each time, so no archive collides with an earlier one
+ * in a Lashline that keeps archive ids as they stand.
+ */
 function ownArchive(extra: Record<string, unknown[]> = {}): Record<string, unknown> {
-  return {
+  round += 1;
+  const archive = {
     format: 'lashline-team-archive',
     version: 1,
-    team: { id: 'archive-team', name: 'Imported Crew' },
+    team: { id: 'team-1', name: 'Imported Crew' },
     settings: null,
     people: [{ id: 'person-1', email: attackerEmail, name: 'Attacker', role: 'owner' }],
     formerPeople: [],
@@ -94,6 +100,7 @@ function ownArchive(extra: Record<string, unknown[]> = {}): Record<string, unkno
         runsAtInspection: 0,
         data: ids.inspectionData,
         createdBy: 'person-1',
+        updatedAt: '2026-02-01T00:00:00Z',
       },
     ],
     inspectionPhotos: [],
@@ -102,6 +109,9 @@ function ownArchive(extra: Record<string, unknown[]> = {}): Record<string, unkno
     auditEvents: [],
     ...extra,
   };
+  return JSON.parse(
+    JSON.stringify(archive).replace(/"((?:team|car|set|insp|person|ev|run|c|rv|ph)-\d)"/g, `"$1-r${round}"`),
+  ) as Record<string, unknown>;
 }
 
 async function victimRuns(): Promise<number> {
@@ -127,7 +137,8 @@ describe('a team import', () => {
       installationEvents: [
         {
           id: 'ev-1',
-          seq: 9_223_372_036_854_775_807,
+          // As text, SQLite stores it as the integer maximum exactly.
+          seq: '9223372036854775807',
           action: 'install',
           subjectType: 'part',
           subjectId: 'set-1',
@@ -139,7 +150,7 @@ describe('a team import', () => {
     });
     const imported = await attacker.post('/api/imports/team', archive);
     expect(imported.status, JSON.stringify(imported.body)).toBe(201);
-    const [row] = (await database.execute('SELECT MAX(seq) AS seq FROM installation_events')).rows;
+    const [row] = (await database.execute('SELECT CAST(MAX(seq) AS TEXT) AS seq FROM installation_events')).rows;
     expect(Number(row!.seq)).toBeLessThan(1_000_000);
     const install = await victim.post('/api/installations', {
       action: 'install',
