@@ -1,6 +1,8 @@
 import { createClient, type Client } from '@libsql/client';
+import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { signedInClient, type ApiClient } from '../helpers/api-client';
+import { hostileValue } from '../helpers/hostile';
 import { uploadPhoto } from '../helpers/images';
 import { draftBody, submitInspection } from '../helpers/inspections';
 import { smallPng } from '../helpers/records';
@@ -359,4 +361,32 @@ describe('a team import', () => {
     // The same archive again is another new team, not a clash.
     expect((await importer.post('/api/imports/team', archive)).status).toBe(201);
   }, 30_000);
+});
+
+describe('every field of every row of an archive, fuzzed', () => {
+  it('never answers 5xx, and a refusal writes nothing', async () => {
+    const archive = JSON.parse(await (await victim.request('/api/exports/team.json')).text());
+    const cells: [string, number, string][] = [];
+    for (const [table, rows] of Object.entries(archive))
+      if (Array.isArray(rows))
+        rows.forEach((row, index) => {
+          if (row && typeof row === 'object') for (const field of Object.keys(row)) cells.push([table, index, field]);
+        });
+    expect(cells.length).toBeGreaterThan(50);
+    const count = async () =>
+      Number(
+        (await database.execute('SELECT (SELECT count(*) FROM teams) + (SELECT count(*) FROM users) AS n')).rows[0]!.n,
+      );
+    await fc.assert(
+      fc.asyncProperty(fc.constantFrom(...cells), hostileValue, async ([table, index, field], value) => {
+        const copy = structuredClone(archive);
+        copy[table][index][field] = value;
+        const before = await count();
+        const answer = await attacker.post('/api/imports/team', copy);
+        expect(answer.status, `${table}[${index}].${field} = ${JSON.stringify(value)?.slice(0, 80)}`).toBeLessThan(500);
+        if (answer.status >= 400) expect(await count()).toBe(before);
+      }),
+      { numRuns: 40, seed: 20_261_205 },
+    );
+  }, 120_000);
 });
