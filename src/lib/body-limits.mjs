@@ -33,7 +33,7 @@ export const BODY_CAPS = [
   {
     route: /^\/(api\/imports\/team|team\/data)$/,
     bytes: 64 * MB,
-    why: 'a team archive, by the API or the Team data form: a season without photos is about 40 MB (docs/decisions)',
+    why: 'a team archive, by the API or the Team data form: a season without photos is about 21 MB (decision 008)',
   },
   {
     route: /^\/api\/analysis\//,
