@@ -8,7 +8,10 @@ import {
 import { remapJson, withoutStorageKeys } from '../../../src/lib/exports/archive-json';
 
 function archive(rows: Partial<Record<ArchiveTable, Row[]>>): Record<ArchiveTable, Row[]> {
-  return { ...(Object.fromEntries(ARCHIVE_TABLES.map((t) => [t, []])) as Record<ArchiveTable, Row[]>), ...rows };
+  return {
+    ...(Object.fromEntries(ARCHIVE_TABLES.map((t) => [t, [] as Row[]])) as Record<ArchiveTable, Row[]>),
+    ...rows,
+  };
 }
 
 function context() {
