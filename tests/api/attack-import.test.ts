@@ -358,6 +358,12 @@ describe('a team import', () => {
     const served = await importer.request(photos[0]!.url);
     expect(served.status).toBe(200);
     expect(served.headers.get('content-type')).toBe('image/jpeg');
+    // A review's snapshot names the imported photo, by its new address.
+    const reviews = (await importer.get('/api/reviews')).body.items as { id: string }[];
+    const snapshots = await Promise.all(reviews.map(async (r) => (await importer.get(`/api/reviews/${r.id}`)).body));
+    const shown = snapshots.flatMap((r: { snapshot: { photos: { id: string; url: string }[] } }) => r.snapshot.photos);
+    expect(shown).toContainEqual(expect.objectContaining({ id: photos[0]!.id, url: `/api/photos/${photos[0]!.id}` }));
+    expect(JSON.stringify(snapshots)).not.toContain(ids.photo);
     // The same archive again is another new team, not a clash.
     expect((await importer.post('/api/imports/team', archive)).status).toBe(201);
   }, 30_000);

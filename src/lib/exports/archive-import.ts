@@ -515,11 +515,19 @@ function planReview(
   if (!gearSetId || !status || !statusBefore || !openedBy || !numbers || !snapshot) return undefined;
   if (status === 'decided' && !decision) return undefined;
   const mapped = remapJson(snapshot, p.allIds) as Record<string, unknown>;
-  if (Array.isArray(mapped.photos))
-    mapped.photos = mapped.photos.filter(
-      (photo: unknown) =>
-        !!photo && typeof photo === 'object' && importedPhotos.has(String((photo as { id?: unknown }).id)),
-    );
+  // A snapshot's photos are rebuilt from the photos imported with it: no address comes from the file.
+  mapped.photos = (Array.isArray(mapped.photos) ? (mapped.photos as unknown[]) : []).flatMap((photo) => {
+    const { id, side } = (photo ?? {}) as { id?: unknown; side?: unknown };
+    if (typeof id !== 'string' || !importedPhotos.has(id)) return [];
+    return [
+      {
+        id,
+        side: side === 'coast' ? 'coast' : 'drive',
+        url: `/api/photos/${id}`,
+        thumbnailUrl: `/api/photos/${id}/thumbnail`,
+      },
+    ];
+  });
   return {
     id: newIdOf(p, 'reviews', row),
     gearSetId,

@@ -6,6 +6,7 @@ import {
   type Row,
 } from '../../../src/lib/exports/archive-import';
 import { remapJson, withoutStorageKeys } from '../../../src/lib/exports/archive-json';
+import { choosePhotosWithin } from '../../../src/lib/exports/archive-photos';
 
 function archive(rows: Partial<Record<ArchiveTable, Row[]>>): Record<ArchiveTable, Row[]> {
   return {
@@ -113,5 +114,14 @@ describe('archive JSON', () => {
     expect(
       remapJson({ gearSet: { id: 'set-old' }, photos: ['/api/photos/ph-old/thumbnail', '/api/photos/gone'] }, ids),
     ).toEqual({ gearSet: { id: 'set-new' }, photos: ['/api/photos/ph-new/thumbnail', ''] });
+  });
+});
+
+describe('choosePhotosWithin', () => {
+  it('takes photos oldest first while the archive stays within its limit, leaving out those that would pass it', () => {
+    // base64 of 300 bytes is 400 characters, +12 for the field: 412; of 600 bytes 812; of 100 bytes 148.
+    expect(choosePhotosWithin(1000, [300, 600, 100], 1600)).toEqual([true, false, true]);
+    expect(choosePhotosWithin(1000, [300], 1411)).toEqual([false]);
+    expect(choosePhotosWithin(1000, [300], 1412)).toEqual([true]);
   });
 });

@@ -3,6 +3,7 @@ import { getDb } from '../../../db/client';
 import * as t from '../../../db/schema';
 import { ARCHIVE_TABLES, type ArchiveTable } from '../../exports/archive-import';
 import { withoutStorageKeys } from '../../exports/archive-json';
+import { choosePhotosWithin } from '../../exports/archive-photos';
 import { bodyLimitFor } from '../body-limits';
 import { getObjectStorage } from '../storage';
 
@@ -100,23 +101,26 @@ async function addPhotoBytes(archive: Row, keys: Map<string, string>): Promise<s
   const photos = archive.inspectionPhotos as Row[];
   const storage = await getObjectStorage();
   // Room for the list of photos left out: about 120 bytes each.
-  let size = Buffer.byteLength(JSON.stringify(archive)) + 200 + photos.length * 120;
+  const base = Buffer.byteLength(JSON.stringify(archive)) + 200 + photos.length * 120;
+  const fits = choosePhotosWithin(
+    base,
+    photos.map((photo) => Number(photo.bytes) || 0),
+    ARCHIVE_MAX_BYTES,
+  );
   const leftOut: { id: string; inspectionId: string; url: string }[] = [];
-  for (const photo of photos) {
+  for (const [index, photo] of photos.entries()) {
     const id = photo.id as string;
     const key = keys.get(id);
-    const object = key ? await storage.get(key) : null;
+    const object = fits[index] && key ? await storage.get(key) : null;
     const bytes = object ? Buffer.from(await new Response(object.body).arrayBuffer()) : null;
-    const encoded = bytes ? bytes.toString('base64') : null;
-    if (encoded && size + encoded.length + 12 <= ARCHIVE_MAX_BYTES) {
-      photo.image = encoded;
-      size += encoded.length + 12;
-    } else leftOut.push({ id, inspectionId: photo.inspectionId as string, url: `/api/photos/${id}` });
+    // The stored size decided the fit; a copy that differs from it is left out rather than overrun the limit.
+    if (bytes && bytes.byteLength === Number(photo.bytes)) photo.image = bytes.toString('base64');
+    else leftOut.push({ id, inspectionId: photo.inspectionId as string, url: `/api/photos/${id}` });
   }
   archive.photosLeftOut = {
     count: leftOut.length,
     why: leftOut.length
-      ? `These photos would take the archive past its ${ARCHIVE_MAX_BYTES / (1024 * 1024)} MB limit; download each from its address.`
+      ? `These photos would take the archive past its ${ARCHIVE_MAX_BYTES / (1024 * 1024)} MB limit (or their image is missing); download each from its address.`
       : null,
     photos: leftOut,
   };
