@@ -369,6 +369,27 @@ describe('a team import', () => {
   }, 30_000);
 });
 
+describe('the Team data form', () => {
+  async function postArchive(archive: unknown): Promise<{ status: number; text: string }> {
+    const form = new FormData();
+    form.set('archive', new Blob([JSON.stringify(archive)], { type: 'application/json' }), 'archive.json');
+    const response = await attacker.request('/team/data', { method: 'POST', body: form });
+    return { status: response.status, text: await response.text() };
+  }
+
+  it('imports through the same checks as the API', async () => {
+    const refused = await postArchive(
+      ownArchive({ runs: [{ id: 'run-1', carId: ids.car, at: '2026-01-03T08:00:00Z' }] }),
+    );
+    expect(refused.status).toBe(400);
+    expect(refused.text).toContain('runs[0].carId');
+    expect(refused.text).toContain('nothing was imported');
+    const imported = await postArchive(ownArchive());
+    expect(imported.status).toBe(200);
+    expect(imported.text).toContain('Imported: 1 parts');
+  });
+});
+
 describe('every field of every row of an archive, fuzzed', () => {
   it('never answers 5xx, and a refusal writes nothing', async () => {
     const archive = JSON.parse(await (await victim.request('/api/exports/team.json')).text());
