@@ -1,20 +1,29 @@
 import { z } from 'zod';
 import { profileCreateSchema } from '../inspections/profile-schema';
-import { dataToEntry, draftToData, type InspectionData } from '../inspections/record';
-import { findMissingForSubmit, inspectionDraftSchema } from '../inspections/schemas';
 import { PART_STATUSES } from '../register/kinds';
 import {
   assemblyCreateSchema,
   carCreateSchema,
   checkRunTime,
-  installationSchema,
   partCreateSchema,
   runCreateSchema,
 } from '../register/schemas';
 import { photoFieldsSchema, type PhotoSide } from '../photos/upload-rules';
-import { commentSchema, decisionSchema } from '../reviews/schemas';
-import { zodIssuesToFields } from '../validation';
+import { commentSchema } from '../reviews/schemas';
+import { planInspection, planInstallations, planReview } from './archive-import-records';
 import { remapJson } from './archive-json';
+import {
+  ARCHIVE_TABLES,
+  idField,
+  newIdOf,
+  Planner,
+  unique,
+  withoutNulls,
+  type ArchiveTable,
+  type ImportContext,
+  type ImportProblem,
+  type Row,
+} from './archive-planner';
 
 /**
  * How a team archive's rows become rows of a new team, without a database: every row gets a new id,
@@ -23,44 +32,13 @@ import { remapJson } from './archive-json';
  * out is ready to insert; any problem is reported with its table, row and field.
  */
 
-/** The tables of an archive, in the order they are written (each refers only to earlier ones). */
-export const ARCHIVE_TABLES = [
-  'cars',
-  'assemblies',
-  'toleranceProfileVersions',
-  'parts',
-  'installationEvents',
-  'runs',
-  'inspections',
-  'inspectionPhotos',
-  'reviews',
-  'reviewComments',
-  'auditEvents',
-] as const;
-export type ArchiveTable = (typeof ARCHIVE_TABLES)[number];
-
-export interface ImportProblem {
-  table: string;
-  row: number;
-  field: string;
-  message: string;
-}
-
-export interface ImportContext {
-  teamId: string;
-  /** The importing Lashline's account for each person id the archive lists. */
-  people: ReadonlyMap<string, string>;
-  newId: () => string;
-  now: Date;
-}
+export { ARCHIVE_TABLES, type ArchiveTable, type ImportContext, type ImportProblem, type Row } from './archive-planner';
 
 /** A photo to re-encode and store before its row is written. */
 export interface PhotoToImport {
   row: { id: string; teamId: string; inspectionId: string; side: PhotoSide; createdBy: string | null; createdAt: Date };
   image: Uint8Array;
 }
-
-export type Row = Record<string, unknown>;
 
 export interface ImportPlan {
   rows: Record<Exclude<ArchiveTable, 'inspectionPhotos'>, Row[]>;
@@ -71,103 +49,6 @@ export interface ImportPlan {
 
 /** A stored photo may be at most 15 MB, which is 20 MB as base64. */
 const MAX_IMAGE_BASE64 = Math.ceil((15 * 1024 * 1024 * 4) / 3) + 4;
-
-const idField = z.string({ error: 'an id (text)' }).min(1, 'an id (text)').max(64, 'an id of at most 64 characters');
-const dateField = z.iso.datetime({ offset: true, error: 'an ISO date-time, e.g. 2026-05-03T14:20:00Z' });
-
-/** Fields whose null means "not given" to the API's schemas, which take them as optional. */
-function withoutNulls(row: Row, keys: readonly string[]): Row {
-  const copy: Row = {};
-  for (const key of keys) if (row[key] !== null && row[key] !== undefined) copy[key] = row[key];
-  return copy;
-}
-
-class Planner {
-  readonly problems: ImportProblem[] = [];
-  readonly ids = new Map<ArchiveTable, Map<string, string>>();
-  readonly profileIds = new Map<string, string>();
-  /** Every old id to its new one, for the free-form JSON of snapshots and audit entries. */
-  readonly allIds = new Map<string, string>();
-  private table: ArchiveTable = 'cars';
-  private row = 0;
-
-  constructor(readonly context: ImportContext) {
-    for (const [from, to] of context.people) this.allIds.set(from, to);
-  }
-
-  at(table: ArchiveTable, row: number): this {
-    this.table = table;
-    this.row = row;
-    return this;
-  }
-
-  problem(field: string, message: string): void {
-    this.problems.push({ table: this.table, row: this.row, field, message });
-  }
-
-  /** The value parsed by `schema`, or undefined with each issue reported under `field`. */
-  check<S extends z.ZodType>(schema: S, value: unknown, prefix = ''): z.infer<S> | undefined {
-    const parsed = schema.safeParse(value);
-    if (parsed.success) return parsed.data;
-    for (const [field, message] of Object.entries(zodIssuesToFields(parsed.error)))
-      this.problem([prefix, field].filter(Boolean).join('.'), message);
-    return undefined;
-  }
-
-  date(row: Row, field: string, required = false): Date | null {
-    const value = row[field];
-    if (value === null || value === undefined) {
-      if (required) this.problem(field, 'an ISO date-time is required here');
-      return required ? this.context.now : null;
-    }
-    const text = this.check(dateField, value, field);
-    return text ? new Date(text) : null;
-  }
-
-  /** The new id of the row of `table` that `value` names; anything else is reported. */
-  ref(tables: ArchiveTable | ArchiveTable[], field: string, value: unknown, nullable = false): string | null {
-    if ((value === null || value === undefined) && nullable) return null;
-    const names = Array.isArray(tables) ? tables : [tables];
-    for (const name of names) {
-      const mapped = typeof value === 'string' ? this.ids.get(name)?.get(value) : undefined;
-      if (mapped) return mapped;
-    }
-    this.problem(field, `refers to no row of ${names.join(' or ')} in this archive`);
-    return null;
-  }
-
-  person(field: string, value: unknown, nullable = true): string | null {
-    if ((value === null || value === undefined) && nullable) return null;
-    const mapped = typeof value === 'string' ? this.context.people.get(value) : undefined;
-    if (!mapped) this.problem(field, 'refers to no person in this archive’s people or formerPeople');
-    return mapped ?? null;
-  }
-
-  /** Gives every row of every table a new id; a missing or repeated id is reported. */
-  assignIds(archive: Record<ArchiveTable, Row[]>): void {
-    for (const table of ARCHIVE_TABLES) {
-      const map = new Map<string, string>();
-      archive[table].forEach((row, index) => {
-        this.at(table, index);
-        const id = this.check(idField, row.id, 'id');
-        if (id === undefined) return;
-        if (map.has(id)) return this.problem('id', 'the same id is on an earlier row of this table');
-        const fresh = this.context.newId();
-        map.set(id, fresh);
-        this.allIds.set(id, fresh);
-      });
-      this.ids.set(table, map);
-    }
-  }
-}
-
-function unique(planner: Planner, seen: Set<string>, key: string, field: string, what: string): void {
-  if (seen.has(key)) planner.problem(field, `another row of this archive has the same ${what}`);
-  seen.add(key);
-}
-
-const newIdOf = (planner: Planner, table: ArchiveTable, row: Row): string =>
-  planner.ids.get(table)!.get(row.id as string) ?? '';
 
 /**
  * The rows of a new team from an archive's tables, or the problems that stop the import.
@@ -386,164 +267,4 @@ export function planArchiveImport(
 
   if (p.problems.length) return { ok: false, problems: p.problems };
   return { ok: true, plan: { rows, photos, photosWithoutBytes } };
-}
-
-function planInstallations(p: Planner, archived: Row[], out: Row[]): void {
-  const planned: { order: number; index: number; row: Row }[] = [];
-  archived.forEach((row, i) => {
-    p.at('installationEvents', i);
-    const subjectType = p.check(z.enum(['part', 'assembly']), row.subjectType, 'subjectType');
-    const targetType = p.check(z.enum(['assembly', 'car']), row.targetType, 'targetType');
-    if (subjectType === 'assembly' && targetType === 'assembly')
-      return p.problem('targetType', 'an assembly goes into a car');
-    const subjectId = subjectType && p.ref(subjectType === 'part' ? 'parts' : 'assemblies', 'subjectId', row.subjectId);
-    const targetId = targetType && p.ref(targetType === 'car' ? 'cars' : 'assemblies', 'targetId', row.targetId);
-    // The API's own schema, in the shape the API takes.
-    const asRequest = {
-      action: row.action,
-      ...(subjectType === 'assembly' ? { assemblyId: 'subject' } : { partId: 'subject' }),
-      ...(targetType === 'car' ? { carId: 'target' } : { assemblyId: 'target' }),
-      at: row.at,
-      ...withoutNulls(row, ['notes']),
-    };
-    const event = p.check(installationSchema, asRequest);
-    const actorId = p.person('actorId', row.actorId);
-    if (!event || !subjectId || !targetId || !event.at) {
-      if (event && !event.at) p.problem('at', 'an ISO date-time is required here');
-      return;
-    }
-    const ahead = checkRunTime(event.at, p.context.now);
-    if (ahead) return p.problem('at', ahead.replace('The run', 'The event'));
-    // The archive's order of events (seq) is kept; the numbers themselves are new.
-    const order = typeof row.seq === 'number' && Number.isFinite(row.seq) ? row.seq : Number.MAX_SAFE_INTEGER;
-    planned.push({
-      order,
-      index: i,
-      row: {
-        id: newIdOf(p, 'installationEvents', row),
-        teamId: p.context.teamId,
-        action: event.action,
-        subjectType,
-        subjectId,
-        targetType,
-        targetId,
-        at: new Date(event.at),
-        actorId,
-        notes: event.notes ?? null,
-        createdAt: p.date(row, 'createdAt') ?? p.context.now,
-      },
-    });
-  });
-  planned.sort((a, b) => a.order - b.order || a.index - b.index);
-  out.push(...planned.map((entry) => entry.row));
-}
-
-function planInspection(p: Planner, row: Row, gearSets: ReadonlySet<string>): Row | undefined {
-  const gearSetId = p.ref('parts', 'gearSetId', row.gearSetId);
-  if (gearSetId && !gearSets.has(gearSetId)) p.problem('gearSetId', 'refers to a part that is not a gear set');
-  const assemblyId = p.ref('assemblies', 'assemblyId', row.assemblyId, true);
-  const profileVersionId = p.ref('toleranceProfileVersions', 'profileVersionId', row.profileVersionId, true);
-  const technicianId = p.person('technicianId', row.technicianId);
-  const createdBy = p.person('createdBy', row.createdBy, false);
-  const submittedBy = p.person('submittedBy', row.submittedBy);
-  const status = p.check(z.enum(['draft', 'submitted']), row.status, 'status');
-  const revision = p.check(z.number().int().min(1).max(100_000), row.revision ?? 1, 'revision');
-  let entry: ReturnType<typeof dataToEntry> | undefined;
-  try {
-    entry = dataToEntry(row.data as InspectionData);
-  } catch {
-    p.problem('data', 'not an inspection record (entry, backlashMm, runoutMm, pinion, preload, …)');
-  }
-  if (!entry) return undefined;
-  // The API's draft schema checks the measurements in the unit they were typed in.
-  const draft = p.check(
-    inspectionDraftSchema,
-    {
-      gearSetId: 'gear-set',
-      inspectedAt: row.inspectedAt,
-      runsAtInspection: row.runsAtInspection,
-      ...entry,
-    },
-    'data',
-  );
-  if (draft && status === 'submitted')
-    for (const missing of findMissingForSubmit(draft)) p.problem(`data.${missing.path.join('.')}`, missing.message);
-  if (!draft || !status || revision === undefined || !gearSetId || !createdBy) return undefined;
-  return {
-    id: newIdOf(p, 'inspections', row),
-    gearSetId,
-    assemblyId,
-    status,
-    inspectedAt: new Date(draft.inspectedAt),
-    runsAtInspection: draft.runsAtInspection,
-    data: draftToData(draft),
-    profileVersionId,
-    technicianId,
-    createdBy,
-    submittedAt: p.date(row, 'submittedAt'),
-    submittedBy,
-    revision,
-    createdAt: p.date(row, 'createdAt') ?? p.context.now,
-    updatedAt: p.date(row, 'updatedAt') ?? p.context.now,
-  };
-}
-
-const count = z.number().int().min(0).max(1_000_000).nullable();
-
-function planReview(
-  p: Planner,
-  row: Row,
-  gearSets: ReadonlySet<string>,
-  importedPhotos: ReadonlySet<string>,
-): Row | undefined {
-  const gearSetId = p.ref('parts', 'gearSetId', row.gearSetId);
-  if (gearSetId && !gearSets.has(gearSetId)) p.problem('gearSetId', 'refers to a part that is not a gear set');
-  const status = p.check(z.enum(['open', 'decided']), row.status, 'status');
-  const statusBefore = p.check(z.enum(PART_STATUSES), row.statusBefore, 'statusBefore');
-  const openedBy = p.person('openedBy', row.openedBy, false);
-  const decidedBy = p.person('decidedBy', row.decidedBy);
-  const numbers = p.check(z.object({ reinspectAtRuns: count, runsAtDecision: count }), {
-    reinspectAtRuns: row.reinspectAtRuns ?? null,
-    runsAtDecision: row.runsAtDecision ?? null,
-  });
-  const snapshot = p.check(z.record(z.string(), z.unknown(), { error: 'an object' }), row.snapshot, 'snapshot');
-  let decision: z.infer<typeof decisionSchema> | undefined;
-  if (status === 'decided')
-    decision = p.check(decisionSchema, withoutNulls(row, ['decision', 'reason', 'notes', 'reinspectAfterRuns']));
-  else if (status === 'open' && (row.decision ?? null) !== null)
-    p.problem('decision', 'an open review has no decision yet');
-  if (!gearSetId || !status || !statusBefore || !openedBy || !numbers || !snapshot) return undefined;
-  if (status === 'decided' && !decision) return undefined;
-  const mapped = remapJson(snapshot, p.allIds) as Record<string, unknown>;
-  // A snapshot's photos are rebuilt from the photos imported with it: no address comes from the file.
-  mapped.photos = (Array.isArray(mapped.photos) ? (mapped.photos as unknown[]) : []).flatMap((photo) => {
-    const { id, side } = (photo ?? {}) as { id?: unknown; side?: unknown };
-    if (typeof id !== 'string' || !importedPhotos.has(id)) return [];
-    return [
-      {
-        id,
-        side: side === 'coast' ? 'coast' : 'drive',
-        url: `/api/photos/${id}`,
-        thumbnailUrl: `/api/photos/${id}/thumbnail`,
-      },
-    ];
-  });
-  return {
-    id: newIdOf(p, 'reviews', row),
-    gearSetId,
-    status,
-    snapshot: mapped,
-    openedBy,
-    statusBefore,
-    decision: decision?.decision ?? null,
-    reason: decision?.reason ?? null,
-    notes: decision?.notes ?? null,
-    reinspectAfterRuns: decision?.reinspectAfterRuns ?? null,
-    reinspectAtRuns: numbers.reinspectAtRuns,
-    runsAtDecision: numbers.runsAtDecision,
-    decidedBy,
-    decidedAt: status === 'decided' ? (p.date(row, 'decidedAt', true) ?? p.context.now) : null,
-    reminderQueuedAt: p.date(row, 'reminderQueuedAt'),
-    createdAt: p.date(row, 'createdAt') ?? p.context.now,
-  };
 }
