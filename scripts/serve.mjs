@@ -5,13 +5,15 @@ import { pathToFileURL } from 'node:url';
 import send from 'send';
 import { clientAddressOf, parseTrustProxy } from '../src/lib/client-address.mjs';
 import { API_CSP, BASE_SECURITY_HEADERS } from '../src/lib/security-headers.mjs';
+import { capRequestBody } from './body-cap.mjs';
 
 /**
  * Serves the built app (the Node adapter in middleware mode) with the security headers on every
  * response, including those Astro answers before any middleware runs (its origin check's 403) and
  * the static files. Pages keep their own Content-Security-Policy, which replaces the strict default.
  * Static files are listed once at start, so an API request never waits on the disk to learn it is
- * not a file. Plain JavaScript: nothing compiles on the request path.
+ * not a file. Every request body is capped at its route's row of src/lib/body-limits.mjs while it streams
+ * (scripts/body-cap.mjs). Plain JavaScript: nothing compiles on the request path.
  *
  *   HOST=localhost PORT=4321 node scripts/serve.mjs        (LASHLINE_DIST picks another build folder)
  */
@@ -53,6 +55,8 @@ const server = createServer((req, res) => {
     req.socket.remoteAddress,
     trustedProxies,
   );
+  // Every body is capped here, while it streams, before the app reads it (src/lib/body-limits.mjs).
+  if (!capRequestBody(req, res)) return;
   handler(req, res, () => {
     res.statusCode = 404;
     res.setHeader('Content-Type', 'text/plain; charset=utf-8');

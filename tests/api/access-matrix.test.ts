@@ -101,7 +101,19 @@ const MATRIX: Record<string, Rule> = {
   'GET /api/gear-sets/[id]/analysis': { own: MEMBER, other: NOT_FOUND },
   'GET /api/gear-sets/[id]/run-count': { own: MEMBER, other: NOT_FOUND },
   'GET /api/health': { own: [200, 200, 200, 200, 200], other: null },
-  'POST /api/imports/team': { own: SIGNED_IN, other: null },
+  // An archive's rows may refer only to rows of the same archive: one naming the scope's car (the
+  // caller's own team's or another's) is refused, 422 naming the field, whoever sends it.
+  'POST /api/imports/team': {
+    own: [401, 422, 422, 422, 422],
+    other: [401, 422, 422, 422, 422],
+    body: (ids) => ({
+      format: 'lashline-team-archive',
+      version: 1,
+      team: { name: 'Matrix import' },
+      people: [],
+      runs: [{ id: 'run-1', carId: ids.carId, at: '2026-06-01T10:00:00Z' }],
+    }),
+  },
   'GET /api/inspections': { own: MEMBER, other: null },
   'POST /api/inspections': { own: RECORDERS, other: NOT_FOUND_FOR(RECORDERS), body: (ids) => draftBody(ids.gearSetId) },
   'GET /api/inspections/[id]': { own: MEMBER, other: NOT_FOUND },

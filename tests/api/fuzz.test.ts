@@ -107,7 +107,33 @@ const TEMPLATES: Record<string, () => Record<string, unknown>> = {
   'PUT /api/teams/current': () => ({ teamId: own.teamId }),
   'POST /api/tolerance-profiles': () => ({ name: 'Fuzz profile', values: profileValues }),
   'PUT /api/tolerance-profiles/[id]': () => ({ values: profileValues }),
-  'POST /api/imports/team': () => ({ format: 'lashline-team-archive', version: 1, team: { name: 'x' } }),
+  // A small archive whose rows refer to each other, and one run naming the other team's car.
+  'POST /api/imports/team': () => ({
+    format: 'lashline-team-archive',
+    version: 1,
+    team: { name: 'Fuzz import' },
+    people: [{ id: 'p1', email: 'fuzz-import@example.test', name: 'Fuzz' }],
+    cars: [{ id: 'c1', name: 'Fuzz car' }],
+    parts: [{ id: 'g1', kind: 'gear-set', serial: 'FZ-1', status: 'spare', ringTeeth: 41, pinionTeeth: 10 }],
+    installationEvents: [
+      {
+        id: 'e1',
+        seq: 1,
+        action: 'install',
+        subjectType: 'part',
+        subjectId: 'g1',
+        targetType: 'car',
+        targetId: 'c1',
+        at: '2026-06-01T09:00:00Z',
+        actorId: 'p1',
+      },
+    ],
+    runs: [
+      { id: 'r1', carId: 'c1', at: '2026-06-01T10:00:00Z', recordedBy: 'p1' },
+      { id: 'r2', carId: other.carId, at: '2026-06-01T11:00:00Z' },
+    ],
+    reviewComments: [],
+  }),
 };
 
 /** Query parameters the routes read, so the fuzzer reaches their parsing. */

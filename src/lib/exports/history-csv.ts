@@ -1,4 +1,4 @@
-import Papa from 'papaparse';
+import { toCsv } from './csv';
 
 /** One line of a gear set's history: an installation event, an inspection or a review. */
 export interface HistoryRow {
@@ -34,8 +34,5 @@ const COLUMNS: (keyof HistoryRow)[] = [
 /** The whole history in time order, canonical units named in the column headers. */
 export function historyToCsv(rows: HistoryRow[]): string {
   const sorted = [...rows].sort((a, b) => a.at.localeCompare(b.at));
-  return Papa.unparse(
-    { fields: COLUMNS, data: sorted.map((row) => COLUMNS.map((c) => row[c] ?? '')) },
-    { newline: '\n' },
-  );
+  return toCsv({ fields: COLUMNS, data: sorted.map((row) => COLUMNS.map((c) => row[c] ?? '')) });
 }

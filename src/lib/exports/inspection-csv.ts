@@ -1,4 +1,4 @@
-import Papa from 'papaparse';
+import { toCsv } from './csv';
 import { findResolution } from '../units';
 import type { InspectionData } from '../inspections/record';
 
@@ -30,5 +30,5 @@ export function inspectionToCsv(inspection: {
     backlash_mm: mm === null ? '' : Number(mm.toFixed(9)),
     resolution: resolution?.label ?? data.entry.resolution,
   }));
-  return Papa.unparse(rows, { newline: '\n' });
+  return toCsv(rows);
 }

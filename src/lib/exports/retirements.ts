@@ -1,4 +1,4 @@
-import Papa from 'papaparse';
+import { toCsv } from './csv';
 
 /**
  * The early-retirement summary: each set retired in a period, its runs at retirement against its
@@ -69,5 +69,5 @@ export function retirementsToCsv(summary: RetirementSummary): string {
     s.reason,
     s.notes ?? '',
   ]);
-  return Papa.unparse({ fields, data }, { newline: '\n' });
+  return toCsv({ fields, data });
 }

@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { auditEvents } from '../../db/schema';
 import type { Transaction } from '../../db/client';
+import { withoutStorageKeys } from '../exports/archive-json';
 
 export interface AuditEntry {
   teamId: string | null;
@@ -12,7 +13,10 @@ export interface AuditEntry {
   after?: unknown;
 }
 
-/** Adds one row to the audit trail inside the caller's transaction, so the change and its record land together. */
+/**
+ * Adds one row to the audit trail inside the caller's transaction, so the change and its record land
+ * together; storage keys are taken out of `before` and `after`.
+ */
 export async function recordAudit(tx: Transaction, entry: AuditEntry): Promise<void> {
   await tx.insert(auditEvents).values({
     id: randomUUID(),
@@ -21,7 +25,8 @@ export async function recordAudit(tx: Transaction, entry: AuditEntry): Promise<v
     action: entry.action,
     recordType: entry.recordType,
     recordId: entry.recordId,
-    before: entry.before ?? null,
-    after: entry.after ?? null,
+    // A photo row's storage keys stay out of the trail (anyone who reads it could otherwise name them).
+    before: withoutStorageKeys(entry.before ?? null),
+    after: withoutStorageKeys(entry.after ?? null),
   });
 }

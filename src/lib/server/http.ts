@@ -145,6 +145,12 @@ export function logServerFailure(method: string, path: string, error: unknown): 
   return new HttpError(500, 'Something went wrong on the server; the change was not saved.');
 }
 
+/** Whether reading the body failed because the serving wrapper cut it off at its route's cap. */
+export function isBodyCapError(error: unknown): boolean {
+  const named = (value: unknown) => value instanceof Error && value.name === 'BodyTooLargeError';
+  return named(error) || (error instanceof Error && named(error.cause));
+}
+
 /** Wraps an endpoint so that an HttpError becomes its JSON answer and nothing else leaks. */
 export function handle(
   work: (context: APIContext) => Response | Promise<Response>,
@@ -157,6 +163,8 @@ export function handle(
         logIfDenied(error, { method: context.request.method, path: context.url.pathname }, context.locals);
         return errorResponse(error);
       }
+      // The serving wrapper has already answered 413 and closed the connection (scripts/body-cap.mjs).
+      if (isBodyCapError(error)) return errorResponse(tooLargeFor(context.url.pathname));
       return errorResponse(logServerFailure(context.request.method, context.url.pathname, error));
     }
   };

@@ -34,7 +34,7 @@ export async function listPartHistory(teamId: string, partId: string): Promise<H
   const entries: HistoryEntry[] = [];
   for (const { event, actorName } of rows) {
     const key = `${event.targetType}:${event.targetId}`;
-    if (!labels.has(key)) labels.set(key, await describeTarget(db, event.targetType, event.targetId));
+    if (!labels.has(key)) labels.set(key, await describeTarget(db, event.targetType, event.targetId, teamId));
     entries.push({
       id: event.id,
       action: event.action,

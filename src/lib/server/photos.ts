@@ -169,10 +169,10 @@ export async function removeObjects(keys: string[]): Promise<void> {
  * The storage keys of an inspection's photos, read inside the transaction that deletes it (its rows
  * go by cascade); pass them to removeObjects() once that transaction has committed.
  */
-export async function photoKeysOfInspection(tx: Transaction, inspectionId: string): Promise<string[]> {
+export async function photoKeysOfInspection(tx: Transaction, inspectionId: string, teamId: string): Promise<string[]> {
   const rows = await tx
     .select({ storageKey: inspectionPhotos.storageKey, thumbnailKey: inspectionPhotos.thumbnailKey })
     .from(inspectionPhotos)
-    .where(eq(inspectionPhotos.inspectionId, inspectionId));
+    .where(and(eq(inspectionPhotos.teamId, teamId), eq(inspectionPhotos.inspectionId, inspectionId)));
   return rows.flatMap((row) => [row.storageKey, row.thumbnailKey]);
 }

@@ -41,13 +41,19 @@ export async function exportGearSetHistoryCsv(
   const events = await db
     .select()
     .from(installationEvents)
-    .where(and(eq(installationEvents.subjectType, 'part'), eq(installationEvents.subjectId, gearSetId)))
+    .where(
+      and(
+        eq(installationEvents.teamId, teamId),
+        eq(installationEvents.subjectType, 'part'),
+        eq(installationEvents.subjectId, gearSetId),
+      ),
+    )
     .orderBy(asc(installationEvents.seq));
   for (const event of events) {
     rows.push({
       at: event.at.toISOString(),
       record: event.action === 'install' ? 'installed' : 'removed',
-      place: await describeTarget(db, event.targetType, event.targetId),
+      place: await describeTarget(db, event.targetType, event.targetId, teamId),
       notes: event.notes,
       link_id: event.id,
     });
@@ -94,7 +100,7 @@ export async function summariseTeamRetirements(teamId: string, from: string, to:
   const rows = await db
     .select({ review: reviews, serial: parts.serial, lifeLimitRuns: parts.lifeLimitRuns })
     .from(reviews)
-    .innerJoin(parts, eq(parts.id, reviews.gearSetId))
+    .innerJoin(parts, and(eq(parts.id, reviews.gearSetId), eq(parts.teamId, teamId)))
     .where(and(eq(reviews.teamId, teamId), eq(reviews.decision, 'retire')));
   return summariseRetirements(
     rows.map(({ review, serial, lifeLimitRuns }) => ({

@@ -1,63 +1,66 @@
-import { randomUUID } from 'node:crypto';
 import { eq, inArray } from 'drizzle-orm';
-import { z } from 'zod';
-import { getDb, write } from '../../../db/client';
+import { getDb } from '../../../db/client';
 import * as t from '../../../db/schema';
-import type { TeamAccess } from '../guard';
-import { IMPORTED_ACCOUNT_HASH, type PublicUser } from '../accounts';
-import { HttpError } from '../http';
-import { recordAudit } from '../audit';
-import { resolveTeamSettings } from '../../register/team-settings';
+import { ARCHIVE_TABLES, type ArchiveTable } from '../../exports/archive-import';
+import { withoutStorageKeys } from '../../exports/archive-json';
+import { choosePhotosWithin } from '../../exports/archive-photos';
+import { bodyLimitFor } from '../body-limits';
+import { getObjectStorage } from '../storage';
 
 /**
- * The whole team as one JSON document, for backup and for leaving, and its import into another
- * Lashline (an empty one, or one where the team does not exist yet). Photos' bytes are not in it —
- * only their records. People come back as the importer (owner) plus accounts that exist already
- * or are made without a password, keeping every record's author; the owner invites them again.
+ * The whole team as one JSON document, for backup and for leaving; team-import.ts reads it back as
+ * a new team. Photos travel as their bytes (base64) while the document stays within the import's
+ * size limit; the rest are left out, counted and listed with the address each can be downloaded from.
+ * No storage key is ever in it.
  */
 export const ARCHIVE_FORMAT = 'lashline-team-archive';
 export const ARCHIVE_VERSION = 1;
+/** The one size limit of an archive: the import's body cap, by the API and by the Team data form. */
+export const ARCHIVE_MAX_BYTES = bodyLimitFor('/api/imports/team');
 
-const TABLES = {
+export const ARCHIVE_SOURCES = {
   cars: t.cars,
   assemblies: t.assemblies,
+  toleranceProfileVersions: t.toleranceProfileVersions,
   parts: t.parts,
   installationEvents: t.installationEvents,
   runs: t.runs,
-  toleranceProfileVersions: t.toleranceProfileVersions,
   inspections: t.inspections,
   inspectionPhotos: t.inspectionPhotos,
   reviews: t.reviews,
   reviewComments: t.reviewComments,
   auditEvents: t.auditEvents,
-} as const;
-type TableName = keyof typeof TABLES;
-const ORDER = Object.keys(TABLES) as TableName[];
+} as const satisfies Record<ArchiveTable, unknown>;
 
-// Columns holding a person's id, per table, to map onto the importing database's accounts.
-const PERSON_COLUMNS: Partial<Record<TableName, string[]>> = {
+// Columns holding a person's id, per table: their people travel with the archive.
+const PERSON_COLUMNS: Partial<Record<ArchiveTable, string[]>> = {
   installationEvents: ['actorId'],
   runs: ['recordedBy'],
   toleranceProfileVersions: ['createdBy'],
   inspections: ['technicianId', 'createdBy', 'submittedBy'],
   inspectionPhotos: ['createdBy'],
   reviews: ['openedBy', 'decidedBy'],
-  reviewComments: ['authorId'],
+  reviewComments: ['authorId', 'mentions'],
   auditEvents: ['actorId'],
 };
-const DATE_COLUMNS = ['createdAt', 'at', 'inspectedAt', 'submittedAt', 'updatedAt', 'decidedAt', 'reminderQueuedAt'];
 
-/** The team as an archive document. */
-export async function exportTeamArchive(teamId: string): Promise<Record<string, unknown>> {
+type Row = Record<string, unknown>;
+
+/** The team as an archive document, as JSON text. */
+export async function exportTeamArchive(teamId: string): Promise<string> {
   const db = await getDb();
-  const team = await db.select().from(t.teams).where(eq(t.teams.id, teamId)).get();
+  const team = await db
+    .select({ id: t.teams.id, name: t.teams.name })
+    .from(t.teams)
+    .where(eq(t.teams.id, teamId))
+    .get();
   const people = await db
     .select({ id: t.users.id, email: t.users.email, name: t.users.name, role: t.memberships.role })
     .from(t.memberships)
     .innerJoin(t.users, eq(t.users.id, t.memberships.userId))
     .where(eq(t.memberships.teamId, teamId));
   const settings = await db.select().from(t.teamSettings).where(eq(t.teamSettings.teamId, teamId)).get();
-  const archive: Record<string, unknown> = {
+  const archive: Row = {
     format: ARCHIVE_FORMAT,
     version: ARCHIVE_VERSION,
     exportedAt: new Date().toISOString(),
@@ -67,13 +70,17 @@ export async function exportTeamArchive(teamId: string): Promise<Record<string, 
   };
   // Authors who have left the team still sign their records.
   const authors = new Set<string>();
-  for (const name of ORDER) {
-    const table = TABLES[name];
-    const rows = await db.select().from(table).where(eq(table.teamId, teamId));
+  const keys = new Map<string, string>();
+  for (const name of ARCHIVE_TABLES) {
+    const table = ARCHIVE_SOURCES[name];
+    const rows = (await db.select().from(table).where(eq(table.teamId, teamId))) as Row[];
     for (const row of rows)
       for (const column of PERSON_COLUMNS[name] ?? [])
-        if ((row as Record<string, unknown>)[column]) authors.add((row as unknown as Record<string, string>)[column]!);
-    archive[name] = rows;
+        for (const id of [row[column]].flat()) if (typeof id === 'string') authors.add(id);
+    archive[name] = rows.map((row) => {
+      if (name === 'inspectionPhotos') keys.set(row.id as string, row.storageKey as string);
+      return withoutStorageKeys(row);
+    });
   }
   const known = new Set(people.map((p) => p.id));
   const former = [...authors].filter((id) => !known.has(id));
@@ -83,89 +90,39 @@ export async function exportTeamArchive(teamId: string): Promise<Record<string, 
         .from(t.users)
         .where(inArray(t.users.id, former))
     : [];
-  return archive;
+  return addPhotoBytes(archive, keys);
 }
 
-const personSchema = z.object({ id: z.string(), email: z.string(), name: z.string() });
-export const archiveSchema = z
-  .object({
-    format: z.literal(ARCHIVE_FORMAT, { error: `format: not a Lashline team archive (expected "${ARCHIVE_FORMAT}").` }),
-    version: z.literal(ARCHIVE_VERSION, { error: `version: this Lashline reads archive version ${ARCHIVE_VERSION}.` }),
-    team: z.object({ id: z.string().min(1), name: z.string().min(1) }),
-    settings: z.unknown().nullable(),
-    people: z.array(personSchema.extend({ role: z.string() })),
-    formerPeople: z.array(personSchema).default([]),
-    ...Object.fromEntries(
-      ORDER.map((name) => [name, z.array(z.record(z.string(), z.unknown()), { error: `${name}: a list of records.` })]),
-    ),
-  })
-  .passthrough();
-
-function revive(row: Record<string, unknown>): Record<string, unknown> {
-  const copy: Record<string, unknown> = { ...row };
-  for (const column of DATE_COLUMNS) if (typeof copy[column] === 'string') copy[column] = new Date(copy[column]);
-  return copy;
-}
-
-/** Imports an archive as a new team owned by the importer; 409 when the team is already here. */
-export async function importTeamArchive(
-  importer: PublicUser,
-  archive: z.infer<typeof archiveSchema>,
-): Promise<{ teamId: string; counts: Record<string, number> }> {
-  const db = await getDb();
-  if (await db.select({ id: t.teams.id }).from(t.teams).where(eq(t.teams.id, archive.team.id)).get()) {
-    throw new HttpError(409, 'team: this team is already in this Lashline; nothing was imported.', {
-      team: 'already here',
-    });
+/**
+ * Puts each photo's bytes into its row, oldest first, while the document stays within the size limit;
+ * the photos left out are counted and listed, each with the address it downloads from.
+ */
+async function addPhotoBytes(archive: Row, keys: Map<string, string>): Promise<string> {
+  const photos = archive.inspectionPhotos as Row[];
+  const storage = await getObjectStorage();
+  // Room for the list of photos left out: about 120 bytes each.
+  const base = Buffer.byteLength(JSON.stringify(archive)) + 200 + photos.length * 120;
+  const fits = choosePhotosWithin(
+    base,
+    photos.map((photo) => Number(photo.bytes) || 0),
+    ARCHIVE_MAX_BYTES,
+  );
+  const leftOut: { id: string; inspectionId: string; url: string }[] = [];
+  for (const [index, photo] of photos.entries()) {
+    const id = photo.id as string;
+    const key = keys.get(id);
+    const object = fits[index] && key ? await storage.get(key) : null;
+    const bytes = object ? Buffer.from(await new Response(object.body).arrayBuffer()) : null;
+    // The stored size decided the fit; a copy that differs from it is left out rather than overrun the limit.
+    if (bytes && bytes.byteLength === Number(photo.bytes)) photo.image = bytes.toString('base64');
+    else leftOut.push({ id, inspectionId: photo.inspectionId as string, url: `/api/photos/${id}` });
   }
-  const teamId = archive.team.id;
-  const counts: Record<string, number> = {};
-  await write(async (tx) => {
-    const personMap = new Map<string, string>();
-    for (const person of [...archive.people, ...archive.formerPeople]) {
-      if (personMap.has(person.id)) continue;
-      const existing = await tx
-        .select({ id: t.users.id })
-        .from(t.users)
-        .where(eq(t.users.email, person.email.toLowerCase()))
-        .get();
-      if (existing) personMap.set(person.id, existing.id);
-      else {
-        const id = randomUUID();
-        await tx
-          .insert(t.users)
-          .values({ id, email: person.email.toLowerCase(), name: person.name, passwordHash: IMPORTED_ACCOUNT_HASH });
-        personMap.set(person.id, id);
-      }
-    }
-    await tx.insert(t.teams).values({ id: teamId, name: archive.team.name });
-    await tx.insert(t.memberships).values({ teamId, userId: importer.id, role: 'owner' });
-    if (archive.settings)
-      await tx.insert(t.teamSettings).values({ teamId, values: resolveTeamSettings(archive.settings) });
-    for (const name of ORDER) {
-      const rows = (archive[name] as Record<string, unknown>[]).map((row) => {
-        const copy = revive(row);
-        copy.teamId = teamId;
-        for (const column of PERSON_COLUMNS[name] ?? [])
-          if (typeof copy[column] === 'string') copy[column] = personMap.get(copy[column]) ?? null;
-        if (name === 'reviewComments')
-          copy.mentions = ((copy.mentions as string[]) ?? []).map((id) => personMap.get(id) ?? id);
-        return copy;
-      });
-      counts[name] = rows.length;
-      for (let i = 0; i < rows.length; i += 200) await tx.insert(TABLES[name]).values(rows.slice(i, i + 200) as never);
-    }
-    await tx.update(t.users).set({ currentTeamId: teamId }).where(eq(t.users.id, importer.id));
-    await recordAudit(tx, {
-      teamId,
-      actorId: importer.id,
-      action: 'import',
-      recordType: 'team',
-      recordId: teamId,
-      after: counts,
-    });
-  });
-  return { teamId, counts };
+  archive.photosLeftOut = {
+    count: leftOut.length,
+    why: leftOut.length
+      ? `These photos would take the archive past its ${ARCHIVE_MAX_BYTES / (1024 * 1024)} MB limit (or their image is missing); download each from its address.`
+      : null,
+    photos: leftOut,
+  };
+  return JSON.stringify(archive);
 }
-
-export type { TeamAccess };

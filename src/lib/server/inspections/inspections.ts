@@ -270,7 +270,7 @@ export async function deleteDraft(access: TeamAccess, inspectionId: string): Pro
   const row = await requireChangeableInspection(access, inspectionId);
   if (row.status === 'submitted') throw new HttpError(409, 'A submitted inspection is kept; edit it instead.');
   const photoKeys = await write(async (tx) => {
-    const keys = await photoKeysOfInspection(tx, row.id);
+    const keys = await photoKeysOfInspection(tx, row.id, access.team.id);
     await tx.delete(inspections).where(eq(inspections.id, row.id));
     await recordAudit(tx, {
       teamId: access.team.id,

@@ -132,9 +132,12 @@ export async function deleteAssembly(access: TeamAccess, id: string): Promise<vo
       .select({ id: installationEvents.id })
       .from(installationEvents)
       .where(
-        or(
-          and(eq(installationEvents.subjectType, 'assembly'), eq(installationEvents.subjectId, id)),
-          and(eq(installationEvents.targetType, 'assembly'), eq(installationEvents.targetId, id)),
+        and(
+          eq(installationEvents.teamId, access.team.id),
+          or(
+            and(eq(installationEvents.subjectType, 'assembly'), eq(installationEvents.subjectId, id)),
+            and(eq(installationEvents.targetType, 'assembly'), eq(installationEvents.targetId, id)),
+          ),
         ),
       )
       .limit(1)

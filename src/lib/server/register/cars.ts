@@ -124,11 +124,22 @@ export async function deleteCar(access: TeamAccess, carId: string): Promise<void
       .get();
     if (!before) throw new HttpError(404, 'No such car in this team.');
     const used =
-      (await tx.select({ id: runs.id }).from(runs).where(eq(runs.carId, carId)).limit(1).get()) ??
+      (await tx
+        .select({ id: runs.id })
+        .from(runs)
+        .where(and(eq(runs.teamId, access.team.id), eq(runs.carId, carId)))
+        .limit(1)
+        .get()) ??
       (await tx
         .select({ id: installationEvents.id })
         .from(installationEvents)
-        .where(and(eq(installationEvents.targetType, 'car'), eq(installationEvents.targetId, carId)))
+        .where(
+          and(
+            eq(installationEvents.teamId, access.team.id),
+            eq(installationEvents.targetType, 'car'),
+            eq(installationEvents.targetId, carId),
+          ),
+        )
         .limit(1)
         .get());
     if (used)

@@ -59,7 +59,7 @@ export async function recordInstallation(
   const subjectId = (input.partId ?? input.assemblyId)!;
   return write(async (tx) => {
     await requireOwned(tx, teamId, subjectType, subjectId, subjectType === 'part' ? 'partId' : 'assemblyId');
-    const last = await findLastEvent(tx, subjectType, subjectId);
+    const last = await findLastEvent(tx, subjectType, subjectId, teamId);
     if (last && last.at.getTime() > at.getTime()) {
       throw new HttpError(
         409,
@@ -70,7 +70,7 @@ export async function recordInstallation(
     let targetType: 'assembly' | 'car';
     let targetId: string;
     if (input.action === 'install') {
-      const where = await findLocation(tx, subjectType, subjectId);
+      const where = await findLocation(tx, subjectType, subjectId, teamId);
       if (where) {
         throw new HttpError(
           409,
@@ -83,7 +83,7 @@ export async function recordInstallation(
       targetType = subjectType === 'part' && input.assemblyId ? 'assembly' : 'car';
       targetId = (targetType === 'assembly' ? input.assemblyId : input.carId)!;
       await requireOwned(tx, teamId, targetType, targetId, targetType === 'assembly' ? 'assemblyId' : 'carId');
-      await checkInstallRules(tx, subjectType, subjectId, targetType, targetId);
+      await checkInstallRules(tx, subjectType, subjectId, targetType, targetId, teamId);
     } else {
       if (!last || last.action !== 'install') {
         throw new HttpError(409, 'It is not installed anywhere, so there is nothing to remove.', {
@@ -135,13 +135,14 @@ async function checkInstallRules(
   subjectId: string,
   targetType: 'assembly' | 'car',
   targetId: string,
+  teamId: string,
 ): Promise<void> {
-  const present = await findInstalledIn(tx, targetType, targetId);
+  const present = await findInstalledIn(tx, targetType, targetId, teamId);
   if (subjectType === 'part') {
     const part = await tx
       .select({ kind: parts.kind, status: parts.status, serial: parts.serial })
       .from(parts)
-      .where(eq(parts.id, subjectId))
+      .where(and(eq(parts.id, subjectId), eq(parts.teamId, teamId)))
       .get();
     if (part && OUT_OF_USE.includes(part.status)) {
       throw new HttpError(409, `Part ${part.serial} is ${part.status}; it cannot be installed.`, {
@@ -152,11 +153,12 @@ async function checkInstallRules(
       const kinds = await findPartKinds(
         tx,
         present.filter((p) => p.subjectType === 'part').map((p) => p.subjectId),
+        teamId,
       );
       if ([...kinds.values()].includes('gear-set')) {
         throw new HttpError(
           409,
-          `${await describeTarget(tx, targetType, targetId)} already holds a gear set; remove it first.`,
+          `${await describeTarget(tx, targetType, targetId, teamId)} already holds a gear set; remove it first.`,
           { assemblyId: 'holds a gear set' },
         );
       }
@@ -166,7 +168,7 @@ async function checkInstallRules(
   if (present.some((p) => p.subjectType === 'assembly')) {
     throw new HttpError(
       409,
-      `${await describeTarget(tx, 'car', targetId)} already has a rear-end assembly; remove it first.`,
+      `${await describeTarget(tx, 'car', targetId, teamId)} already has a rear-end assembly; remove it first.`,
       { carId: 'has an assembly' },
     );
   }

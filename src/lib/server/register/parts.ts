@@ -84,7 +84,7 @@ export async function listParts(teamId: string, kind?: PartKind): Promise<PartVi
     let location: PartView['location'] = null;
     if (install) {
       const key = `${install.targetType}:${install.targetId}`;
-      if (!labels.has(key)) labels.set(key, await describeTarget(db, install.targetType, install.targetId));
+      if (!labels.has(key)) labels.set(key, await describeTarget(db, install.targetType, install.targetId, teamId));
       location = {
         targetType: install.targetType,
         targetId: install.targetId,
@@ -197,7 +197,13 @@ export async function deletePart(access: TeamAccess, partId: string): Promise<vo
     const history = await tx
       .select({ id: installationEvents.id })
       .from(installationEvents)
-      .where(and(eq(installationEvents.subjectType, 'part'), eq(installationEvents.subjectId, partId)))
+      .where(
+        and(
+          eq(installationEvents.teamId, access.team.id),
+          eq(installationEvents.subjectType, 'part'),
+          eq(installationEvents.subjectId, partId),
+        ),
+      )
       .limit(1)
       .get();
     if (history)

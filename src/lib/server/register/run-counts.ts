@@ -43,7 +43,7 @@ export async function countRunsForParts(teamId: string, asOf?: number): Promise<
            COUNT(r.id) AS total_runs,
            COALESCE(SUM(CASE WHEN pc.stint_seq = cs.seq THEN 1 ELSE 0 END), 0) AS since_install
     FROM part_car pc
-    JOIN runs r ON r.car_id = pc.car_id AND r.at >= pc.from_at AND r.at < pc.to_at AND r.at < ${before}
+    JOIN runs r ON r.team_id = ${teamId} AND r.car_id = pc.car_id AND r.at >= pc.from_at AND r.at < pc.to_at AND r.at < ${before}
     LEFT JOIN current_stint cs ON cs.part_id = pc.part_id
     GROUP BY pc.part_id
   `);

@@ -42,7 +42,12 @@ async function takeSnapshot(teamId: string, gearSetId: string) {
   const latestId = (analyses['mm|N-m'] as { latest: { id: string } | null }).latest?.id;
   const db = await getDb();
   const photos = latestId
-    ? (await db.select().from(inspectionPhotos).where(eq(inspectionPhotos.inspectionId, latestId))).map((p) => ({
+    ? (
+        await db
+          .select()
+          .from(inspectionPhotos)
+          .where(and(eq(inspectionPhotos.teamId, teamId), eq(inspectionPhotos.inspectionId, latestId)))
+      ).map((p) => ({
         id: p.id,
         side: p.side,
         url: `/api/photos/${p.id}`,
@@ -112,7 +117,7 @@ export async function openReview(access: TeamAccess, gearSetId: string, baseUrl:
   const open = await db
     .select({ id: reviews.id })
     .from(reviews)
-    .where(and(eq(reviews.gearSetId, gearSetId), eq(reviews.status, 'open')))
+    .where(and(eq(reviews.teamId, access.team.id), eq(reviews.gearSetId, gearSetId), eq(reviews.status, 'open')))
     .get();
   if (open)
     throw new HttpError(409, `gearSetId: this set already has an open review (${open.id}); comment there.`, {
@@ -190,7 +195,7 @@ export async function getReview(access: TeamAccess, reviewId: string) {
     })
     .from(reviewComments)
     .innerJoin(users, eq(users.id, reviewComments.authorId))
-    .where(eq(reviewComments.reviewId, reviewId))
+    .where(and(eq(reviewComments.teamId, access.team.id), eq(reviewComments.reviewId, reviewId)))
     .orderBy(asc(reviewComments.createdAt));
   return {
     ...toView(row),
@@ -217,7 +222,11 @@ export async function addComment(access: TeamAccess, reviewId: string, body: str
   const mentioned = members.filter(
     (m) => m.id !== access.user.id && mentions.some((mention) => mentionMatches(mention, m)),
   );
-  const set = await db.select({ serial: parts.serial }).from(parts).where(eq(parts.id, review.gearSetId)).get();
+  const set = await db
+    .select({ serial: parts.serial })
+    .from(parts)
+    .where(and(eq(parts.id, review.gearSetId), eq(parts.teamId, access.team.id)))
+    .get();
   const id = randomUUID();
   await write(async (tx) => {
     await tx.insert(reviewComments).values({
@@ -267,7 +276,7 @@ export async function decideReview(
   const set = await getPart(access.team.id, review.gearSetId);
   const now = new Date();
   const updated = await write(async (tx) => {
-    const where = await findLocation(tx, 'part', review.gearSetId);
+    const where = await findLocation(tx, 'part', review.gearSetId, access.team.id);
     let status: 'in-service' | 'spare' | 'retired' = where ? 'in-service' : 'spare';
     if (input.decision === 'retire') {
       status = 'retired';

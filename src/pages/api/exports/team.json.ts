@@ -6,9 +6,8 @@ import { handle } from '../../../lib/server/http';
 /** The whole current team as one JSON archive (owners): for backup and for leaving. */
 export const GET = handle(async ({ locals }) => {
   const { team } = requirePermission(locals, 'team:settings');
-  const archive = await exportTeamArchive(team.id);
   return download(
-    JSON.stringify(archive),
+    await exportTeamArchive(team.id),
     `lashline-team-${team.name}-${new Date().toISOString().slice(0, 10)}.json`,
     'application/json',
   );
