@@ -33,6 +33,9 @@ export const users = sqliteTable('users', {
   totpPendingSecret: text('totp_pending_secret'),
   totpEnabledAt: integer('totp_enabled_at', { mode: 'timestamp_ms' }),
   recoveryCodeHashes: text('recovery_code_hashes', { mode: 'json' }).$type<string[]>(),
+  // When the person proved they read mail at this address (a verification, reset or invitation link);
+  // null until then: such an account accepts no invitation, claims no imported account, gets no notices.
+  emailVerifiedAt: integer('email_verified_at', { mode: 'timestamp_ms' }),
   createdAt: createdAt(),
 });
 
@@ -463,3 +466,37 @@ export const partNotices = sqliteTable(
 
 export type Review = typeof reviews.$inferSelect;
 export type ReviewComment = typeof reviewComments.$inferSelect;
+
+// ---------------------------------------------------------------------------------------------
+// Proof of an address and the way back from a forgotten password
+
+export const EMAIL_TOKEN_PURPOSES = ['verify-email', 'reset-password'] as const;
+
+/** Single-use links mailed to a person: only the SHA-256 of the token is kept. */
+export const emailTokens = sqliteTable(
+  'email_tokens',
+  {
+    id: text('id').primaryKey(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    purpose: text('purpose', { enum: EMAIL_TOKEN_PURPOSES }).notNull(),
+    tokenHash: text('token_hash').notNull(),
+    expiresAt: integer('expires_at', { mode: 'timestamp_ms' }).notNull(),
+    usedAt: integer('used_at', { mode: 'timestamp_ms' }),
+    createdAt: createdAt(),
+  },
+  (table) => [uniqueIndex('email_tokens_hash_idx').on(table.tokenHash), index('email_tokens_user_idx').on(table.userId)],
+);
+
+/** Requests for mailed links (reset, verification again), counted per address and per client in a window. */
+export const mailLinkRequests = sqliteTable(
+  'mail_link_requests',
+  {
+    id: text('id').primaryKey(),
+    /** `address:<e-mail>` or `client:<ip>`, prefixed by what was asked for. */
+    key: text('key').notNull(),
+    at: integer('at', { mode: 'timestamp_ms' }).notNull(),
+  },
+  (table) => [index('mail_link_requests_key_idx').on(table.key, table.at)],
+);
