@@ -11,7 +11,7 @@ import { HttpError } from './http';
  */
 export const MAIL_LINK_LIMITS = {
   perAddress: { max: 3, windowMs: 60 * 60_000 },
-  perClient: { max: 10, windowMs: 60 * 60_000 },
+  perClient: { max: 20, windowMs: 60 * 60_000 },
 } as const;
 
 export type MailLinkKind = 'reset' | 'verify';
