@@ -96,9 +96,9 @@ describe('address verification', () => {
     expect(unknown.body).toEqual(asked.body);
     await smtp.waitFor((m) => m.to.includes(email) && tokenIn(m, 'verify-email') !== first);
     const second = mailsTo(email, 'Confirm your address').map((m) => tokenIn(m, 'verify-email'))[1]!;
-    expect((await new ApiClient(server.baseUrl).post('/api/email-verifications/confirm', { token: second })).status).toBe(
-      200,
-    );
+    expect(
+      (await new ApiClient(server.baseUrl).post('/api/email-verifications/confirm', { token: second })).status,
+    ).toBe(200);
   });
 
   it('mails no notice to an address nobody proved, and does once it is proved', async () => {
@@ -197,7 +197,9 @@ describe('a forgotten password', () => {
     expect((await askReset(person.email)).status).toBe(202);
     expect((await askReset(person.email)).status).toBe(202);
     await smtp.waitFor((m) => m.to.includes(person.email) && mailsTo(person.email, 'Reset').length >= 2);
-    const [older, newer] = mailsTo(person.email, 'Reset your Lashline password').map((m) => tokenIn(m, 'reset-password'));
+    const [older, newer] = mailsTo(person.email, 'Reset your Lashline password').map((m) =>
+      tokenIn(m, 'reset-password'),
+    );
     expect(older).not.toBe(newer);
 
     const weak = await new ApiClient(server.baseUrl).post('/api/password-resets/confirm', {

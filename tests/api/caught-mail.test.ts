@@ -85,9 +85,7 @@ describe('the caught-mail page of a built server', () => {
     const rival = await signedInClient(pageOn.baseUrl, { team: 'Rival Caught Crew' });
     const rivalInvitee = uniqueEmail('rival-invitee');
     expect((await rival.client.post('/api/invitations', { email: rivalInvitee, role: 'viewer' })).status).toBe(201);
-    expect((await new ApiClient(pageOn.baseUrl).post('/api/password-resets', { email: rival.email })).status).toBe(
-      202,
-    );
+    expect((await new ApiClient(pageOn.baseUrl).post('/api/password-resets', { email: rival.email })).status).toBe(202);
     await waitForOutboxToEmpty(pageOn);
 
     const demoPage = await readPage(owner);
