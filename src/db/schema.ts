@@ -486,7 +486,10 @@ export const emailTokens = sqliteTable(
     usedAt: integer('used_at', { mode: 'timestamp_ms' }),
     createdAt: createdAt(),
   },
-  (table) => [uniqueIndex('email_tokens_hash_idx').on(table.tokenHash), index('email_tokens_user_idx').on(table.userId)],
+  (table) => [
+    uniqueIndex('email_tokens_hash_idx').on(table.tokenHash),
+    index('email_tokens_user_idx').on(table.userId),
+  ],
 );
 
 /** Requests for mailed links (reset, verification again), counted per address and per client in a window. */

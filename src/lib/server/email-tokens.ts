@@ -1,7 +1,7 @@
 import { randomBytes, randomUUID } from 'node:crypto';
 import { and, eq, gt, isNull } from 'drizzle-orm';
 import type { Transaction } from '../../db/client';
-import { emailTokens, EMAIL_TOKEN_PURPOSES } from '../../db/schema';
+import { emailTokens, type EMAIL_TOKEN_PURPOSES } from '../../db/schema';
 import { HttpError } from './http';
 import { hashToken } from './invitations';
 

@@ -113,7 +113,10 @@ export async function acceptInvitation(userId: string, token: string): Promise<{
     // The link was mailed to this address and the person holds it: that proves the address.
     await tx
       .update(users)
-      .set({ currentTeamId: invitation.teamId, emailVerifiedAt: sql`coalesce(${users.emailVerifiedAt}, ${Date.now()})` })
+      .set({
+        currentTeamId: invitation.teamId,
+        emailVerifiedAt: sql`coalesce(${users.emailVerifiedAt}, ${Date.now()})`,
+      })
       .where(eq(users.id, userId));
     await recordAudit(tx, {
       teamId: invitation.teamId,

@@ -33,7 +33,10 @@ export async function queueNotice(
         isNotNull(users.emailVerifiedAt),
         notice.to === 'team'
           ? eq(memberships.teamId, notice.teamId)
-          : and(eq(memberships.teamId, notice.teamId), inArray(memberships.userId, notice.to.length ? notice.to : [''])),
+          : and(
+              eq(memberships.teamId, notice.teamId),
+              inArray(memberships.userId, notice.to.length ? notice.to : ['']),
+            ),
       ),
     );
   let queued = 0;
