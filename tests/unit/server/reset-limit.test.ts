@@ -1,6 +1,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import type * as clientModule from '../../../src/db/client';
 import type * as limitModule from '../../../src/lib/server/reset-limit';
@@ -47,7 +48,7 @@ async function take(email: string, clientAddress: string, now: Date): Promise<{ 
 
 async function countRows(): Promise<number> {
   const db = await database.getDb();
-  return (await db.$client.execute('SELECT count(*) AS n FROM mail_link_requests')).rows[0]!.n as number;
+  return Number((await db.get<{ n: number }>(sql`SELECT count(*) AS n FROM mail_link_requests`))?.n);
 }
 
 describe('the mail-link counter', () => {
@@ -77,7 +78,7 @@ describe('the mail-link counter', () => {
   it('forgets requests older than the window as new ones come', async () => {
     await take('late@example.test', '10.1.1.1', at(50 * HOUR));
     const db = await database.getDb();
-    const oldest = (await db.$client.execute('SELECT min(at) AS at FROM mail_link_requests')).rows[0]!.at as number;
+    const oldest = Number((await db.get<{ at: number }>(sql`SELECT min(at) AS at FROM mail_link_requests`))?.at);
     expect(oldest).toBeGreaterThan(at(49 * HOUR).getTime());
   });
 });
