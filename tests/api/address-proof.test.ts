@@ -57,8 +57,10 @@ async function expireTokensOf(email: string): Promise<void> {
 
 describe('address verification', () => {
   it('mails a single-use link at sign-up, keeps only its hash, and proves the address once', async () => {
-    const { email } = await signedInClient(server.baseUrl);
+    const { email, client } = await signedInClient(server.baseUrl);
     expect(await verifiedAt(email)).toBeNull();
+    const accountPage = async () => (await client.request('/account')).text();
+    expect(await accountPage()).toContain('data-testid="unconfirmed-address"');
     const mail = await mailTo(email, 'Confirm your address');
     const token = tokenIn(mail, 'verify-email');
     expect(token.length).toBeGreaterThanOrEqual(40);
@@ -71,6 +73,7 @@ describe('address verification', () => {
     expect(confirmed.status).toBe(200);
     expect(confirmed.body).toEqual({ email });
     expect(await verifiedAt(email)).not.toBeNull();
+    expect(await accountPage()).not.toContain('unconfirmed-address');
     const again = await anyone.post('/api/email-verifications/confirm', { token });
     expect(again.status).toBe(410);
     expect(again.body.error.fields).toEqual({ token: 'already used' });

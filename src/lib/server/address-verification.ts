@@ -1,5 +1,5 @@
 import { eq, sql } from 'drizzle-orm';
-import { write, type Transaction } from '../../db/client';
+import { getDb, write, type Transaction } from '../../db/client';
 import { users } from '../../db/schema';
 import { IMPORTED_ACCOUNT_HASH } from './accounts';
 import { recordAudit } from './audit';
@@ -57,6 +57,13 @@ export async function requestVerificationMail(request: {
     if (!person || person.emailVerifiedAt || person.passwordHash === IMPORTED_ACCOUNT_HASH) return;
     await queueVerificationMail(tx, person, request.baseUrl);
   });
+}
+
+/** Whether the person has proved their address (any link mailed to it, followed). */
+export async function isAddressConfirmed(userId: string): Promise<boolean> {
+  const db = await getDb();
+  const row = await db.select({ at: users.emailVerifiedAt }).from(users).where(eq(users.id, userId)).get();
+  return Boolean(row?.at);
 }
 
 /** Follows a verification link: single use, within 24 h; answers the address it proved. */
