@@ -8,6 +8,7 @@ import { getDecoyHash, hashPassword, verifyPassword } from './password';
 import { recordAudit } from './audit';
 import { queueVerificationMail } from './address-verification';
 import { queueResetMail } from './password-reset';
+import { takeMailLinkAllowance } from './reset-limit';
 
 /** The password hash of an account a team import made: it matches no password until claimed. */
 export const IMPORTED_ACCOUNT_HASH = 'imported-account:no-password';
@@ -38,11 +39,17 @@ export type SignUpOutcome =
  * An account made by a team import is not taken over by whoever signs up with its address first: the
  * address is mailed a link to choose the password, and nothing changes until it is followed.
  */
-export async function createAccount(input: SignUpInput, baseUrl: string): Promise<SignUpOutcome> {
+export async function createAccount(
+  input: SignUpInput,
+  request: { baseUrl: string; clientAddress: string },
+): Promise<SignUpOutcome> {
+  const { baseUrl, clientAddress } = request;
   const passwordHash = await hashPassword(input.password);
   return write(async (tx) => {
     const existing = await tx.select().from(users).where(eq(users.email, input.email)).get();
     if (existing?.passwordHash === IMPORTED_ACCOUNT_HASH) {
+      // The claim link is a reset link, limited like one, so sign-ups cannot flood the address with mail.
+      await takeMailLinkAllowance(tx, { kind: 'reset', email: input.email, clientAddress });
       await queueResetMail(tx, existing, baseUrl);
       await recordAudit(tx, {
         teamId: null,
