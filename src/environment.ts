@@ -22,6 +22,8 @@ const environmentSchema = z
     MAIL_FROM: z.string().default('Lashline <no-reply@lashline.test>'),
     LASHLINE_DEMO: z.enum(['on', 'off']).default('on'),
     MAIL_CATCHER: z.enum(['on', 'off']).optional(),
+    // The caught-mail page of a built server: off unless asked for (a demo on one's own machine).
+    MAIL_CATCHER_PAGE: z.enum(['on', 'off']).default('off'),
     // Photos go to an S3-compatible bucket when S3_BUCKET is set, else to DATA_DIR/photos.
     S3_BUCKET: z.string().min(1).optional(),
     S3_ENDPOINT: z.url('must be a full URL such as http://127.0.0.1:9000').optional(),

@@ -34,6 +34,9 @@ export const users = sqliteTable('users', {
   totpEnabledAt: integer('totp_enabled_at', { mode: 'timestamp_ms' }),
   // The last 30-second time step whose code was accepted: each step's code is taken once (ASVS 6.5.1).
   totpLastStep: integer('totp_last_step'),
+  // When the person proved they read mail at this address (a verification, reset or invitation link);
+  // null until then: such an account accepts no invitation, claims no imported account, gets no notices.
+  emailVerifiedAt: integer('email_verified_at', { mode: 'timestamp_ms' }),
   createdAt: createdAt(),
 });
 
@@ -509,5 +512,30 @@ export const limitAttempts = sqliteTable(
   (table) => [
     index('limit_attempts_key_idx').on(table.kind, table.key, table.at),
     index('limit_attempts_at_idx').on(table.at),
+  ],
+);
+
+// ---------------------------------------------------------------------------------------------
+// Proof of an address and the way back from a forgotten password
+
+export const EMAIL_TOKEN_PURPOSES = ['verify-email', 'reset-password'] as const;
+
+/** Single-use links mailed to a person: only the SHA-256 of the token is kept. */
+export const emailTokens = sqliteTable(
+  'email_tokens',
+  {
+    id: text('id').primaryKey(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    purpose: text('purpose', { enum: EMAIL_TOKEN_PURPOSES }).notNull(),
+    tokenHash: text('token_hash').notNull(),
+    expiresAt: integer('expires_at', { mode: 'timestamp_ms' }).notNull(),
+    usedAt: integer('used_at', { mode: 'timestamp_ms' }),
+    createdAt: createdAt(),
+  },
+  (table) => [
+    uniqueIndex('email_tokens_hash_idx').on(table.tokenHash),
+    index('email_tokens_user_idx').on(table.userId),
   ],
 );

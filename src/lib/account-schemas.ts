@@ -81,3 +81,15 @@ export const acceptInvitationSchema = z.object({
     .min(20, 'The invitation link is incomplete.')
     .max(200),
 });
+
+/** Asking for a mailed link (a password reset, or the verification link again): the address only. */
+export const mailLinkRequestSchema = z.object({ email: emailSchema });
+
+const mailedTokenSchema = z
+  .string({ error: 'The link is incomplete; open it from the mail again.' })
+  .min(20, 'The link is incomplete; open it from the mail again.')
+  .max(200, 'The link is incomplete; open it from the mail again.');
+
+export const addressConfirmationSchema = z.object({ token: mailedTokenSchema });
+
+export const passwordResetSchema = z.object({ token: mailedTokenSchema, newPassword: passwordSchema });

@@ -4,7 +4,7 @@ import { uploadPhoto } from '../helpers/images';
 import { createInspection, draftBody, newKey } from '../helpers/inspections';
 import { freshSerial, makeTeamRecords, recordsToParams, smallPng, type TeamRecords } from '../helpers/records';
 import { fillPattern, listApiEndpoints } from '../helpers/routes';
-import { startServer, type RunningServer } from '../helpers/server';
+import { findFreePort, startServer, type RunningServer } from '../helpers/server';
 import { SmtpFake } from '../helpers/smtp-fake';
 import { joinByInvitation, makeTeamOfFour, type TeamOfFour } from '../helpers/team';
 
@@ -78,6 +78,9 @@ const MATRIX: Record<string, Rule> = {
   },
   'GET /api/audit': { own: MANAGERS, other: null },
   'GET /api/cars': { own: MEMBER, other: null },
+  // Address verification and password resets work without a session: the mailed link is the proof.
+  'POST /api/email-verifications': { own: ANYONE, other: null },
+  'POST /api/email-verifications/confirm': { own: ANYONE, other: null },
   'POST /api/cars': { own: MANAGERS, other: null },
   'GET /api/cars/[id]': { own: MEMBER, other: NOT_FOUND },
   'PATCH /api/cars/[id]': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS), body: () => ({ notes: 'matrix' }) },
@@ -179,6 +182,8 @@ const MATRIX: Record<string, Rule> = {
     other: NOT_FOUND_FOR(MANAGERS),
     fresh: () => freshRecord('/api/parts', { kind: 'bearing', serial: freshSerial('BR') }),
   },
+  'POST /api/password-resets': { own: ANYONE, other: null },
+  'POST /api/password-resets/confirm': { own: ANYONE, other: null },
   'GET /api/photos/[id]': { own: MEMBER, other: NOT_FOUND },
   'GET /api/photos/[id]/thumbnail': { own: MEMBER, other: NOT_FOUND },
   'GET /api/reports/retirements': { own: MEMBER, other: null },
@@ -340,4 +345,39 @@ describe('the access matrix', () => {
       expect(wrong).toEqual([]);
     });
   }
+});
+
+/**
+ * The caught-mail page, the one page that hands out what the mail carries (invitation links): on the
+ * matrix's server (a real SMTP server, no catcher) it does not exist; on a built server that catches its
+ * own mail it answers only with MAIL_CATCHER_PAGE=on, and then only to owners (signed out → sign-in).
+ */
+describe('the access matrix of the caught-mail page', () => {
+  let catcher: RunningServer | undefined;
+  beforeAll(async () => {
+    catcher = await startServer({
+      demo: true,
+      env: { SMTP_HOST: '', MAIL_CATCHER: 'on', MAIL_CATCHER_PAGE: 'on', SMTP_PORT: String(await findFreePort()) },
+    });
+  }, 60_000);
+  afterAll(async () => {
+    await catcher?.stop();
+  });
+
+  it('GET /dev/mail without a catcher: 404 404 404 404 404', async () => {
+    const statuses = [];
+    for (let caller = 0; caller < CALLERS.length; caller += 1)
+      statuses.push((await callerClient(caller).request('/dev/mail')).status);
+    expect(statuses).toEqual([404, 404, 404, 404, 404]);
+  });
+
+  it('GET /dev/mail with the catcher and MAIL_CATCHER_PAGE=on: 302 200 403 403 403', async () => {
+    const statuses = [];
+    for (const role of [null, 'owner', 'chief', 'tech', 'viewer']) {
+      const client = new ApiClient(catcher!.baseUrl);
+      if (role) await client.signIn(`${role}@lashline.test`, 'lashline-demo');
+      statuses.push((await client.request('/dev/mail')).status);
+    }
+    expect(statuses).toEqual([302, 200, 403, 403, 403]);
+  });
 });

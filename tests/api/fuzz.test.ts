@@ -4,7 +4,7 @@ import { createClient, type Client } from '@libsql/client';
 import fc from 'fast-check';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { signedInClient, TEST_PASSWORD, type ApiClient } from '../helpers/api-client';
+import { ApiClient, signedInClient, TEST_PASSWORD } from '../helpers/api-client';
 import {
   contentType,
   hostileText,
@@ -18,7 +18,7 @@ import { noiseImage, pngBomb, pngHeaderBomb, uploadPhoto } from '../helpers/imag
 import { draftBody } from '../helpers/inspections';
 import { makeTeamRecords, recordsToParams, type TeamRecords } from '../helpers/records';
 import { listApiRoutes, patternParams } from '../helpers/routes';
-import { startServer, type RunningServer } from '../helpers/server';
+import { findFreePort, startServer, type RunningServer } from '../helpers/server';
 
 /**
  * Property-based fuzzing of every route file under src/pages/api, with every method it exports:
@@ -134,6 +134,10 @@ const TEMPLATES: Record<string, () => Record<string, unknown>> = {
     ],
     reviewComments: [],
   }),
+  'POST /api/password-resets': () => ({ email: 'fuzz-reset@example.test' }),
+  'POST /api/password-resets/confirm': () => ({ token: 'x'.repeat(43), newPassword: 'another long passphrase' }),
+  'POST /api/email-verifications': () => ({ email: 'fuzz-verify@example.test' }),
+  'POST /api/email-verifications/confirm': () => ({ token: 'x'.repeat(43) }),
 };
 
 /** Query parameters the routes read, so the fuzzer reaches their parsing. */
@@ -237,7 +241,10 @@ async function restoreTeam(): Promise<void> {
 }
 
 beforeAll(async () => {
-  server = await startServer();
+  // The server catches its own mail and shows the caught-mail page, so the page is fuzzed too.
+  server = await startServer({
+    env: { SMTP_HOST: '', MAIL_CATCHER: 'on', MAIL_CATCHER_PAGE: 'on', SMTP_PORT: String(await findFreePort()) },
+  });
   const made = await signedInClient(server.baseUrl, { team: 'Fuzz Crew' });
   owner = made.client;
   ownerId = made.userId;
@@ -311,6 +318,42 @@ describe(`fuzzing every JSON route (seed ${SEED}, ${RUNS} runs each)`, () => {
       }
     });
   }
+});
+
+describe(`fuzzing the caught-mail page (seed ${SEED})`, () => {
+  it(
+    'never answers 5xx, never shows mail to a stranger, and never lists mail of no team',
+    { timeout: 60_000 },
+    async () => {
+      const stranger = new ApiClient(server.baseUrl);
+      await fc.assert(
+        fc.asyncProperty(
+          fc.constantFrom('GET', 'POST', 'PUT', 'DELETE', 'HEAD'),
+          queryString(QUERY_NAMES),
+          fc.option(hostileText({ token: 'x' }), { nil: undefined }),
+          fc.boolean(),
+          async (method, query, body, signedIn) => {
+            const before = await rowCounts();
+            const client = signedIn ? owner : stranger;
+            const hasBody = !['GET', 'HEAD'].includes(method) && body !== undefined;
+            const response = await client.request(`/dev/mail${query}`, {
+              method,
+              headers: hasBody ? { 'content-type': 'application/x-www-form-urlencoded' } : {},
+              body: hasBody ? body : undefined,
+            });
+            const text = await response.text();
+            expect(response.status, `${method} /dev/mail${query.slice(0, 120)}`).toBeLessThan(500);
+            if (!signedIn) expect(response.status).not.toBe(200);
+            // The owner's own verification mail was caught at sign-up; it belongs to no team.
+            expect(text).not.toMatch(/verify-email\?token=|reset-password\?token=/);
+            expect(await rowCounts()).toEqual(before);
+          },
+        ),
+        { numRuns: RUNS, seed: SEED, endOnFailure: true },
+      );
+      expect((await owner.request('/dev/mail')).status).toBe(200);
+    },
+  );
 });
 
 /** A JPEG whose SOF0 header declares `side`×`side` pixels in front of a tiny image's data. */

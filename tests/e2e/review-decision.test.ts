@@ -6,10 +6,11 @@ import { findFreePort, startServer, type RunningServer } from '../helpers/server
 let server: RunningServer;
 let browser: Browser;
 beforeAll(async () => {
-  // No SMTP server: Lashline's own local mail catcher takes the notices and lists them at /dev/mail.
+  // No SMTP server: Lashline's own local mail catcher takes the notices; with MAIL_CATCHER_PAGE=on a
+  // built server lists them at /dev/mail, to the team's owners only.
   server = await startServer({
     demo: true,
-    env: { SMTP_HOST: '', MAIL_CATCHER: 'on', SMTP_PORT: String(await findFreePort()) },
+    env: { SMTP_HOST: '', MAIL_CATCHER: 'on', MAIL_CATCHER_PAGE: 'on', SMTP_PORT: String(await findFreePort()) },
   });
   browser = await launchBrowser();
 });
@@ -68,20 +69,26 @@ describe('a crew chief decides a review in the browser', () => {
     });
     expect(status).toBe('retired');
 
-    // The outbox hands the notices to the catcher within a few seconds.
+    // The outbox hands the notices to the catcher within a few seconds; the caught-mail page is the owner's.
+    await page.close();
+    const ownerPage = await browser.newPage();
+    await signInOnPage(ownerPage, server.baseUrl, 'owner@lashline.test');
     let notices = 0;
     for (let i = 0; i < 40 && notices < 3; i += 1) {
-      await page.goto(`${server.baseUrl}/dev/mail`);
-      notices = await page
+      await ownerPage.goto(`${server.baseUrl}/dev/mail`);
+      notices = await ownerPage
         .getByTestId('caught-mail')
         .filter({ hasText: 'Decision on gear set GS-4102: Retire' })
         .count();
-      if (notices < 3) await page.waitForTimeout(500);
+      if (notices < 3) await ownerPage.waitForTimeout(500);
     }
     // Everyone in the team but the chief who decided: owner, technician, viewer.
     expect(notices).toBe(3);
-    const first = page.getByTestId('caught-mail').filter({ hasText: 'Decision on gear set GS-4102: Retire' }).first();
+    const first = ownerPage
+      .getByTestId('caught-mail')
+      .filter({ hasText: 'Decision on gear set GS-4102: Retire' })
+      .first();
     expect(await first.textContent()).toContain('Reason: Runout beyond the limit');
-    await page.close();
+    await ownerPage.close();
   });
 });

@@ -34,6 +34,9 @@ export class SmtpFake {
           .catch(callback);
       },
     });
+    // A sender stopped mid-conversation (a test stopping its server) resets its connection; a real mail
+    // server drops that connection and goes on, and so does this one.
+    this.server.on('error', () => undefined);
     return new Promise((resolve) => this.server!.listen(this.port, '127.0.0.1', () => resolve()));
   }
 

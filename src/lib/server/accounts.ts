@@ -7,6 +7,9 @@ import { HttpError } from './http';
 import { getDecoyHash, hashPassword, verifyPassword } from './password';
 import { recordAudit } from './audit';
 import { requireRightPassword } from './password-recheck';
+import { queueVerificationMail } from './address-verification';
+import { queueResetMail } from './password-reset';
+import { takeMailLinkAllowance } from './reset-limit';
 
 /** The password hash of an account a team import made: it matches no password until claimed. */
 export const IMPORTED_ACCOUNT_HASH = 'imported-account:no-password';
@@ -27,30 +30,36 @@ export function userToPublic(user: User): PublicUser {
   return { id, email, name, lengthUnit, torqueUnit, currentTeamId, secondFactor: Boolean(user.totpEnabledAt) };
 }
 
-/** Creates an account; 409 when the e-mail already has one. */
-export async function createAccount(input: SignUpInput): Promise<User> {
+export type SignUpOutcome =
+  | { kind: 'created'; user: User }
+  /** The address has an account a team import made: its owner was mailed a link to choose a password. */
+  | { kind: 'claim-mailed' };
+
+/**
+ * Creates an account and mails its verification link; 409 when the e-mail already has an account.
+ * An account made by a team import is not taken over by whoever signs up with its address first: the
+ * address is mailed a link to choose the password, and nothing changes until it is followed.
+ */
+export async function createAccount(
+  input: SignUpInput,
+  request: { baseUrl: string; clientAddress: string },
+): Promise<SignUpOutcome> {
+  const { baseUrl, clientAddress } = request;
   const passwordHash = await hashPassword(input.password);
   return write(async (tx) => {
-    const existing = await tx
-      .select({ id: users.id, passwordHash: users.passwordHash })
-      .from(users)
-      .where(eq(users.email, input.email))
-      .get();
-    // An account made by a team import has no password yet; signing up with its e-mail claims it.
+    const existing = await tx.select().from(users).where(eq(users.email, input.email)).get();
     if (existing?.passwordHash === IMPORTED_ACCOUNT_HASH) {
-      const [claimed] = await tx
-        .update(users)
-        .set({ passwordHash, name: input.name })
-        .where(eq(users.id, existing.id))
-        .returning();
+      // The claim link is a reset link, limited like one, so sign-ups cannot flood the address with mail.
+      await takeMailLinkAllowance(tx, { kind: 'reset', email: input.email, clientAddress });
+      await queueResetMail(tx, existing, baseUrl);
       await recordAudit(tx, {
         teamId: null,
-        actorId: existing.id,
-        action: 'claim',
+        actorId: null,
+        action: 'claim-requested',
         recordType: 'account',
         recordId: existing.id,
       });
-      return claimed!;
+      return { kind: 'claim-mailed' as const };
     }
     if (existing)
       throw new HttpError(409, 'An account with this e-mail already exists; sign in instead.', {
@@ -68,7 +77,8 @@ export async function createAccount(input: SignUpInput): Promise<User> {
       recordType: 'account',
       recordId: user.id,
     });
-    return user;
+    await queueVerificationMail(tx, user, baseUrl);
+    return { kind: 'created' as const, user };
   });
 }
 

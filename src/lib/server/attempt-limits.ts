@@ -1,5 +1,5 @@
 import { and, desc, eq, gt, inArray, lt } from 'drizzle-orm';
-import { write } from '../../db/client';
+import { write, type Transaction } from '../../db/client';
 import { limitAttempts as attempts } from '../../db/schema';
 import { LONGEST_WINDOW_MS, retryAfterMs, type WindowLimit } from '../rate-limit';
 import { HttpError } from './http';
@@ -34,42 +34,7 @@ const NOTHING_TO_FORGIVE = async (): Promise<void> => {};
  * When any is reached nothing is counted, so waiting out a refusal is never extended by it.
  */
 export async function limitAttempts(counts: readonly AttemptCount[], now = Date.now()): Promise<AttemptVerdict> {
-  const ids = await write(async (tx) => {
-    let waitMs = 0;
-    for (const count of counts) {
-      const latest = await tx
-        .select({ at: attempts.at })
-        .from(attempts)
-        .where(
-          and(
-            eq(attempts.kind, count.kind),
-            eq(attempts.key, count.key),
-            gt(attempts.at, new Date(now - count.windowMs)),
-          ),
-        )
-        .orderBy(desc(attempts.at))
-        .limit(count.max);
-      waitMs = Math.max(
-        waitMs,
-        retryAfterMs(
-          latest.map((row) => row.at.getTime()),
-          count,
-          now,
-        ),
-      );
-    }
-    if (waitMs > 0) return { waitMs, ids: [] };
-    const recorded = counts.filter((count) => count.record !== false);
-    const inserted = recorded.length
-      ? await tx
-          .insert(attempts)
-          .values(recorded.map((count) => ({ kind: count.kind, key: count.key, at: new Date(now) })))
-          .returning({ id: attempts.id })
-      : [];
-    // Keeps the table small; the index on `at` makes this cheap when there is nothing to delete.
-    await tx.delete(attempts).where(lt(attempts.at, new Date(now - LONGEST_WINDOW_MS)));
-    return { waitMs: 0, ids: inserted.map((row) => row.id) };
-  });
+  const ids = await write((tx) => countAttemptsIn(tx, counts, now));
   if (ids.waitMs > 0) return { retryAfterSeconds: Math.ceil(ids.waitMs / 1000), forgive: NOTHING_TO_FORGIVE };
   return {
     retryAfterSeconds: 0,
@@ -112,4 +77,49 @@ export async function requireAttemptAllowed(
   const verdict = await limitAttempt(kind, key, limit.max, limit.windowMs);
   if (verdict.retryAfterSeconds > 0) throw tooManyAttempts(verdict.retryAfterSeconds, what);
   return verdict;
+}
+
+/**
+ * The check and count of `limitAttempts` inside a caller's own write transaction (a use-case that counts
+ * an attempt together with what it writes): `waitMs` is 0 and `ids` the rows counted when allowed.
+ */
+export async function countAttemptsIn(
+  tx: Transaction,
+  counts: readonly AttemptCount[],
+  now = Date.now(),
+): Promise<{ waitMs: number; ids: number[] }> {
+  let waitMs = 0;
+  for (const count of counts) {
+    const latest = await tx
+      .select({ at: attempts.at })
+      .from(attempts)
+      .where(
+        and(
+          eq(attempts.kind, count.kind),
+          eq(attempts.key, count.key),
+          gt(attempts.at, new Date(now - count.windowMs)),
+        ),
+      )
+      .orderBy(desc(attempts.at))
+      .limit(count.max);
+    waitMs = Math.max(
+      waitMs,
+      retryAfterMs(
+        latest.map((row) => row.at.getTime()),
+        count,
+        now,
+      ),
+    );
+  }
+  if (waitMs > 0) return { waitMs, ids: [] };
+  const recorded = counts.filter((count) => count.record !== false);
+  const inserted = recorded.length
+    ? await tx
+        .insert(attempts)
+        .values(recorded.map((count) => ({ kind: count.kind, key: count.key, at: new Date(now) })))
+        .returning({ id: attempts.id })
+    : [];
+  // Keeps the table small; the index on `at` makes this cheap when there is nothing to delete.
+  await tx.delete(attempts).where(lt(attempts.at, new Date(now - LONGEST_WINDOW_MS)));
+  return { waitMs: 0, ids: inserted.map((row) => row.id) };
 }

@@ -1,5 +1,5 @@
 import { createHash, randomBytes, randomUUID } from 'node:crypto';
-import { and, desc, eq, gt, isNull } from 'drizzle-orm';
+import { and, desc, eq, gt, isNull, sql } from 'drizzle-orm';
 import { getDb, write, type Transaction } from '../../db/client';
 import { invitations, memberships, teams, users } from '../../db/schema';
 import { ROLE_LABELS, rolesGrantableBy, type Role } from '../roles';
@@ -205,7 +205,11 @@ export async function cancelInvitation(access: TeamAccess, invitationId: string)
   });
 }
 
-/** Accepts an invitation for the signed-in person: single use, within 7 days, for the invited address. */
+/**
+ * Accepts an invitation for the signed-in person: single use, within 7 days, for the invited address.
+ * An account whose address is not proved may accept only this way: the link, mailed to that very
+ * address, is the proof, and the address counts as verified from then on.
+ */
 export async function acceptInvitation(userId: string, token: string): Promise<{ teamId: string; role: Role }> {
   return write(async (tx) => {
     const invitation = await tx
@@ -241,7 +245,14 @@ export async function acceptInvitation(userId: string, token: string): Promise<{
       .update(invitations)
       .set({ acceptedAt: new Date(), acceptedBy: userId })
       .where(eq(invitations.id, invitation.id));
-    await tx.update(users).set({ currentTeamId: invitation.teamId }).where(eq(users.id, userId));
+    // The link was mailed to this address and the person holds it: that proves the address.
+    await tx
+      .update(users)
+      .set({
+        currentTeamId: invitation.teamId,
+        emailVerifiedAt: sql`coalesce(${users.emailVerifiedAt}, ${Date.now()})`,
+      })
+      .where(eq(users.id, userId));
     await recordAudit(tx, {
       teamId: invitation.teamId,
       actorId: userId,

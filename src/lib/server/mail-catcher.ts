@@ -4,7 +4,9 @@ import { readEnvironment, usesMailCatcher } from '../../environment';
 
 /**
  * A local fake mail server for development and the demo: when no SMTP_HOST is set, Lashline
- * catches its own mail on 127.0.0.1:SMTP_PORT and lists it at /dev/mail. Real SMTP, real parsing.
+ * catches its own mail on 127.0.0.1:SMTP_PORT. Real SMTP, real parsing. /dev/mail lists it all under
+ * `astro dev`; a built server lists it only with MAIL_CATCHER_PAGE=on, to owners, their own team's mail
+ * (`caught-mail.ts`).
  */
 
 export interface CaughtMail {
@@ -14,6 +16,8 @@ export interface CaughtMail {
   to: string;
   subject: string;
   text: string;
+  /** As the sender set it; the outbox makes it from its row (`<row-id@outbox.lashline>`). */
+  messageId: string;
 }
 
 const caught: CaughtMail[] = [];
@@ -39,6 +43,7 @@ export function startMailCatcher(): Promise<void> {
               to: Array.isArray(mail.to) ? mail.to.map((a) => a.text).join(', ') : (mail.to?.text ?? ''),
               subject: mail.subject ?? '',
               text: mail.text ?? '',
+              messageId: mail.messageId ?? '',
             });
             caught.splice(200);
             callback();

@@ -1,4 +1,4 @@
-import sharp from 'sharp';
+import sharp, { type JpegOptions, type Metadata, type Sharp } from 'sharp';
 import { SHARP_FORMAT, sniffImageType } from '../photos/sniff';
 import { FULL_LONGEST_SIDE, MAX_INPUT_PIXELS, THUMBNAIL_LONGEST_SIDE } from '../photos/upload-rules';
 import { HttpError } from './http';
@@ -57,7 +57,7 @@ export async function encodePhoto(input: Uint8Array): Promise<EncodedPhoto> {
   const type = sniffImageType(input);
   if (!type) throw notImage();
   return withImageSlot(async () => {
-    let header: sharp.Metadata;
+    let header: Metadata;
     try {
       header = await sharp(input, INPUT_OPTIONS).metadata();
     } catch (error) {
@@ -99,7 +99,7 @@ async function reencode(input: Uint8Array): Promise<EncodedImage> {
   }
 }
 
-async function toJpeg(pipeline: sharp.Sharp, options: sharp.JpegOptions): Promise<EncodedImage> {
+async function toJpeg(pipeline: Sharp, options: JpegOptions): Promise<EncodedImage> {
   // No withMetadata()/keepExif()/keepIccProfile(): sharp writes none of the input's metadata.
   const { data, info } = await pipeline.jpeg(options).toBuffer({ resolveWithObject: true });
   return {

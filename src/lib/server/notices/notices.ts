@@ -1,4 +1,4 @@
-import { and, eq, inArray } from 'drizzle-orm';
+import { and, eq, inArray, isNotNull } from 'drizzle-orm';
 import type { Transaction } from '../../../db/client';
 import { getDb, write } from '../../../db/client';
 import { memberships, noticePreferences, teams, users } from '../../../db/schema';
@@ -10,7 +10,8 @@ export const ALL_NOTICE_KINDS = Object.keys(NOTICE_KIND_LABELS) as NoticeKind[];
 
 /**
  * Queues one notice per recipient inside the caller's transaction (the outbox sends it later):
- * the whole team, or the named people, less anyone who muted that kind for this team.
+ * the whole team, or the named people, less anyone who muted that kind for this team and anyone whose
+ * address is not verified.
  */
 export async function queueNotice(
   tx: Transaction,
@@ -27,9 +28,16 @@ export async function queueNotice(
       and(eq(noticePreferences.userId, users.id), eq(noticePreferences.teamId, memberships.teamId)),
     )
     .where(
-      notice.to === 'team'
-        ? eq(memberships.teamId, notice.teamId)
-        : and(eq(memberships.teamId, notice.teamId), inArray(memberships.userId, notice.to.length ? notice.to : [''])),
+      and(
+        // Only to addresses their people have proved: an unverified address may belong to someone else.
+        isNotNull(users.emailVerifiedAt),
+        notice.to === 'team'
+          ? eq(memberships.teamId, notice.teamId)
+          : and(
+              eq(memberships.teamId, notice.teamId),
+              inArray(memberships.userId, notice.to.length ? notice.to : ['']),
+            ),
+      ),
     );
   let queued = 0;
   for (const member of members) {
