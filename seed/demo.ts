@@ -1,8 +1,8 @@
 import { sql } from 'drizzle-orm';
 import { getDb, write } from '../src/db/client';
 import { teams } from '../src/db/schema';
-import { seedPeople } from './people';
-import { seedRegister } from './register';
+import { seedPeople, type SeededPeople } from './people';
+import { seedRegister, type SeededRegister } from './register';
 import { seedInspections } from './inspections';
 import { seedReviews } from './reviews';
 import { seedSeason } from './season';
@@ -11,7 +11,9 @@ import { seedSeason } from './season';
  * The demo scenario: an invented team, its people, and (as the product grows) its cars, gear sets,
  * runs and inspections. Every name and number here is made up for the demo.
  */
-export async function seedDemo(options: { season?: boolean } = {}): Promise<{ seeded: boolean; reason?: string }> {
+export async function seedDemo(
+  options: { season?: boolean } = {},
+): Promise<{ seeded: boolean; reason?: string; demo?: { people: SeededPeople; register: SeededRegister } }> {
   const db = await getDb();
   const row = await db.get<{ n: number }>(sql`SELECT count(*) AS n FROM ${teams}`);
   if (Number(row?.n ?? 0) > 0) return { seeded: false, reason: 'the database already holds a team' };
@@ -24,5 +26,5 @@ export async function seedDemo(options: { season?: boolean } = {}): Promise<{ se
   await seedReviews(people, register);
   // A season more of the same team (seed/season.ts), for measuring the screens as data grows.
   if (options.season) await seedSeason(people, register);
-  return { seeded: true };
+  return { seeded: true, demo: { people, register } };
 }

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import type { RunView } from '../../lib/server/register/runs';
+import type { RunView } from '../../lib/register/views';
 import { callApi, messageWithoutField } from '../shared/api';
 import { ConfirmAction } from '../shared/ConfirmAction';
 import { useHydrated } from '../shared/use-hydrated';

@@ -2,6 +2,10 @@
 // database. The use-cases in lib/server/inspections build them; anything in the browser may import them.
 
 import type { DEFAULT_PROFILE_SOURCES, ToleranceProfile } from '../analysis/tolerance';
+import type { ComparisonShape } from '../charts/comparison';
+import type { GearSetChartInput } from '../charts/gear-set-input';
+import type { PartView } from '../register/views';
+import type { GearSetAnalysis } from './gear-set-analysis';
 import type { PhotoSide } from '../photos/upload-rules';
 import type { dataToEntry, InspectionData } from './record';
 import type { InspectionSummary } from './summary';
@@ -45,4 +49,42 @@ export interface PhotoView {
   width: number;
   height: number;
   createdAt: string;
+}
+
+/** A stored gear set's analysis as GET /api/gear-sets/:id/analysis answers it, in the reader's units. */
+export type StoredAnalysis = GearSetAnalysis & {
+  gearSetId: string;
+  unit: string;
+  torqueUnit: string;
+  profile: { name: string; version: number };
+};
+
+/** Everything the gear set page and its compare page show, read in one go. */
+export interface GearSetPageView {
+  set: PartView;
+  analysis: StoredAnalysis;
+  /** The submitted inspections, oldest first, in the reader's units. */
+  inspections: InspectionView[];
+  drafts: number;
+  profile: ProfileView;
+  car: { id: string; name: string } | null;
+  serviceIntervalRuns: number;
+  chartInput: GearSetChartInput;
+  /** The set's open review, if it has one. */
+  openReviewId: string | null;
+  renderedAt: number;
+}
+
+/** Everything the inspection page shows, read in one go. */
+export interface InspectionPageView {
+  view: InspectionView;
+  gearSet: PartView;
+  /** The profile it is judged by: the version kept at submission, else the set's current one. */
+  profile: ProfileView;
+  photos: PhotoView[];
+  technician: string | null;
+  assembly: { serial: string; name: string } | null;
+  canEdit: boolean;
+  /** The change since the set's previous inspection (null for the first). */
+  change: { previousId: string; comparison: ComparisonShape } | null;
 }

@@ -24,7 +24,8 @@ export interface CreatedPhotoView extends PhotoView {
   contentType: string;
 }
 
-function photoToView(photo: InspectionPhoto): PhotoView {
+/** A stored photo row as the API answers it. */
+export function photoToView(photo: InspectionPhoto): PhotoView {
   return {
     id: photo.id,
     side: photo.side,

@@ -2,20 +2,14 @@ import { and, asc, eq, inArray, type SQL } from 'drizzle-orm';
 import { getDb } from '../../../db/client';
 import { inspections, toleranceProfileVersions, type Inspection } from '../../../db/schema';
 import type { ToleranceProfile } from '../../analysis/tolerance';
-import { analyseGearSet, type GearSetAnalysis } from '../../inspections/gear-set-analysis';
+import { analyseGearSet } from '../../inspections/gear-set-analysis';
 import { summariseInspection, type ReaderUnits } from '../../inspections/summary';
-import type { ProfileView } from '../../inspections/views';
+import type { ProfileView, StoredAnalysis } from '../../inspections/views';
 import type { PartView } from '../../register/views';
 import { mmToLength } from '../../units';
 import { ensureDefaultProfile, profileRowToView } from './profiles';
 
-/** A gear set's analysis as GET /api/gear-sets/:id/analysis answers it. */
-export type StoredAnalysis = GearSetAnalysis & {
-  gearSetId: string;
-  unit: string;
-  torqueUnit: string;
-  profile: { name: string; version: number };
-};
+export type { StoredAnalysis };
 
 /** Every tolerance profile version of a team, indexed the ways the read models look them up. */
 export interface ProfileBook {

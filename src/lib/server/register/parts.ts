@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import type { z } from 'zod';
-import { getDb, write } from '../../../db/client';
+import { write } from '../../../db/client';
 import { installationEvents, parts } from '../../../db/schema';
 import type { PartKind } from '../../register/kinds';
 import type { PartView } from '../../register/views';
