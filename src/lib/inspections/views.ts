@@ -4,7 +4,7 @@
 import type { DEFAULT_PROFILE_SOURCES, ToleranceProfile } from '../analysis/tolerance';
 import type { ComparisonShape } from '../charts/comparison';
 import type { GearSetChartInput } from '../charts/gear-set-input';
-import type { PartView } from '../register/views';
+import type { PartHistoryEntry, PartView } from '../register/views';
 import type { GearSetAnalysis } from './gear-set-analysis';
 import type { PhotoSide } from '../photos/upload-rules';
 import type { dataToEntry, InspectionData } from './record';
@@ -87,4 +87,14 @@ export interface InspectionPageView {
   canEdit: boolean;
   /** The change since the set's previous inspection (null for the first). */
   change: { previousId: string; comparison: ComparisonShape } | null;
+}
+
+/** A part's page: the part, where it is, its history and, for a gear set, its inspections newest first. */
+export interface PartPageView {
+  part: PartView;
+  /** Where it is, naming the car as well as the assembly. */
+  where: string;
+  serviceIntervalRuns: number;
+  history: PartHistoryEntry[];
+  inspections: InspectionView[];
 }

@@ -70,3 +70,13 @@ export interface RunView {
   recordedBy: string | null;
   createdAt: string;
 }
+
+/** One row of a part's installation history, newest first, each place named and who recorded it. */
+export interface PartHistoryEntry {
+  id: string;
+  action: 'install' | 'remove';
+  targetLabel: string;
+  at: string;
+  actorName: string | null;
+  notes: string | null;
+}

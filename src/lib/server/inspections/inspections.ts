@@ -297,30 +297,6 @@ export async function listInspectionRows(teamId: string, gearSetId?: string): Pr
   return db.select().from(inspections).where(where).orderBy(asc(inspections.inspectedAt), asc(inspections.createdAt));
 }
 
-/**
- * A set's submitted inspections, oldest first, with only what its analysis reads: a set's whole life is
- * read on every look at it, and each column more costs time on every row.
- */
-export async function listSubmittedForAnalysis(
-  teamId: string,
-  gearSetId: string,
-): Promise<Pick<Inspection, 'id' | 'inspectedAt' | 'runsAtInspection' | 'data' | 'profileVersionId'>[]> {
-  const db = await getDb();
-  return db
-    .select({
-      id: inspections.id,
-      inspectedAt: inspections.inspectedAt,
-      runsAtInspection: inspections.runsAtInspection,
-      data: inspections.data,
-      profileVersionId: inspections.profileVersionId,
-    })
-    .from(inspections)
-    .where(
-      and(eq(inspections.teamId, teamId), eq(inspections.gearSetId, gearSetId), eq(inspections.status, 'submitted')),
-    )
-    .orderBy(asc(inspections.inspectedAt), asc(inspections.createdAt));
-}
-
 export async function getInspection(access: TeamAccess, inspectionId: string): Promise<InspectionView> {
   return toInspectionView(
     access.team.id,

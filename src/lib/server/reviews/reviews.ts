@@ -134,12 +134,16 @@ export async function listReviews(
   filter: { status?: 'open' | 'decided'; gearSetId?: string },
 ): Promise<ReviewView[]> {
   const db = await getDb();
-  const rows = await db.select().from(reviews).where(eq(reviews.teamId, teamId)).orderBy(desc(reviews.createdAt));
-  return rows
-    .filter(
-      (r) => (!filter.status || r.status === filter.status) && (!filter.gearSetId || r.gearSetId === filter.gearSetId),
-    )
-    .map(reviewToView);
+  // Filtered in SQL: a team's reviews grow with every season.
+  const conditions = [eq(reviews.teamId, teamId)];
+  if (filter.status) conditions.push(eq(reviews.status, filter.status));
+  if (filter.gearSetId) conditions.push(eq(reviews.gearSetId, filter.gearSetId));
+  const rows = await db
+    .select()
+    .from(reviews)
+    .where(and(...conditions))
+    .orderBy(desc(reviews.createdAt));
+  return rows.map(reviewToView);
 }
 
 /** A review with its snapshot (in the reader's units) and its comments: the review page's read model. */
