@@ -131,3 +131,38 @@ describe('read models', () => {
     for (const [name, queries] of Object.entries(counts(demo))) expect(queries, name).toBeLessThanOrEqual(14);
   }, 120_000);
 });
+
+describe('the board’s kept analyses', () => {
+  it('follow the database: a row written straight into it (as another process would) shows on the next read', async () => {
+    const before = await m.board.readBoard(access, new URLSearchParams('all=1'));
+    const row = [...before.rows, ...before.spares.ready].find((r) => r.inspectionCount > 0)!;
+    const db = await m.client.getDb();
+    const { inspections } = m.schema;
+    const latest = (await db
+      .select()
+      .from(inspections)
+      .where(eq(inspections.gearSetId, row.id))
+      .orderBy(desc(inspections.inspectedAt))
+      .get())!;
+    const at = new Date(Date.parse(latest.inspectedAt.toISOString()) + 86_400_000);
+    // No use-case, no hook into any cache: the kept analysis must notice from the rows alone.
+    await m.client.write((tx) =>
+      tx
+        .insert(inspections)
+        .values({
+          ...latest,
+          id: `${latest.id}-again`,
+          inspectedAt: at,
+          submittedAt: at,
+          updatedAt: at,
+          idempotencyKey: null,
+        }),
+    );
+    const after = await m.board.readBoard(access, new URLSearchParams('all=1'));
+    const again = [...after.rows, ...after.spares.ready, ...after.spares.notReady.map((n) => ({ ...n, id: '' }))].find(
+      (r) => 'inspectionCount' in r && r.id === row.id,
+    ) as typeof row | undefined;
+    expect(again?.inspectionCount).toBe(row.inspectionCount + 1);
+    expect(again?.lastInspectedAt).toBe(at.toISOString());
+  });
+});

@@ -3,7 +3,8 @@ import { filterBoardRows, readBoardFilter, sortBoardRows, splitSpares, toBoardRo
 import type { BoardEntry, BoardView } from '../../board/views';
 import { ACTION_TEXT } from '../../charts/action-text';
 import type { TeamAccess } from '../guard';
-import { analyseFromRows, profileOfSet, readProfileBook, readSubmittedBySet } from '../inspections/read-analyses';
+import { profileOfSet, readProfileBook } from '../inspections/read-analyses';
+import { analyseBoardSets } from './board-analyses';
 import { readerUnitsOf } from '../inspections/inspections';
 import { readPartViews } from '../register/part-views';
 import { readTeamSettings } from '../register/team-settings';
@@ -15,17 +16,17 @@ export const BOARD_FIRST_SPARES = 12;
 const SUMMARY_ORDER = ['retire', 're-shim', 'watch', 'keep'] as const;
 
 /**
- * The team board in eight queries however many sets, inspections or runs there are: the gear sets with
- * their run counts and places (five), their submitted inspections (one), the profile versions and the
- * settings (one each). Each set still in use is analysed in memory; the rows come back most urgent first
+ * The team board in nine queries however many sets, inspections or runs there are: the gear sets with
+ * their run counts and places (five), the profile versions and the settings (one each), a fingerprint of
+ * each set's inspections and the inspections of the sets that changed since this process last analysed
+ * them (board-analyses.ts). Each set still in use is analysed in memory; the rows come back most urgent first
  * (`sortBoardRows`), the first ones shown and the rest counted behind `showAllHref`.
  */
 export async function readBoard(access: TeamAccess, params: URLSearchParams): Promise<BoardView> {
   const teamId = access.team.id;
   const units = readerUnitsOf(access);
-  const [register, rowsBySet, book, settings] = await Promise.all([
+  const [register, book, settings] = await Promise.all([
     readPartViews(teamId, { kind: 'gear-set' }),
-    readSubmittedBySet(teamId),
     readProfileBook(teamId),
     readTeamSettings(teamId),
   ]);
@@ -37,17 +38,12 @@ export async function readBoard(access: TeamAccess, params: URLSearchParams): Pr
     const name = carId ? carName(carId) : null;
     return carId && name ? { id: carId, name } : null;
   };
-  const inUse = register.parts.filter((s) => s.status !== 'retired' && s.status !== 'scrapped');
-  const entries = inUse.map((set): BoardEntry => {
-    const profile = profileOfSet(book, register.rows.get(set.id)?.toleranceProfileId ?? null);
-    const analysis = analyseFromRows(
-      set,
-      rowsBySet.get(set.id) ?? [],
-      book,
-      profile,
-      settings.serviceIntervalRuns,
-      units,
-    );
+  const inUse = register.parts
+    .filter((s) => s.status !== 'retired' && s.status !== 'scrapped')
+    .map((set) => ({ set, profile: profileOfSet(book, register.rows.get(set.id)?.toleranceProfileId ?? null) }));
+  const analyses = await analyseBoardSets(teamId, inUse, book, settings.serviceIntervalRuns, units);
+  const entries = inUse.map(({ set }): BoardEntry => {
+    const analysis = analyses.get(set.id)!;
     const mean = analysis.trends.find((t) => t.measure === 'backlash-mean');
     const band =
       mean && mean.limits.min !== undefined && mean.limits.max !== undefined

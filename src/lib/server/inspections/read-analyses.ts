@@ -3,7 +3,7 @@ import { getDb } from '../../../db/client';
 import { inspections, toleranceProfileVersions, type Inspection } from '../../../db/schema';
 import type { ToleranceProfile } from '../../analysis/tolerance';
 import { analyseGearSet } from '../../inspections/gear-set-analysis';
-import { summariseInspection, type ReaderUnits } from '../../inspections/summary';
+import { summariseInspection, type InspectionSummary, type ReaderUnits } from '../../inspections/summary';
 import type { ProfileView, StoredAnalysis } from '../../inspections/views';
 import type { PartView } from '../../register/views';
 import { mmToLength } from '../../units';
@@ -67,7 +67,7 @@ export async function readSubmittedBySet(
   gearSetIds?: readonly string[],
 ): Promise<Map<string, AnalysisRow[]>> {
   const grouped = new Map<string, AnalysisRow[]>();
-  if (gearSetIds?.length === 0) return grouped;
+  // Asked even for no set (the IN list is then false), so a read model's count of queries stays fixed.
   const db = await getDb();
   const conditions: SQL[] = [eq(inspections.teamId, teamId), eq(inspections.status, 'submitted')];
   if (gearSetIds) conditions.push(inArray(inspections.gearSetId, [...gearSetIds]));
@@ -103,6 +103,8 @@ export function analyseFromRows(
   profile: ProfileView,
   serviceIntervalRuns: number,
   units: ReaderUnits,
+  /** Summaries already made for these rows (the page's inspection views), used when judged by the same values. */
+  made?: ReadonlyMap<string, { values: ToleranceProfile; summary: InspectionSummary }>,
 ): StoredAnalysis {
   const geometry = {
     ringTeeth: set.ringTeeth ?? null,
@@ -117,7 +119,7 @@ export function analyseFromRows(
       inspectedAt: row.inspectedAt.toISOString(),
       runsAtInspection: row.runsAtInspection,
       data: row.data,
-      summary: summariseInspection(row.data, values, geometry, units),
+      summary: reuse(made?.get(row.id), values) ?? summariseInspection(row.data, values, geometry, units),
     };
   });
   const len = (mm: number) => mmToLength(mm, units.lengthUnit);
@@ -140,4 +142,11 @@ export function analyseFromRows(
     profile: { name: profile.name, version: profile.version },
     ...analysis,
   };
+}
+
+function reuse(
+  made: { values: ToleranceProfile; summary: InspectionSummary } | undefined,
+  values: ToleranceProfile,
+): InspectionSummary | undefined {
+  return made && made.values === values ? made.summary : undefined;
 }

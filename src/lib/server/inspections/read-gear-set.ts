@@ -2,6 +2,8 @@ import { and, asc, eq } from 'drizzle-orm';
 import { getDb } from '../../../db/client';
 import { inspections, reviews } from '../../../db/schema';
 import { toGearSetChartInput } from '../../charts/gear-set-input';
+import type { ToleranceProfile } from '../../analysis/tolerance';
+import type { InspectionSummary } from '../../inspections/summary';
 import type { GearSetPageView } from '../../inspections/views';
 import type { TeamAccess } from '../guard';
 import { readPartViews } from '../register/part-views';
@@ -40,10 +42,15 @@ export async function readGearSet(access: TeamAccess, gearSetId: string): Promis
   const renderedAt = Date.now();
   const profile = profileOfSet(book, setRow.toleranceProfileId);
   const submitted = rows.filter((r) => r.status === 'submitted');
-  const analysis = analyseFromRows(set, submitted, book, profile, settings.serviceIntervalRuns, units);
-  const views = submitted.map((row) =>
-    rowToInspectionView(row, units, setRow, valuesForInspection(book, row, profile)),
-  );
+  const made = new Map<string, { values: ToleranceProfile; summary: InspectionSummary }>();
+  const views = submitted.map((row) => {
+    const values = valuesForInspection(book, row, profile);
+    const view = rowToInspectionView(row, units, setRow, values);
+    made.set(row.id, { values, summary: view.summary });
+    return view;
+  });
+  // The analysis judges each row as its view did, so it takes the summaries already made.
+  const analysis = analyseFromRows(set, submitted, book, profile, settings.serviceIntervalRuns, units, made);
   const loc = set.location;
   const carId = !loc
     ? null

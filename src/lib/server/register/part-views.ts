@@ -72,7 +72,7 @@ export async function readPartViews(
           .from(parts)
           .where(and(...conditions))
           .orderBy(asc(parts.kind), asc(parts.serial), asc(parts.id)),
-    countRunsForParts(teamId),
+    countRunsForParts(teamId, undefined, filter.ids),
     listCurrentInstalls(teamId),
     db.select({ id: cars.id, name: cars.name }).from(cars).where(eq(cars.teamId, teamId)).orderBy(asc(cars.name)),
     db

@@ -14,16 +14,31 @@ const OPEN_END = 9e15;
  * stored counters). A part is charged with a run when, at the run's time, it sat in the run's car —
  * directly, or in an assembly that sat in that car. An installation covers [install, next remove).
  * `runsSinceInstall` counts only the part's current installation (0 when it is not installed).
- * `asOf` (ms) counts only runs before that moment.
+ * `asOf` (ms) counts only runs before that moment; `partIds` counts only those parts (a page about one
+ * part need not count the whole team's).
  */
-export async function countRunsForParts(teamId: string, asOf?: number): Promise<Map<string, RunCounts>> {
+export async function countRunsForParts(
+  teamId: string,
+  asOf?: number,
+  partIds?: readonly string[],
+): Promise<Map<string, RunCounts>> {
   const db = await getDb();
   const before = asOf ?? OPEN_END;
+  const onlyParts = partIds
+    ? sql`AND (subject_type = 'assembly' OR subject_id IN (${
+        partIds.length
+          ? sql.join(
+              partIds.map((id) => sql`${id}`),
+              sql`, `,
+            )
+          : sql`NULL`
+      }))`
+    : sql``;
   const rows = await db.all<{ part_id: string; total_runs: number; since_install: number }>(sql`
     WITH ev AS (
       SELECT subject_type, subject_id, target_type, target_id, action, at, seq,
              LEAD(at) OVER (PARTITION BY subject_type, subject_id ORDER BY seq) AS next_at
-      FROM installation_events WHERE team_id = ${teamId}
+      FROM installation_events WHERE team_id = ${teamId} ${onlyParts}
     ),
     stints AS (SELECT * FROM ev WHERE action = 'install'),
     part_car AS (
