@@ -132,6 +132,27 @@ describe('read models', () => {
   }, 120_000);
 });
 
+describe('the board at a season', () => {
+  it('shows the most urgent first and the rest behind one link that counts them', async () => {
+    const { boardRankOf } = await import('../../../src/lib/board/board');
+    const shown = await m.board.readBoard(access, new URLSearchParams());
+    const all = await m.board.readBoard(access, new URLSearchParams('all=1'));
+    expect(all.spares.ready.length).toBeGreaterThan(m.board.BOARD_FIRST_SPARES);
+    expect(shown.spares.ready).toEqual(all.spares.ready.slice(0, m.board.BOARD_FIRST_SPARES));
+    expect(shown.spares.moreReady).toBe(all.spares.ready.length - m.board.BOARD_FIRST_SPARES);
+    expect(shown.rows).toEqual(all.rows.slice(0, m.board.BOARD_FIRST_ROWS));
+    expect(shown.showAllHref).toBe('/?all=1');
+    expect(all.showAllHref).toBeNull();
+    // Spares have their own list; the main one is in use, most urgent first.
+    expect(all.rows.every((r) => r.status !== 'spare')).toBe(true);
+    const ranks = all.rows.map(boardRankOf);
+    expect([...ranks].sort((a, b) => b - a)).toEqual(ranks);
+    const spares = await m.board.readBoard(access, new URLSearchParams('status=spare'));
+    expect(spares.rows.length).toBe(m.board.BOARD_FIRST_ROWS);
+    expect(spares.showAllHref).toBe('/?status=spare&all=1');
+  });
+});
+
 describe('the board’s kept analyses', () => {
   it('follow the database: a row written straight into it (as another process would) shows on the next read', async () => {
     const before = await m.board.readBoard(access, new URLSearchParams('all=1'));
@@ -147,16 +168,14 @@ describe('the board’s kept analyses', () => {
     const at = new Date(Date.parse(latest.inspectedAt.toISOString()) + 86_400_000);
     // No use-case, no hook into any cache: the kept analysis must notice from the rows alone.
     await m.client.write((tx) =>
-      tx
-        .insert(inspections)
-        .values({
-          ...latest,
-          id: `${latest.id}-again`,
-          inspectedAt: at,
-          submittedAt: at,
-          updatedAt: at,
-          idempotencyKey: null,
-        }),
+      tx.insert(inspections).values({
+        ...latest,
+        id: `${latest.id}-again`,
+        inspectedAt: at,
+        submittedAt: at,
+        updatedAt: at,
+        idempotencyKey: null,
+      }),
     );
     const after = await m.board.readBoard(access, new URLSearchParams('all=1'));
     const again = [...after.rows, ...after.spares.ready, ...after.spares.notReady.map((n) => ({ ...n, id: '' }))].find(

@@ -55,9 +55,10 @@ export async function countRunsForParts(
     ),
     current_stint AS (SELECT subject_id AS part_id, seq FROM stints WHERE subject_type = 'part' AND next_at IS NULL)
     SELECT pc.part_id AS part_id,
-           COUNT(r.id) AS total_runs,
+           COUNT(*) AS total_runs,
            COALESCE(SUM(CASE WHEN pc.stint_seq = cs.seq THEN 1 ELSE 0 END), 0) AS since_install
     FROM part_car pc
+    -- COUNT(*), not COUNT(r.id): the join then reads only the (car_id, at) index, never the run rows.
     JOIN runs r ON r.car_id = pc.car_id AND r.at >= pc.from_at AND r.at < pc.to_at AND r.at < ${before}
     LEFT JOIN current_stint cs ON cs.part_id = pc.part_id
     GROUP BY pc.part_id
