@@ -153,10 +153,11 @@ describe('the board at a season', () => {
   });
 });
 
-describe('the board’s kept analyses', () => {
+describe('the board’s and the gear set page’s kept analyses', () => {
   it('follow the database: a row written straight into it (as another process would) shows on the next read', async () => {
     const before = await m.board.readBoard(access, new URLSearchParams('all=1'));
     const row = [...before.rows, ...before.spares.ready].find((r) => r.inspectionCount > 0)!;
+    const pageBefore = await m.gearSet.readGearSet(access, row.id);
     const db = await m.client.getDb();
     const { inspections } = m.schema;
     const latest = (await db
@@ -183,5 +184,8 @@ describe('the board’s kept analyses', () => {
     ) as typeof row | undefined;
     expect(again?.inspectionCount).toBe(row.inspectionCount + 1);
     expect(again?.lastInspectedAt).toBe(at.toISOString());
+    const pageAfter = await m.gearSet.readGearSet(access, row.id);
+    expect(pageAfter!.inspections.length).toBe(pageBefore!.inspections.length + 1);
+    expect(pageAfter!.analysis.latest?.inspectedAt).toBe(at.toISOString());
   });
 });
