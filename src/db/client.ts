@@ -1,6 +1,8 @@
+import { AsyncLocalStorage } from 'node:async_hooks';
 import { mkdirSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { createClient, type Client } from '@libsql/client';
+import type { Logger } from 'drizzle-orm';
 import { drizzle, type LibSQLDatabase } from 'drizzle-orm/libsql';
 import { readEnvironment } from '../environment';
 import * as schema from './schema';
@@ -31,6 +33,30 @@ interface Connection {
 interface Writer {
   client: Client;
   db: Database;
+}
+
+// Test-only: with LASHLINE_COUNT_QUERIES=1 in the environment when this module loads, every statement
+// either connection sends is counted for the `countQueries()` call it runs inside (an async context, so
+// work running beside it is not counted). Without it no logger is installed and nothing is counted.
+const queryCounts = new AsyncLocalStorage<{ queries: number }>();
+const COUNTING = process.env.LASHLINE_COUNT_QUERIES === '1';
+const countingLogger: Logger = {
+  logQuery() {
+    const counter = queryCounts.getStore();
+    if (counter) counter.queries += 1;
+  },
+};
+const drizzleOptions = COUNTING ? { schema, logger: countingLogger } : { schema };
+
+/**
+ * Test-only: runs `work` and answers how many statements it sent to the database, reads and writes.
+ * Needs LASHLINE_COUNT_QUERIES=1 set before this module loads (tests stub it before their import).
+ */
+export async function countQueries<T>(work: () => Promise<T>): Promise<{ result: T; queries: number }> {
+  if (!COUNTING) throw new Error('countQueries needs LASHLINE_COUNT_QUERIES=1 set before src/db/client.ts loads.');
+  const counter = { queries: 0 };
+  const result = await queryCounts.run(counter, work);
+  return { result, queries: counter.queries };
 }
 
 let connection: Connection | undefined;
@@ -70,7 +96,7 @@ async function connect(): Promise<Connection> {
     await client.execute('PRAGMA journal_mode = WAL');
     await configureEmbeddedConnection(client);
   }
-  connection = { client, db: drizzle(client, { schema }), embedded, url };
+  connection = { client, db: drizzle(client, drizzleOptions), embedded, url };
   return connection;
 }
 
@@ -83,7 +109,7 @@ async function openWriter(url: string): Promise<Writer> {
   if (writer) return writer;
   const client = createClient({ url });
   await configureEmbeddedConnection(client);
-  writer = { client, db: drizzle(client, { schema }) };
+  writer = { client, db: drizzle(client, drizzleOptions) };
   return writer;
 }
 

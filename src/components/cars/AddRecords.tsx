@@ -1,6 +1,5 @@
 import type { ReactNode } from 'react';
-import type { AssemblyView } from '../../lib/server/register/assemblies';
-import type { CarView } from '../../lib/server/register/cars';
+import type { AssemblyView, CarView } from '../../lib/register/views';
 import { RecordForm } from '../shared/RecordForm';
 
 interface Props {

@@ -1,5 +1,4 @@
-import type { AssemblyView } from '../../lib/server/register/assemblies';
-import type { PartView } from '../../lib/server/register/parts';
+import type { AssemblyView, PartView } from '../../lib/register/views';
 import { PART_KIND_LABELS } from '../../lib/register/kinds';
 import { AssemblyParts } from './AssemblyParts';
 import { FitPicker } from './FitPicker';

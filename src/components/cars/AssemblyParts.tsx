@@ -1,4 +1,4 @@
-import type { PartView } from '../../lib/server/register/parts';
+import type { PartView } from '../../lib/register/views';
 import { PART_KIND_LABELS } from '../../lib/register/kinds';
 import { lifeStateOf, runsLeftToText } from '../../lib/register/part-life';
 import { ConfirmAction } from '../shared/ConfirmAction';

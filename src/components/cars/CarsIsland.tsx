@@ -1,7 +1,5 @@
 import { useState } from 'react';
-import type { AssemblyView } from '../../lib/server/register/assemblies';
-import type { CarView } from '../../lib/server/register/cars';
-import type { PartView } from '../../lib/server/register/parts';
+import type { AssemblyView, CarView, PartView } from '../../lib/register/views';
 import { OUT_OF_USE, PART_KIND_LABELS } from '../../lib/register/kinds';
 import { callApi, messageWithoutField, type Page } from '../shared/api';
 import { ConfirmAction } from '../shared/ConfirmAction';

@@ -1,6 +1,7 @@
 import type { Answer, Problem } from '../shared/api';
 import type { InspectionEntryView } from '../../lib/inspections/sheet-values';
 import type { GearSetInfo, ProfileInfo } from './sheet-context';
+import type { PhotoView } from '../../lib/inspections/views';
 
 /**
  * The inspection endpoints as the sheet calls them. Like shared/api's callApi (never throws, a lost
@@ -14,12 +15,8 @@ export type InspectionViewLite = InspectionEntryView & {
   revision: number;
 };
 
-export interface PhotoView {
-  id: string;
-  side: 'drive' | 'coast';
-  url: string;
-  thumbnailUrl: string;
-}
+// One shape for a photo, the server's (src/lib/inspections/views.ts).
+export type { PhotoView };
 
 const TIMEOUT_MS = 20_000;
 

@@ -3,7 +3,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useQuery } from '@tanstack/react-query';
 import type { z } from 'zod';
-import type { PartView } from '../../lib/server/register/parts';
+import type { PartView } from '../../lib/register/views';
 import { partCreateSchema } from '../../lib/register/schemas';
 import { PART_KINDS, PART_KIND_LABELS, type PartKind } from '../../lib/register/kinds';
 import { DEFAULT_LIFE_LIMITS, type LifeLimitDefault } from '../../lib/register/team-settings';

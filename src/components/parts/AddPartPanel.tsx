@@ -1,6 +1,6 @@
 import { useState, type ReactElement } from 'react';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import type { PartView } from '../../lib/server/register/parts';
+import type { PartView } from '../../lib/register/views';
 import AddPartForm from './AddPartForm';
 import { fetchTeamSettings, SETTINGS_KEY, type TeamSettingsAnswer } from './team-settings-query';
 

@@ -1,5 +1,5 @@
 import { useEffect, useId, useRef, useState, type FormEvent } from 'react';
-import type { RunView } from '../../lib/server/register/runs';
+import type { RunView } from '../../lib/register/views';
 import { fieldMessage, problemToSummary, type Answer, type Problem } from '../shared/api';
 import { useHydrated } from '../shared/use-hydrated';
 import { dateToLocalInput, isoToLocalText } from '../shared/when';

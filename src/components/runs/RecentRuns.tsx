@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import type { RunView } from '../../lib/server/register/runs';
+import type { RunView } from '../../lib/register/views';
 import { mayDeleteRun } from '../../lib/register/run-deletion';
 import type { Role } from '../../lib/roles';
 import { callApi, messageWithoutField } from '../shared/api';

@@ -1,5 +1,5 @@
 import { lazy, Suspense, useState } from 'react';
-import type { RunView } from '../../lib/server/register/runs';
+import type { RunView } from '../../lib/register/views';
 import { callApi, type Page } from '../shared/api';
 import { LogRunForm, type RunCar } from './LogRunForm';
 import { runKey } from './run-form';

@@ -1,4 +1,4 @@
-import type { RunView } from '../../lib/server/register/runs';
+import type { RunView } from '../../lib/register/views';
 import { dateToLocalInput, localInputToIso } from '../shared/when';
 
 /**

@@ -129,13 +129,27 @@ export function toBoardRow(
 }
 
 /**
- * Most urgent first: retire > re-shim > watch > keep > not yet inspected; then fewest runs left; then serial.
- * @example sortBoardRows(rows).map((r) => r.action) // ['retire', 'watch', 'keep', null]
+ * The board's one order, most urgent first (issue 14 defines it; keep it): retire, re-shim, a set in a car
+ * that was never inspected (it is running blind), watch, keep, then a set in no car never inspected.
+ * @example boardRankOf({ action: null, car: { id: 'c', name: '714' } }) // 3, between re-shim and watch
+ */
+export function boardRankOf(row: Pick<BoardRow, 'action' | 'car'>): number {
+  if (row.action) return BOARD_ACTION_RANK[row.action];
+  return row.car ? UNINSPECTED_IN_CAR_RANK : 0;
+}
+
+const BOARD_ACTION_RANK: Readonly<Record<RecommendedAction, number>> = { retire: 5, 're-shim': 4, watch: 2, keep: 1 };
+const UNINSPECTED_IN_CAR_RANK = 3;
+
+/**
+ * Most urgent first by `boardRankOf`; then fewest runs left; then serial.
+ * @example sortBoardRows(rows).map((r) => r.action) // ['retire', 're-shim', null (in a car), 'watch', 'keep']
  */
 export function sortBoardRows<T extends BoardRow>(rows: readonly T[]): T[] {
-  const rank = (r: T) => (r.action ? ACTION_RANK[r.action] : 0);
   const left = (r: T) => r.projected?.runs ?? Number.POSITIVE_INFINITY;
-  return [...rows].sort((a, b) => rank(b) - rank(a) || left(a) - left(b) || a.serial.localeCompare(b.serial));
+  return [...rows].sort(
+    (a, b) => boardRankOf(b) - boardRankOf(a) || left(a) - left(b) || a.serial.localeCompare(b.serial),
+  );
 }
 
 /** The statuses a set in use can have, in the order the board's filter offers them. */

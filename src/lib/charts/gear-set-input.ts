@@ -3,6 +3,7 @@
 // shape again. Pure: the server frontmatter and the islands' query function both call it.
 
 import type { LineFit, TrendProjection, Verdict } from '../analysis';
+import type { InspectionView } from '../inspections/views';
 import { mmToLength, nmToTorque, type IndicatorResolutionId, type LengthUnit } from '../units';
 import { toResolutionId } from './format';
 
@@ -57,19 +58,11 @@ export interface AnalysisAnswer {
   life: GearSetChartInput['life'];
 }
 
-/** The parts of one item of GET /api/inspections the charts read. */
-export interface InspectionAnswer {
-  id: string;
-  status: string;
-  inspectedAt: string;
-  runsAtInspection: number;
-  resolution: string;
-  canonical: { runoutMm: { backFace: number | null }; preload: { pinionNm: number | null; bearings: 'new' | 'used' } };
-  summary: {
-    backlash: { mean: number; min: number; max: number; spread: number; runoutEstimate?: { tir: number } } | null;
-    verdicts: { verdict: Verdict }[];
-  };
-}
+/** One item of GET /api/inspections: the one inspection shape (src/lib/inspections/views.ts), the parts the charts read. */
+export type InspectionAnswer = Pick<
+  InspectionView,
+  'id' | 'status' | 'inspectedAt' | 'runsAtInspection' | 'resolution' | 'canonical' | 'summary'
+>;
 
 /** The parts of GET /api/tolerance-profiles/for-gear-set/:id the charts read (canonical mm, N·m). */
 export interface ProfileAnswer {

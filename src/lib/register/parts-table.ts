@@ -11,7 +11,7 @@ import {
   type ColumnFiltersState,
   type Table,
 } from '@tanstack/table-core';
-import type { PartView } from '../server/register/parts';
+import type { PartView } from './views';
 import { PART_STATUSES } from './kinds';
 import { lifeStateOf, type LifeState } from './part-life';
 import type { PartsView } from './parts-view';

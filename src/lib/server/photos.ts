@@ -9,6 +9,7 @@ import { HttpError } from './http';
 import { requirePhotoWriter, requireTeamInspection } from './inspections/access';
 import { encodePhoto } from './photo-image';
 import { getObjectStorage, type StoredObject } from './storage';
+import type { PhotoView } from '../inspections/views';
 
 /**
  * The photos of an inspection's contact patterns: re-encoded by photo-image.ts, their bytes in the
@@ -17,21 +18,14 @@ import { getObjectStorage, type StoredObject } from './storage';
  * first, so a failure there leaves at worst an unreferenced object, never a row without bytes.
  */
 
-export interface PhotoView {
-  id: string;
-  side: PhotoSide;
-  url: string;
-  thumbnailUrl: string;
-  width: number;
-  height: number;
-  createdAt: string;
-}
+export type { PhotoView };
 
 export interface CreatedPhotoView extends PhotoView {
   contentType: string;
 }
 
-function photoToView(photo: InspectionPhoto): PhotoView {
+/** A stored photo row as the API answers it. */
+export function photoToView(photo: InspectionPhoto): PhotoView {
   return {
     id: photo.id,
     side: photo.side,

@@ -107,7 +107,9 @@ describe('board rows', () => {
     expect(row.topReason).toMatch(/60 runs reach the life limit of 50/);
   });
 
-  it('sorts retire > re-shim > watch > keep > not inspected, then fewest runs left', () => {
+  // The order issue 14 defines: a set in a car that was never inspected runs blind, so it comes
+  // straight after re-shim; one in no car never inspected comes last.
+  it('sorts retire > re-shim > never inspected in a car > watch > keep > never inspected in no car, then fewest runs left', () => {
     const rows = [
       toBoardRow(set('GS-A'), analysis('keep'), carOf, carName),
       toBoardRow(set('GS-B'), analysis(null), carOf, carName),
@@ -115,8 +117,9 @@ describe('board rows', () => {
       toBoardRow(set('GS-D'), analysis('retire'), carOf, carName),
       toBoardRow(set('GS-E', { totalRuns: 30 }), analysis('watch'), carOf, carName),
       toBoardRow(set('GS-F'), analysis('re-shim'), carOf, carName),
+      toBoardRow(set('GS-G', { location: null }), analysis(null), carOf, carName),
     ];
-    expect(sortBoardRows(rows).map((r) => r.serial)).toEqual(['GS-D', 'GS-F', 'GS-C', 'GS-E', 'GS-A', 'GS-B']);
+    expect(sortBoardRows(rows).map((r) => r.serial)).toEqual(['GS-D', 'GS-F', 'GS-B', 'GS-C', 'GS-E', 'GS-A', 'GS-G']);
   });
 });
 

@@ -1,65 +1,36 @@
-import { analyseGearSet, type GearSetAnalysis } from '../../inspections/gear-set-analysis';
-import { summariseInspection, type ReaderUnits } from '../../inspections/summary';
-import type { ToleranceProfile } from '../../analysis/tolerance';
-import { mmToLength } from '../../units';
+import type { ReaderUnits } from '../../inspections/summary';
 import { HttpError } from '../http';
-import { getPart } from '../register/parts';
+import { readPartViews } from '../register/part-views';
 import { readTeamSettings } from '../register/team-settings';
-import { listSubmittedForAnalysis } from './inspections';
-import { listProfileVersions, profileForGearSet } from './profiles';
+import {
+  analyseFromRows,
+  profileOfSet,
+  readProfileBook,
+  readSubmittedBySet,
+  type StoredAnalysis,
+} from './read-analyses';
 
-/** The analysis of a stored gear set: each submitted inspection judged by the profile version it kept. */
+export type { StoredAnalysis };
+
+/**
+ * The analysis of a stored gear set: each submitted inspection judged by the profile version it kept.
+ * A fixed number of queries however many inspections the set has (the set, its submitted inspections,
+ * the team's profile versions and settings).
+ */
 export async function analyseStoredGearSet(
   teamId: string,
   gearSetId: string,
   units: ReaderUnits,
-): Promise<
-  GearSetAnalysis & { gearSetId: string; unit: string; torqueUnit: string; profile: { name: string; version: number } }
-> {
-  const set = await getPart(teamId, gearSetId);
-  if (set.kind !== 'gear-set') throw new HttpError(404, 'No such gear set in this team.');
-  const [rows, profile, settings] = await Promise.all([
-    listSubmittedForAnalysis(teamId, gearSetId),
-    profileForGearSet(teamId, gearSetId),
+): Promise<StoredAnalysis> {
+  const [register, rowsBySet, book, settings] = await Promise.all([
+    readPartViews(teamId, { ids: [gearSetId] }),
+    readSubmittedBySet(teamId, [gearSetId]),
+    readProfileBook(teamId),
     readTeamSettings(teamId),
   ]);
-  const versions = new Map((await listProfileVersions(teamId, profile.profileId)).map((v) => [v.versionId, v.values]));
-  const geometry = {
-    ringTeeth: set.ringTeeth ?? null,
-    pinionTeeth: set.pinionTeeth ?? null,
-    pressureAngleDeg: set.pressureAngleDeg ?? null,
-  };
-  const inspections = [];
-  for (const row of rows) {
-    // An inspection judged by a version of another profile (the set changed profile) falls back to the current one.
-    const values: ToleranceProfile = (row.profileVersionId && versions.get(row.profileVersionId)) || profile.values;
-    const data = row.data;
-    inspections.push({
-      id: row.id,
-      inspectedAt: row.inspectedAt.toISOString(),
-      runsAtInspection: row.runsAtInspection,
-      data,
-      summary: summariseInspection(data, values, geometry, units),
-    });
-  }
-  const len = (mm: number) => mmToLength(mm, units.lengthUnit);
-  const analysis = analyseGearSet({
-    inspections,
-    limits: {
-      backlashMin: len(profile.values.backlashMin),
-      backlashMax: len(profile.values.backlashMax),
-      maxSpread: len(profile.values.maxSpread),
-    },
-    totalRuns: set.totalRuns,
-    runsSinceInstall: set.runsSinceInstall,
-    lifeLimitRuns: set.lifeLimitRuns,
-    serviceIntervalRuns: settings.serviceIntervalRuns,
-  });
-  return {
-    gearSetId,
-    unit: units.lengthUnit,
-    torqueUnit: units.torqueUnit,
-    profile: { name: profile.name, version: profile.version },
-    ...analysis,
-  };
+  const set = register.parts[0];
+  const row = register.rows.get(gearSetId);
+  if (!set || !row || set.kind !== 'gear-set') throw new HttpError(404, 'No such gear set in this team.');
+  const profile = profileOfSet(book, row.toleranceProfileId);
+  return analyseFromRows(set, rowsBySet.get(gearSetId) ?? [], book, profile, settings.serviceIntervalRuns, units);
 }

@@ -2,9 +2,9 @@ import { randomUUID } from 'node:crypto';
 import { and, asc, eq } from 'drizzle-orm';
 import { getDb, write } from '../../../db/client';
 import { assemblies, inspections, parts, type Inspection, type Part } from '../../../db/schema';
-import { dataToEntry, draftToData, type InspectionData } from '../../inspections/record';
+import { dataToEntry, draftToData } from '../../inspections/record';
 import { findMissingForSubmit, inspectionDraftSchema, type InspectionDraft } from '../../inspections/schemas';
-import { summariseInspection, type InspectionSummary, type ReaderUnits } from '../../inspections/summary';
+import { summariseInspection, type ReaderUnits } from '../../inspections/summary';
 import type { ToleranceProfile } from '../../analysis/tolerance';
 import { zodIssuesToFields, zodIssuesToMessage } from '../../validation';
 import type { TeamAccess } from '../guard';
@@ -13,23 +13,9 @@ import { recordAudit } from '../audit';
 import { requireChangeableInspection, requireTeamInspection } from './access';
 import { getProfileVersion, profileForGearSet } from './profiles';
 import { photoKeysOfInspection, removeObjects } from '../photos';
+import type { InspectionView } from '../../inspections/views';
 
-export interface InspectionView extends ReturnType<typeof dataToEntry> {
-  id: string;
-  gearSetId: string;
-  assemblyId: string | null;
-  status: Inspection['status'];
-  inspectedAt: string;
-  runsAtInspection: number;
-  technicianId: string | null;
-  createdBy: string;
-  submittedAt: string | null;
-  profileVersionId: string | null;
-  revision: number;
-  updatedAt: string;
-  canonical: InspectionData;
-  summary: InspectionSummary;
-}
+export type { InspectionView };
 
 async function requireGearSet(teamId: string, gearSetId: string): Promise<Part> {
   const db = await getDb();
@@ -60,17 +46,20 @@ async function profileValuesFor(teamId: string, row: Inspection): Promise<Tolera
   return (await profileForGearSet(teamId, row.gearSetId)).values;
 }
 
-/** The inspection as the API answers it: what was typed, the canonical record, and the summary in the reader's units. */
-export async function toInspectionView(
-  teamId: string,
+/** The geometry of a gear set that an inspection's summary reads. */
+export type SetGeometry = Pick<Part, 'ringTeeth' | 'pinionTeeth' | 'pressureAngleDeg'>;
+
+/**
+ * The inspection as the API answers it, from what was already read: the row, its set's geometry and
+ * the profile values it is judged by. Pure; read models call it for many rows at once.
+ */
+export function rowToInspectionView(
   row: Inspection,
   units: ReaderUnits,
-  gearSet?: Part,
-  profile?: ToleranceProfile,
-): Promise<InspectionView> {
+  geometry: SetGeometry,
+  values: ToleranceProfile,
+): InspectionView {
   const data = row.data;
-  const set = gearSet ?? (await requireGearSet(teamId, row.gearSetId));
-  const values = profile ?? (await profileValuesFor(teamId, row));
   return {
     id: row.id,
     gearSetId: row.gearSetId,
@@ -89,10 +78,23 @@ export async function toInspectionView(
     summary: summariseInspection(
       data,
       values,
-      { ringTeeth: set.ringTeeth, pinionTeeth: set.pinionTeeth, pressureAngleDeg: set.pressureAngleDeg },
+      { ringTeeth: geometry.ringTeeth, pinionTeeth: geometry.pinionTeeth, pressureAngleDeg: geometry.pressureAngleDeg },
       units,
     ),
   };
+}
+
+/** The inspection as the API answers it: what was typed, the canonical record, and the summary in the reader's units. */
+export async function toInspectionView(
+  teamId: string,
+  row: Inspection,
+  units: ReaderUnits,
+  gearSet?: Part,
+  profile?: ToleranceProfile,
+): Promise<InspectionView> {
+  const set = gearSet ?? (await requireGearSet(teamId, row.gearSetId));
+  const values = profile ?? (await profileValuesFor(teamId, row));
+  return rowToInspectionView(row, units, set, values);
 }
 
 const readerUnitsOf = (access: TeamAccess): ReaderUnits => ({
@@ -293,30 +295,6 @@ export async function listInspectionRows(teamId: string, gearSetId?: string): Pr
     ? and(eq(inspections.teamId, teamId), eq(inspections.gearSetId, gearSetId))
     : eq(inspections.teamId, teamId);
   return db.select().from(inspections).where(where).orderBy(asc(inspections.inspectedAt), asc(inspections.createdAt));
-}
-
-/**
- * A set's submitted inspections, oldest first, with only what its analysis reads: a set's whole life is
- * read on every look at it, and each column more costs time on every row.
- */
-export async function listSubmittedForAnalysis(
-  teamId: string,
-  gearSetId: string,
-): Promise<Pick<Inspection, 'id' | 'inspectedAt' | 'runsAtInspection' | 'data' | 'profileVersionId'>[]> {
-  const db = await getDb();
-  return db
-    .select({
-      id: inspections.id,
-      inspectedAt: inspections.inspectedAt,
-      runsAtInspection: inspections.runsAtInspection,
-      data: inspections.data,
-      profileVersionId: inspections.profileVersionId,
-    })
-    .from(inspections)
-    .where(
-      and(eq(inspections.teamId, teamId), eq(inspections.gearSetId, gearSetId), eq(inspections.status, 'submitted')),
-    )
-    .orderBy(asc(inspections.inspectedAt), asc(inspections.createdAt));
 }
 
 export async function getInspection(access: TeamAccess, inspectionId: string): Promise<InspectionView> {

@@ -8,17 +8,9 @@ import type { profileCreateSchema, profileUpdateSchema } from '../../inspections
 import type { TeamAccess } from '../guard';
 import { HttpError } from '../http';
 import { recordAudit } from '../audit';
+import type { ProfileView } from '../../inspections/views';
 
-export interface ProfileView {
-  profileId: string;
-  versionId: string;
-  version: number;
-  name: string;
-  isDefault: boolean;
-  values: ToleranceProfile;
-  sources: typeof DEFAULT_PROFILE_SOURCES;
-  createdAt: string;
-}
+export type { ProfileView };
 
 const DEFAULT_NAME = 'Team default';
 
@@ -27,7 +19,8 @@ function defaultValues(): ToleranceProfile {
   return values;
 }
 
-function toView(row: ToleranceProfileVersion, defaultProfileId: string): ProfileView {
+/** A stored profile version as the API answers it. */
+export function profileRowToView(row: ToleranceProfileVersion, defaultProfileId: string): ProfileView {
   return {
     profileId: row.profileId,
     versionId: row.id,
@@ -88,7 +81,7 @@ export async function listProfiles(teamId: string): Promise<ProfileView[]> {
     .orderBy(asc(toleranceProfileVersions.name), desc(toleranceProfileVersions.version));
   const newest = new Map<string, ToleranceProfileVersion>();
   for (const row of rows) if (!newest.has(row.profileId)) newest.set(row.profileId, row);
-  return [...newest.values()].map((row) => toView(row, defaultId));
+  return [...newest.values()].map((row) => profileRowToView(row, defaultId));
 }
 
 /** The newest version of one profile; 404 for another team's. */
@@ -108,7 +101,7 @@ export async function getProfileVersion(teamId: string, versionId: string): Prom
     .where(and(eq(toleranceProfileVersions.id, versionId), eq(toleranceProfileVersions.teamId, teamId)))
     .get();
   if (!row) throw new HttpError(404, 'No such profile version in this team.');
-  return toView(row, defaultId);
+  return profileRowToView(row, defaultId);
 }
 
 /** Every version of a profile, newest first. */
@@ -121,7 +114,7 @@ export async function listProfileVersions(teamId: string, profileId: string): Pr
     .where(and(eq(toleranceProfileVersions.profileId, profileId), eq(toleranceProfileVersions.teamId, teamId)))
     .orderBy(desc(toleranceProfileVersions.version));
   if (!rows.length) throw new HttpError(404, 'No such tolerance profile in this team.');
-  return rows.map((row) => toView(row, defaultId));
+  return rows.map((row) => profileRowToView(row, defaultId));
 }
 
 /** The profile a gear set is judged by now: its own, or the team default. */

@@ -9,16 +9,8 @@ import { HttpError } from '../http';
 import { recordAudit } from '../audit';
 import { listCurrentInstalls } from './locations';
 
-export interface AssemblyView {
-  id: string;
-  serial: string;
-  name: string;
-  housing: string | null;
-  notes: string | null;
-  carId: string | null;
-  partIds: string[];
-  createdAt: string;
-}
+import type { AssemblyView } from '../../register/views';
+export type { AssemblyView };
 
 /** The team's rear-end assemblies, each with the car it is in and the parts it holds now. */
 export async function listAssemblies(teamId: string): Promise<AssemblyView[]> {

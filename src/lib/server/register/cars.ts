@@ -8,15 +8,8 @@ import type { TeamAccess } from '../guard';
 import { HttpError } from '../http';
 import { recordAudit } from '../audit';
 
-export interface CarView {
-  id: string;
-  name: string;
-  carClass: string | null;
-  notes: string | null;
-  totalRuns: number;
-  lastRunAt: string | null;
-  createdAt: string;
-}
+import type { CarView } from '../../register/views';
+export type { CarView };
 
 /** The team's cars with their run totals. */
 export async function listCars(teamId: string): Promise<CarView[]> {

@@ -1,105 +1,30 @@
 import { randomUUID } from 'node:crypto';
-import { and, asc, eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import type { z } from 'zod';
-import { getDb, write } from '../../../db/client';
-import { installationEvents, parts, type Part } from '../../../db/schema';
-import { ratioToLabel, teethToRatio } from '../../register/gear-ratio';
+import { write } from '../../../db/client';
+import { installationEvents, parts } from '../../../db/schema';
 import type { PartKind } from '../../register/kinds';
+import type { PartView } from '../../register/views';
 import type { partCreateSchema, partUpdateSchema } from '../../register/schemas';
 import { defaultLifeLimit } from '../../register/team-settings';
 import type { TeamAccess } from '../guard';
 import { HttpError } from '../http';
 import { recordAudit } from '../audit';
-import { describeTarget, listCurrentInstalls } from './locations';
-import { countRunsForParts } from './run-counts';
+import { partToView, readPartViews } from './part-views';
 import { readTeamSettings } from './team-settings';
 
-export interface PartView {
-  id: string;
-  kind: PartKind;
-  serial: string;
-  status: Part['status'];
-  lifeLimitRuns: number | null;
-  runsSinceInstall: number;
-  totalRuns: number;
-  /** Runs left to the life limit, counted on the part's whole life; null without a limit. */
-  runsLeft: number | null;
-  maker: string | null;
-  model: string | null;
-  material: string | null;
-  notes: string | null;
-  location: { targetType: 'assembly' | 'car'; targetId: string; label: string; since: string } | null;
-  ringTeeth?: number | null;
-  pinionTeeth?: number | null;
-  ratio?: number | null;
-  ratioLabel?: string | null;
-  pressureAngleDeg?: number | null;
-  createdAt: string;
-}
+export type { PartView };
 
-function toView(
-  part: Part,
-  counts = { totalRuns: 0, runsSinceInstall: 0 },
-  location: PartView['location'] = null,
-): PartView {
-  const view: PartView = {
-    id: part.id,
-    kind: part.kind,
-    serial: part.serial,
-    status: part.status,
-    lifeLimitRuns: part.lifeLimitRuns,
-    runsSinceInstall: counts.runsSinceInstall,
-    totalRuns: counts.totalRuns,
-    runsLeft: part.lifeLimitRuns === null ? null : part.lifeLimitRuns - counts.totalRuns,
-    maker: part.maker,
-    model: part.model,
-    material: part.material,
-    notes: part.notes,
-    location,
-    createdAt: part.createdAt.toISOString(),
-  };
-  if (part.kind === 'gear-set') {
-    const ratio = part.ringTeeth && part.pinionTeeth ? teethToRatio(part.ringTeeth, part.pinionTeeth) : null;
-    Object.assign(view, {
-      ringTeeth: part.ringTeeth,
-      pinionTeeth: part.pinionTeeth,
-      ratio,
-      ratioLabel: ratio === null ? null : ratioToLabel(ratio),
-      pressureAngleDeg: part.pressureAngleDeg ?? 20,
-    });
-  }
-  return view;
-}
+const toView = partToView;
 
 /** Every part of the team (optionally one kind), with derived run counts and where each one is. */
 export async function listParts(teamId: string, kind?: PartKind): Promise<PartView[]> {
-  const db = await getDb();
-  const where = kind ? and(eq(parts.teamId, teamId), eq(parts.kind, kind)) : eq(parts.teamId, teamId);
-  const rows = await db.select().from(parts).where(where).orderBy(asc(parts.kind), asc(parts.serial), asc(parts.id));
-  const [counts, installs] = await Promise.all([countRunsForParts(teamId), listCurrentInstalls(teamId)]);
-  const labels = new Map<string, string>();
-  const views: PartView[] = [];
-  for (const part of rows) {
-    const install = installs.find((i) => i.subjectType === 'part' && i.subjectId === part.id);
-    let location: PartView['location'] = null;
-    if (install) {
-      const key = `${install.targetType}:${install.targetId}`;
-      if (!labels.has(key)) labels.set(key, await describeTarget(db, install.targetType, install.targetId, teamId));
-      location = {
-        targetType: install.targetType,
-        targetId: install.targetId,
-        label: labels.get(key)!,
-        since: install.since.toISOString(),
-      };
-    }
-    views.push(toView(part, counts.get(part.id), location));
-  }
-  return views;
+  return (await readPartViews(teamId, { kind })).parts;
 }
 
 /** One part of the team; 404 for another team's part or an unknown id. */
 export async function getPart(teamId: string, partId: string): Promise<PartView> {
-  const found = (await listParts(teamId)).find((p) => p.id === partId);
+  const found = (await readPartViews(teamId, { ids: [partId] })).parts[0];
   if (!found) throw new HttpError(404, 'No such part in this team.');
   return found;
 }

@@ -14,16 +14,31 @@ const OPEN_END = 9e15;
  * stored counters). A part is charged with a run when, at the run's time, it sat in the run's car —
  * directly, or in an assembly that sat in that car. An installation covers [install, next remove).
  * `runsSinceInstall` counts only the part's current installation (0 when it is not installed).
- * `asOf` (ms) counts only runs before that moment.
+ * `asOf` (ms) counts only runs before that moment; `partIds` counts only those parts (a page about one
+ * part need not count the whole team's).
  */
-export async function countRunsForParts(teamId: string, asOf?: number): Promise<Map<string, RunCounts>> {
+export async function countRunsForParts(
+  teamId: string,
+  asOf?: number,
+  partIds?: readonly string[],
+): Promise<Map<string, RunCounts>> {
   const db = await getDb();
   const before = asOf ?? OPEN_END;
+  const onlyParts = partIds
+    ? sql`AND (subject_type = 'assembly' OR subject_id IN (${
+        partIds.length
+          ? sql.join(
+              partIds.map((id) => sql`${id}`),
+              sql`, `,
+            )
+          : sql`NULL`
+      }))`
+    : sql``;
   const rows = await db.all<{ part_id: string; total_runs: number; since_install: number }>(sql`
     WITH ev AS (
       SELECT subject_type, subject_id, target_type, target_id, action, at, seq,
              LEAD(at) OVER (PARTITION BY subject_type, subject_id ORDER BY seq) AS next_at
-      FROM installation_events WHERE team_id = ${teamId}
+      FROM installation_events WHERE team_id = ${teamId} ${onlyParts}
     ),
     stints AS (SELECT * FROM ev WHERE action = 'install'),
     part_car AS (
@@ -40,9 +55,10 @@ export async function countRunsForParts(teamId: string, asOf?: number): Promise<
     ),
     current_stint AS (SELECT subject_id AS part_id, seq FROM stints WHERE subject_type = 'part' AND next_at IS NULL)
     SELECT pc.part_id AS part_id,
-           COUNT(r.id) AS total_runs,
+           COUNT(*) AS total_runs,
            COALESCE(SUM(CASE WHEN pc.stint_seq = cs.seq THEN 1 ELSE 0 END), 0) AS since_install
     FROM part_car pc
+    -- The team's own runs only: a run can never be charged to another team's part through a car id.
     JOIN runs r ON r.team_id = ${teamId} AND r.car_id = pc.car_id AND r.at >= pc.from_at AND r.at < pc.to_at AND r.at < ${before}
     LEFT JOIN current_stint cs ON cs.part_id = pc.part_id
     GROUP BY pc.part_id

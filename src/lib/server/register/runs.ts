@@ -11,19 +11,8 @@ import { HttpError } from '../http';
 import { recordAudit } from '../audit';
 import { listCars } from './cars';
 
-export interface RunView {
-  id: string;
-  carId: string;
-  at: string;
-  event: string | null;
-  round: string | null;
-  lane: string | null;
-  notes: string | null;
-  elapsedSeconds: number | null;
-  speedMph: number | null;
-  recordedBy: string | null;
-  createdAt: string;
-}
+import type { RunView } from '../../register/views';
+export type { RunView };
 
 export function runToView(run: Run): RunView {
   const { id, carId, event, round, lane, notes, elapsedSeconds, speedMph, recordedBy } = run;

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { and, asc, desc, eq } from 'drizzle-orm';
+import { and, desc, eq } from 'drizzle-orm';
 import type { z } from 'zod';
 import { getDb, write } from '../../../db/client';
 import {
@@ -13,6 +13,7 @@ import {
   type Review,
 } from '../../../db/schema';
 import { DECISION_LABELS, type decisionSchema } from '../../reviews/schemas';
+import type { ReviewView } from '../../reviews/views';
 import { findMentions, mentionMatches } from '../../notices/compose';
 import type { TeamAccess } from '../guard';
 import { PART_STATUS_LABELS } from '../../register/kinds';
@@ -22,6 +23,8 @@ import { analyseStoredGearSet } from '../inspections/gear-set-analysis';
 import { findLocation } from '../register/locations';
 import { getPart } from '../register/parts';
 import { queueNotice } from '../notices/notices';
+import type { ReviewDetail } from '../../reviews/views';
+import { readReview, reviewToView } from './read-review';
 
 const UNIT_PAIRS = [
   { lengthUnit: 'mm', torqueUnit: 'N-m' },
@@ -57,41 +60,7 @@ async function takeSnapshot(teamId: string, gearSetId: string) {
   return { takenAt: new Date().toISOString(), gearSet, analyses, photos };
 }
 
-export interface ReviewView {
-  id: string;
-  gearSetId: string;
-  status: Review['status'];
-  openedBy: string;
-  openedAt: string;
-  decision: Review['decision'];
-  decisionLabel: string | null;
-  reason: string | null;
-  notes: string | null;
-  reinspectAfterRuns: number | null;
-  reinspectAtRuns: number | null;
-  runsAtDecision: number | null;
-  decidedBy: string | null;
-  decidedAt: string | null;
-}
-
-function toView(row: Review): ReviewView {
-  return {
-    id: row.id,
-    gearSetId: row.gearSetId,
-    status: row.status,
-    openedBy: row.openedBy,
-    openedAt: row.createdAt.toISOString(),
-    decision: row.decision,
-    decisionLabel: row.decision ? DECISION_LABELS[row.decision] : null,
-    reason: row.reason,
-    notes: row.notes,
-    reinspectAfterRuns: row.reinspectAfterRuns,
-    reinspectAtRuns: row.reinspectAtRuns,
-    runsAtDecision: row.runsAtDecision,
-    decidedBy: row.decidedBy,
-    decidedAt: row.decidedAt?.toISOString() ?? null,
-  };
-}
+export type { ReviewView };
 
 async function requireReview(teamId: string, reviewId: string): Promise<Review> {
   const db = await getDb();
@@ -163,7 +132,7 @@ export async function openReview(access: TeamAccess, gearSetId: string, baseUrl:
     });
     return created!;
   });
-  return toView(row);
+  return reviewToView(row);
 }
 
 export async function listReviews(
@@ -171,42 +140,21 @@ export async function listReviews(
   filter: { status?: 'open' | 'decided'; gearSetId?: string },
 ): Promise<ReviewView[]> {
   const db = await getDb();
-  const rows = await db.select().from(reviews).where(eq(reviews.teamId, teamId)).orderBy(desc(reviews.createdAt));
-  return rows
-    .filter(
-      (r) => (!filter.status || r.status === filter.status) && (!filter.gearSetId || r.gearSetId === filter.gearSetId),
-    )
-    .map(toView);
+  // Filtered in SQL: a team's reviews grow with every season.
+  const conditions = [eq(reviews.teamId, teamId)];
+  if (filter.status) conditions.push(eq(reviews.status, filter.status));
+  if (filter.gearSetId) conditions.push(eq(reviews.gearSetId, filter.gearSetId));
+  const rows = await db
+    .select()
+    .from(reviews)
+    .where(and(...conditions))
+    .orderBy(desc(reviews.createdAt));
+  return rows.map(reviewToView);
 }
 
-/** A review with its snapshot (in the reader's units) and its comments. */
-export async function getReview(access: TeamAccess, reviewId: string) {
-  const row = await requireReview(access.team.id, reviewId);
-  const snapshot = row.snapshot as Awaited<ReturnType<typeof takeSnapshot>>;
-  const db = await getDb();
-  const comments = await db
-    .select({
-      id: reviewComments.id,
-      body: reviewComments.body,
-      authorId: reviewComments.authorId,
-      authorName: users.name,
-      mentions: reviewComments.mentions,
-      createdAt: reviewComments.createdAt,
-    })
-    .from(reviewComments)
-    .innerJoin(users, eq(users.id, reviewComments.authorId))
-    .where(and(eq(reviewComments.teamId, access.team.id), eq(reviewComments.reviewId, reviewId)))
-    .orderBy(asc(reviewComments.createdAt));
-  return {
-    ...toView(row),
-    snapshot: {
-      takenAt: snapshot.takenAt,
-      gearSet: snapshot.gearSet,
-      photos: snapshot.photos,
-      analysis: snapshot.analyses[`${access.user.lengthUnit}|${access.user.torqueUnit}`],
-    },
-    comments: comments.map((c) => ({ ...c, createdAt: c.createdAt.toISOString() })),
-  };
+/** A review with its snapshot (in the reader's units) and its comments: the review page's read model. */
+export async function getReview(access: TeamAccess, reviewId: string): Promise<ReviewDetail> {
+  return readReview(access, reviewId);
 }
 
 /** Adds a comment; each member it mentions hears of it. */
@@ -342,5 +290,5 @@ export async function decideReview(
     });
     return row;
   });
-  return toView(updated);
+  return reviewToView(updated);
 }

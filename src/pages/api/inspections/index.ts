@@ -3,13 +3,9 @@ import { inspectionDraftSchema } from '../../../lib/inspections/schemas';
 import { requireMember, requirePermission } from '../../../lib/server/guard';
 import { handle, json, parseWith, readJson } from '../../../lib/server/http';
 import { readIdempotencyKey } from '../../../lib/server/idempotency';
-import {
-  createInspection,
-  listInspectionRows,
-  readerUnitsOf,
-  toInspectionView,
-} from '../../../lib/server/inspections/inspections';
-import { pageOfList, readListQuery } from '../../../lib/server/list-query';
+import { createInspection } from '../../../lib/server/inspections/inspections';
+import { readInspectionList } from '../../../lib/server/inspections/read-inspection-list';
+import { readListQuery } from '../../../lib/server/list-query';
 
 const filterSchema = z.object({
   gearSetId: z.string().max(64).optional(),
@@ -23,14 +19,8 @@ export const GET = handle(async ({ locals, url }) => {
     gearSetId: url.searchParams.get('gearSetId') ?? undefined,
     status: url.searchParams.get('status') ?? undefined,
   });
-  const rows = (await listInspectionRows(access.team.id, filter.gearSetId)).filter(
-    (r) => !filter.status || r.status === filter.status,
-  );
-  const page = pageOfList(rows, readListQuery(url));
-  const items = await Promise.all(
-    page.items.map((row) => toInspectionView(access.team.id, row, readerUnitsOf(access))),
-  );
-  return json({ items, nextCursor: page.nextCursor });
+  // Filtered, ordered and paged in SQL: the order is a stored column.
+  return json(await readInspectionList(access, filter, readListQuery(url)));
 });
 
 /** Creates a draft; with `Idempotency-Key`, a repeat answers the same draft (200). */

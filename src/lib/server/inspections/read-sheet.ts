@@ -1,30 +1,32 @@
-import { PART_STATUS_LABELS } from '../../lib/register/kinds';
-import { roleCan } from '../../lib/roles';
-import type { TeamAccess } from '../../lib/server/guard';
-import type { InspectionView } from '../../lib/server/inspections/inspections';
-import { listAssemblies } from '../../lib/server/register/assemblies';
-import { listParts } from '../../lib/server/register/parts';
-import { readTeamSettings } from '../../lib/server/register/team-settings';
-import { listMembers } from '../../lib/server/teams';
-import type { InspectionViewLite } from './inspection-api';
-import type { SheetProps } from './sheet-context';
+import type { InspectionViewLite } from '../../../components/inspections/inspection-api';
+import type { SheetProps } from '../../../components/inspections/sheet-context';
+import type { InspectionView } from '../../inspections/views';
+import { PART_STATUS_LABELS } from '../../register/kinds';
+import { roleCan } from '../../roles';
+import type { TeamAccess } from '../guard';
+import { readPartViews } from '../register/part-views';
+import { readTeamSettings } from '../register/team-settings';
+import { listMembers } from '../teams';
 
 /**
- * The island's props: only team-wide lists and the person, never anything from the query string,
- * so the one cached copy of the page serves every ?gearSetId and ?draft offline.
+ * The inspection sheet's read model (new and edit pages), in seven queries: the gear sets with the team's
+ * places (five), the members and the settings. The island's props: only team-wide lists and the person,
+ * never anything from the query string, so the one cached copy of the page serves every ?gearSetId and
+ * ?draft offline. (Its prop types live beside the island, which owns them.)
  */
-export async function loadSheetProps(
+export async function readSheet(
   access: TeamAccess,
   mode: SheetProps['mode'],
   inspection?: InspectionView,
 ): Promise<SheetProps> {
   const teamId = access.team.id;
-  const [sets, assemblies, members, settings] = await Promise.all([
-    listParts(teamId, 'gear-set'),
-    listAssemblies(teamId),
+  const [register, members, settings] = await Promise.all([
+    readPartViews(teamId, { kind: 'gear-set' }),
     listMembers(teamId),
     readTeamSettings(teamId),
   ]);
+  const sets = register.parts;
+  const assemblies = register.places.assemblies;
   const recorders = members.filter((m) => roleCan(m.role, 'inspections:record') || m.id === inspection?.technicianId);
   return {
     mode,
