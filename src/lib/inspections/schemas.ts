@@ -1,5 +1,14 @@
 import { z } from 'zod';
-import { INDICATOR_RESOLUTIONS, lengthToMm, torqueToNm, type LengthUnit, type TorqueUnit } from '../units';
+import {
+  INDICATOR_RESOLUTIONS,
+  lengthLimitToText,
+  lengthToMm,
+  nmToTorque,
+  torqueToNm,
+  torqueUnitToLabel,
+  type LengthUnit,
+  type TorqueUnit,
+} from '../units';
 
 /**
  * The inspection sheet: one schema for the form in the browser and for the endpoints. Values come
@@ -136,7 +145,8 @@ export function findLimitIssues(body: {
   preload?: { pinionTorque?: number | null; hubLeft?: { torque?: number }; hubRight?: { torque?: number } };
 }): Issue[] {
   const issues: Issue[] = [];
-  const label = (mm: number) => (body.unit === 'in' ? `${mm} mm (${(mm / 25.4).toFixed(4)} in)` : `${mm} mm`);
+  // Worded in the entry unit: the technician typed inches, so the limit is said in inches.
+  const label = (mm: number) => lengthLimitToText(mm, body.unit);
   const length = (
     value: number | null | undefined,
     maxMm: number,
@@ -153,7 +163,7 @@ export function findLimitIssues(body: {
     if (torqueToNm(value, body.torqueUnit) > LIMITS.torqueNm)
       issues.push({
         path,
-        message: `${name}: at most ${LIMITS.torqueNm} N·m (${(LIMITS.torqueNm / 0.1129848290276167).toFixed(0)} lbf·in).`,
+        message: `${name}: at most ${Number(nmToTorque(LIMITS.torqueNm, body.torqueUnit).toFixed(1))} ${torqueUnitToLabel(body.torqueUnit)}.`,
       });
   };
   body.readings?.forEach((value, i) => length(value, LIMITS.backlashMm, ['readings', i], `Reading ${i + 1}`));
