@@ -23,7 +23,13 @@ export function BacklashSection({ context, disabled }: { context: SheetContext; 
     readings,
     unit,
     profile,
-    { ringTeeth: set?.ringTeeth, pinionTeeth: set?.pinionTeeth, pressureAngleDeg: set?.pressureAngleDeg },
+    {
+      ringTeeth: set?.ringTeeth,
+      pinionTeeth: set?.pinionTeeth,
+      pressureAngleDeg: set?.pressureAngleDeg,
+      spiralAngleDeg: set?.spiralAngleDeg,
+      runoutK: set?.runoutK,
+    },
     resolution,
   );
   const basis = { unit, torqueUnit: torqueUnit ?? 'lbf-in', resolution };
@@ -118,7 +124,7 @@ export function BacklashSection({ context, disabled }: { context: SheetContext; 
                 <>
                   <dt>Runout it suggests</dt>
                   <dd className="font-semibold">
-                    {format(figures.runoutEstimate.tir)} {unit} TIR (k = {figures.runoutEstimate.k.toFixed(3)})
+                    {format(figures.runoutEstimate.tir)} {unit} TIR ({figures.runoutEstimate.kText})
                   </dd>
                 </>
               )}

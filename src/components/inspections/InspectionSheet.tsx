@@ -227,7 +227,7 @@ function Sheet({ props, boot, store }: { props: SheetProps; boot: BootResult; st
           <BacklashSection context={context} disabled={readOnly} />
           <MeasuresSection context={context} disabled={readOnly} shimRows={shimRows} onShimRows={onShimRows} />
           <PreloadSection context={context} disabled={readOnly} />
-          <PatternSection disabled={readOnly} />
+          <PatternSection disabled={readOnly} cutMethod={context.gearSet?.cutMethod ?? 'unknown'} />
           <PhotosSection inspectionId={serverId} online={online} canChange={canChangePhotos} />
           <ConditionSection disabled={readOnly} />
           <div className="sticky bottom-0 z-10 -mx-4 flex items-center gap-3 border-t-2 border-ink-soft bg-panel px-4 py-2">

@@ -87,7 +87,7 @@ const DEFAULT_NEAR_SHARE = 0.1;
  * @example judgeBacklash(summary, DEFAULT_PROFILE).map((v) => v.measure) // ['backlash-min-point', …]
  */
 export function judgeBacklash(
-  summary: Pick<BacklashSummary, 'min' | 'max' | 'spread' | 'runoutEstimate'>,
+  summary: Pick<BacklashSummary, 'min' | 'max' | 'spread'> & { readonly runoutEstimate?: { readonly tir: number } },
   limits: BacklashLimits,
 ): MeasureVerdict[] {
   const nearShare = limits.nearShare ?? DEFAULT_NEAR_SHARE;

@@ -131,7 +131,8 @@ function collectReasons(input: RecommendationInput): RecommendationReason[] {
     );
   }
   for (const pattern of input.patterns ?? []) {
-    if (!pattern.inUsualRegion) add(`pattern-${pattern.side}-${pattern.code}`, 're-shim', 'warning', pattern.guidance);
+    // A drive pattern off the usual region sets up again; a coast pattern is a cross-check and never does.
+    if (pattern.action !== 'keep') add(`pattern-${pattern.side}-${pattern.code}`, pattern.action, 'warning', pattern.guidance);
   }
   return reasons;
 }

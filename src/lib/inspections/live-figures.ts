@@ -30,6 +30,9 @@ export interface Geometry {
   ringTeeth?: number | null;
   pinionTeeth?: number | null;
   pressureAngleDeg?: number | null;
+  /** The set's runout factor setting (runout.ts): a spiral angle or a typed k. */
+  spiralAngleDeg?: number | null;
+  runoutK?: number | null;
 }
 
 /** What the sheet's verdicts are judged at: the entry units and the dial's graduation in the entry unit. */
@@ -92,6 +95,8 @@ export function computeLiveFigures(
           ringTeeth: geometry.ringTeeth,
           pinionTeeth: geometry.pinionTeeth,
           pressureAngleDeg: geometry.pressureAngleDeg ?? undefined,
+          spiralAngleDeg: geometry.spiralAngleDeg ?? null,
+          runoutK: geometry.runoutK ?? null,
         }
       : undefined;
   let figures: LiveFigures;

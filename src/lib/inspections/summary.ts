@@ -1,11 +1,11 @@
 import {
-  analyseBacklash,
   describePattern,
   summariseBacklash,
   type BacklashAnalysis,
   type PatternGuidance,
   type ToleranceProfile,
 } from '../analysis';
+import type { CutMethod } from '../analysis/contact-pattern';
 import { judgeInspection, type InspectionReadings } from '../analysis/judge-inspection';
 import { publishedLimitsOf } from '../analysis/tolerance';
 import { findResolution, mmToLength, nmToTorque, type LengthUnit } from '../units';
@@ -25,6 +25,23 @@ export interface GearGeometry {
   ringTeeth: number | null;
   pinionTeeth: number | null;
   pressureAngleDeg: number | null;
+  /** How the set was cut (contact-pattern guidance); not known when absent. */
+  cutMethod?: CutMethod;
+  /** The set's runout factor setting: a spiral angle or a typed k (runout.ts). */
+  spiralAngleDeg?: number | null;
+  runoutK?: number | null;
+}
+
+/** The geometry the runout estimate needs, when both tooth counts are known. */
+function estimateGeometry(geometry: GearGeometry) {
+  if (!geometry.ringTeeth || !geometry.pinionTeeth) return undefined;
+  return {
+    ringTeeth: geometry.ringTeeth,
+    pinionTeeth: geometry.pinionTeeth,
+    pressureAngleDeg: geometry.pressureAngleDeg ?? undefined,
+    spiralAngleDeg: geometry.spiralAngleDeg ?? null,
+    runoutK: geometry.runoutK ?? null,
+  };
 }
 
 export interface InspectionSummary {
@@ -51,18 +68,8 @@ export function summariseInspection(
   const unit = units.lengthUnit;
   const len = (mm: number) => mmToLength(mm, unit);
   const complete = data.backlashMm.length >= 3 && data.backlashMm.every((r) => r !== null);
-  const backlash = complete
-    ? analyseBacklash({
-        unit,
-        readings: (data.backlashMm as number[]).map(len),
-        ...(geometry.ringTeeth && geometry.pinionTeeth
-          ? {
-              ringTeeth: geometry.ringTeeth,
-              pinionTeeth: geometry.pinionTeeth,
-              pressureAngleDeg: geometry.pressureAngleDeg ?? 20,
-            }
-          : {}),
-      })
+  const backlash: BacklashAnalysis | null = complete
+    ? { unit, ...summariseBacklash((data.backlashMm as number[]).map(len), estimateGeometry(geometry)) }
     : null;
   const resolution = findResolution(data.entry.resolution) ?? findResolution(unit === 'in' ? '0.001in' : '0.01mm')!;
   const entryUnit = data.entry.unit;
@@ -85,9 +92,14 @@ export function summariseInspection(
     reader: { unit, torqueUnit: units.torqueUnit },
     resolution,
   });
+  const drive = data.patterns.drive;
+  const patternContext = {
+    cutMethod: geometry.cutMethod ?? 'unknown',
+    drive: drive ? { alongTooth: drive.along, upTooth: drive.up } : null,
+  };
   const patterns = (['drive', 'coast'] as const).flatMap((side) => {
     const p = data.patterns[side];
-    return p ? [describePattern({ side, alongTooth: p.along, upTooth: p.up })] : [];
+    return p ? [describePattern({ side, alongTooth: p.along, upTooth: p.up }, patternContext)] : [];
   });
   return {
     complete,
@@ -105,16 +117,7 @@ export function summariseInspection(
 /** The backlash figures the verdicts are judged on, in the unit the dial was read in. */
 function entryBacklash(data: InspectionData, entryUnit: LengthUnit, geometry: GearGeometry) {
   const readings = (data.backlashMm as number[]).map((mm) => mmToLength(mm, entryUnit));
-  const summary = summariseBacklash(
-    readings,
-    geometry.ringTeeth && geometry.pinionTeeth
-      ? {
-          ringTeeth: geometry.ringTeeth,
-          pinionTeeth: geometry.pinionTeeth,
-          pressureAngleDeg: geometry.pressureAngleDeg ?? undefined,
-        }
-      : undefined,
-  );
+  const summary = summariseBacklash(readings, estimateGeometry(geometry));
   return {
     min: summary.min,
     max: summary.max,

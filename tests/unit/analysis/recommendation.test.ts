@@ -106,6 +106,17 @@ describe('recommendAction', () => {
     expect(result.reasons).toHaveLength(1);
   });
 
+  it('never re-shims for a coast pattern: a coast pattern toward the heel is a cross-check to watch', () => {
+    // TRADE.md (axle maker's pattern guide): depth corrections are read from the drive side.
+    const coast = describePattern({ side: 'coast', alongTooth: 0.9, upTooth: 0.5 }, { cutMethod: 'face-milled' });
+    const result = recommendAction({ ...BASE, patterns: [coast] });
+    expect(result.action).toBe('watch');
+    expect(result.reasons[0]).toMatchObject({ code: 'pattern-coast-heel', action: 'watch' });
+    // Slightly toward the toe on a new setup (S: GM/Geo): nothing to do.
+    const slight = describePattern({ side: 'coast', alongTooth: 0.25, upTooth: 0.5 });
+    expect(recommendAction({ ...BASE, patterns: [slight] }).action).toBe('keep');
+  });
+
   it('lists every reason, strongest first, with retire over re-shim over watch', () => {
     const result = recommendAction({
       ...BASE,

@@ -28,6 +28,9 @@ export async function analyseStoredGearSet(
     ringTeeth: set.ringTeeth ?? null,
     pinionTeeth: set.pinionTeeth ?? null,
     pressureAngleDeg: set.pressureAngleDeg ?? null,
+    cutMethod: set.cutMethod ?? 'unknown',
+    spiralAngleDeg: set.spiralAngleDeg ?? null,
+    runoutK: set.runoutK ?? null,
   };
   const inspections = [];
   for (const row of rows) {

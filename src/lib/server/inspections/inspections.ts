@@ -89,7 +89,14 @@ export async function toInspectionView(
     summary: summariseInspection(
       data,
       values,
-      { ringTeeth: set.ringTeeth, pinionTeeth: set.pinionTeeth, pressureAngleDeg: set.pressureAngleDeg },
+      {
+        ringTeeth: set.ringTeeth,
+        pinionTeeth: set.pinionTeeth,
+        pressureAngleDeg: set.pressureAngleDeg,
+        cutMethod: set.cutMethod,
+        spiralAngleDeg: set.spiralAngleDeg,
+        runoutK: set.runoutK,
+      },
       units,
     ),
   };

@@ -34,6 +34,10 @@ export interface PartView {
   ratio?: number | null;
   ratioLabel?: string | null;
   pressureAngleDeg?: number | null;
+  /** Gear sets: how the teeth were cut, and the runout factor as a spiral angle or a typed k. */
+  cutMethod?: Part['cutMethod'];
+  spiralAngleDeg?: number | null;
+  runoutK?: number | null;
   createdAt: string;
 }
 
@@ -66,6 +70,9 @@ function toView(
       ratio,
       ratioLabel: ratio === null ? null : ratioToLabel(ratio),
       pressureAngleDeg: part.pressureAngleDeg ?? 20,
+      cutMethod: part.cutMethod,
+      spiralAngleDeg: part.spiralAngleDeg,
+      runoutK: part.runoutK,
     });
   }
   return view;
@@ -153,6 +160,9 @@ export async function updatePart(
     if (before.kind !== 'gear-set' && (changes.ringTeeth !== undefined || changes.pinionTeeth !== undefined)) {
       throw new HttpError(400, 'ringTeeth: only a gear set has tooth counts.', { ringTeeth: 'not a gear set' });
     }
+    // One way of giving k at a time: setting one clears the other.
+    if (typeof changes.spiralAngleDeg === 'number') changes = { ...changes, runoutK: null };
+    if (typeof changes.runoutK === 'number') changes = { ...changes, spiralAngleDeg: null };
     const ring = changes.ringTeeth ?? before.ringTeeth;
     const pinion = changes.pinionTeeth ?? before.pinionTeeth;
     if (before.kind === 'gear-set' && ring !== null && pinion !== null && ring <= pinion) {
