@@ -1,6 +1,7 @@
 import { analyseGearSet, type GearSetAnalysis } from '../../inspections/gear-set-analysis';
 import { summariseInspection, type ReaderUnits } from '../../inspections/summary';
-import type { ToleranceProfile } from '../../analysis/tolerance';
+import { lengthFiguresToMm, type LengthFigures } from '../../analysis/published-limits';
+import { publishedLimitsOf, type ToleranceProfile } from '../../analysis/tolerance';
 import { mmToLength } from '../../units';
 import { HttpError } from '../http';
 import { getPart } from '../register/parts';
@@ -45,13 +46,18 @@ export async function analyseStoredGearSet(
       summary: summariseInspection(data, values, geometry, units),
     });
   }
-  const len = (mm: number) => mmToLength(mm, units.lengthUnit);
+  // The trend limits as published in the reader's unit where printed (0.005 in, never 0.00512).
+  const published = publishedLimitsOf(profile.values);
+  const limitIn = (figures: LengthFigures) =>
+    figures[units.lengthUnit] !== undefined
+      ? Number(figures[units.lengthUnit])
+      : mmToLength(lengthFiguresToMm(figures), units.lengthUnit);
   const analysis = analyseGearSet({
     inspections,
     limits: {
-      backlashMin: len(profile.values.backlashMin),
-      backlashMax: len(profile.values.backlashMax),
-      maxSpread: len(profile.values.maxSpread),
+      backlashMin: limitIn(published.backlashMin),
+      backlashMax: limitIn(published.backlashMax),
+      maxSpread: limitIn(published.maxSpread),
     },
     totalRuns: set.totalRuns,
     runsSinceInstall: set.runsSinceInstall,
