@@ -91,6 +91,24 @@ export interface TrendReason {
   readonly message: string;
 }
 
+/** The latest reading of a trend: its value, and whether its inspection's verdict called it past a limit. */
+export type LatestReading = number | { readonly value: number; readonly past?: boolean };
+
+/** The limit a value is past (a float hair past is not past), or null. */
+function sidePassed(value: number, band: { min?: number; max?: number }): 'min' | 'max' | null {
+  const slack = 1e-9 * Math.max(Math.abs(value), Math.abs(band.max ?? 0), Math.abs(band.min ?? 0));
+  if (band.max !== undefined && value > band.max + slack) return 'max';
+  if (band.min !== undefined && value < band.min - slack) return 'min';
+  return null;
+}
+
+/** The limit a value is nearer to (a verdict out of band is past that one). */
+function nearestSide(value: number, band: { min?: number; max?: number }): 'min' | 'max' {
+  const toMax = band.max === undefined ? Infinity : Math.abs(value - band.max);
+  const toMin = band.min === undefined ? Infinity : Math.abs(value - band.min);
+  return toMax <= toMin ? 'max' : 'min';
+}
+
 /** Where the fitted line meets the limit, looking forward from the last inspection. */
 export interface TrendProjection {
   /** Run count (fractional) at which the line reaches the limit; ≥ the last run count, or null. */
@@ -114,7 +132,9 @@ function project(reason: TrendReason): TrendProjection {
  * says; a line past a limit and heading back is "coming back toward the band", never a crossing in the past.
  * @example projectTrend(fitTrendLine(points), { max: 0.23 }) // { projectedRunsAtLimit: 61.7, runsToLimit: 13.7, limit: 'max' }
  */
-export function projectTrend(fit: LineFit, limit: TrendLimit | undefined, latest?: number): TrendProjection {
+export function projectTrend(fit: LineFit, limit: TrendLimit | undefined, latestReading?: LatestReading): TrendProjection {
+  const latest = typeof latestReading === 'number' ? latestReading : latestReading?.value;
+  const judgedPast = typeof latestReading === 'number' ? undefined : latestReading?.past;
   if (limit === undefined)
     return project({ code: 'no-limit', message: 'No limit given, so there is nothing to project to.' });
   const { lastRuns } = fit;
@@ -124,16 +144,16 @@ export function projectTrend(fit: LineFit, limit: TrendLimit | undefined, latest
   if (band.min === undefined && band.max === undefined) {
     return project({ code: 'no-limit', message: 'The limit has neither a min nor a max.' });
   }
-  // The reading is what the band judges: past a limit now is past it, however the line runs.
+  // The reading is what the band judges: past a limit now is past it, however the line runs. Where the latest
+  // inspection's verdict is given, it decides (judged at its graduation against the limit as published).
   if (latest !== undefined) {
-    for (const side of ['max', 'min'] as const) {
-      const value = band[side];
-      if (value !== undefined && (side === 'max' ? latest > value : latest < value)) {
-        return project({
-          code: 'past-limit-now',
-          message: `The latest reading is past the ${side} (${value}) now, at run ${lastRuns}.`,
-        });
-      }
+    const side = judgedPast === undefined ? sidePassed(latest, band) : judgedPast ? nearestSide(latest, band) : null;
+    const value = side ? band[side] : undefined;
+    if (side && value !== undefined) {
+      return project({
+        code: 'past-limit-now',
+        message: `The latest reading is past the ${side} (${value}) now, at run ${lastRuns}.`,
+      });
     }
   }
   if (fit.count < MIN_TREND_POINTS) {

@@ -101,7 +101,13 @@ function series(
     };
     return { measure, points, fit, limits, projection: { projectedRunsAtLimit: null, runsToLimit: null, reason } };
   }
-  return { measure, points, fit, limits, projection: projectTrend(fit, limits, points.at(-1)?.value) };
+  // Past the limit now is the latest inspection's own verdict (judged at its graduation against the limit as
+  // published), not a comparison of converted figures.
+  const last = inspections.filter((i) => pick(i.summary) !== undefined).at(-1);
+  const verdict = last?.summary.verdicts.find((v) => v.measure === measure)?.verdict;
+  const latest = points.at(-1);
+  const reading = latest && { value: latest.value, ...(verdict && { past: verdict === 'out-of-band' }) };
+  return { measure, points, fit, limits, projection: projectTrend(fit, limits, reading) };
 }
 
 export function analyseGearSet(input: GearSetAnalysisInput): GearSetAnalysis {

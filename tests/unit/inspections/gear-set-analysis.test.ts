@@ -492,3 +492,33 @@ describe('conditionToDamage', () => {
     ]);
   });
 });
+
+describe('analyseGearSet: an inch inspection on the printed limits, read in mm (issue 16)', () => {
+  it('is not "past the limit now": the trend takes the verdict judged at the inch dial', () => {
+    // 0.005 / 0.006 / 0.007 / 0.006 in on a 0.001 in dial: 0.005 in and 0.002 in sit on GM's printed inch
+    // figures (S: GM 1996), though 0.127 mm is under the printed 0.13 mm (× 25.4, NIST SP 811).
+    const data: InspectionData = {
+      ...dataOf({ readings: [0.005, 0.006, 0.007, 0.006].map((inch) => inch * MM_PER_IN) }),
+      entry: { unit: 'in', resolution: '0.001in', torqueUnit: 'lbf-in' },
+    };
+    const only: AnalysedInspection = {
+      id: 'inch',
+      inspectedAt: '2026-04-01T10:00:00Z',
+      runsAtInspection: 0,
+      data,
+      summary: summariseInspection(data, DEFAULT_PROFILE, NO_GEOMETRY, { lengthUnit: 'mm', torqueUnit: 'N-m' }),
+    };
+    const analysis = analyseGearSet(input([only], { totalRuns: 0, runsSinceInstall: 0 }));
+    for (const trend of analysis.trends) expect(trend.projection.reason?.code).not.toBe('past-limit-now');
+    expect(['keep', 'watch']).toContain(analysis.recommendation!.action);
+    // A reading truly past the printed limit is past now: 0.004 in at the tightest point.
+    const past: InspectionData = {
+      ...data,
+      backlashMm: [0.004, 0.006, 0.007, 0.006].map((inch) => inch * MM_PER_IN),
+    };
+    const out = analyseGearSet(
+      input([{ ...only, data: past, summary: summariseInspection(past, DEFAULT_PROFILE, NO_GEOMETRY, { lengthUnit: 'mm', torqueUnit: 'N-m' }) }]),
+    );
+    expect(out.trends.find((t) => t.measure === 'backlash-min-point')?.projection.reason?.code).toBe('past-limit-now');
+  });
+});
