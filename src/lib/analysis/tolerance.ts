@@ -214,8 +214,7 @@ function isNonNegative(value: number): boolean {
  * @example validateProfile({ ...DEFAULT_PROFILE, backlashMin: 0.3 }) // [{ field: 'backlashMin', … }]
  */
 export function validateProfile(profile: ToleranceProfile): ProfileIssue[] {
-  const issues: ProfileIssue[] = profile.published ? findFigureIssues(profile.published) : [];
-  if (issues.length) return issues;
+  const issues: ProfileIssue[] = [];
   const lengths = ['backlashMin', 'backlashMax', 'maxSpread', 'runoutMax'] as const;
   for (const field of lengths) {
     if (!isNonNegative(profile[field])) issues.push({ field, message: `${field} must be a number of 0 or more.` });
@@ -240,6 +239,8 @@ export function validateProfile(profile: ToleranceProfile): ProfileIssue[] {
   if (!(profile.nearShare >= 0 && profile.nearShare < 0.5)) {
     issues.push({ field: 'nearShare', message: 'nearShare must be at least 0 and below 0.5.' });
   }
+  // The printed figures are checked once the figures they stand beside are sound (one slip, one message).
+  if (issues.length === 0 && profile.published) issues.push(...findFigureIssues(profile.published));
   return issues;
 }
 
