@@ -28,8 +28,9 @@ describe('GET /api/gear-sets/:id/analysis', () => {
     const id = await newSet('TR-EMPTY');
     const empty = (await chief.get(`/api/gear-sets/${id}/analysis`)).body;
     expect(empty).toMatchObject({ inspectionCount: 0, latest: null, change: null, recommendation: null });
-    const tightest = (body: { trends: { measure: string; projection: { reason: { code: string; message: string } } }[] }) =>
-      body.trends.find((t) => t.measure === 'backlash-min-point')!;
+    const tightest = (body: {
+      trends: { measure: string; projection: { reason: { code: string; message: string } } }[];
+    }) => body.trends.find((t) => t.measure === 'backlash-min-point')!;
     expect(tightest(empty).projection.reason.code).toBe('too-few-points');
     await submitInspection(chief, draftBody(id, mm([0.18, 0.17, 0.16, 0.17], 5)));
     const one = (await chief.get(`/api/gear-sets/${id}/analysis`)).body;

@@ -57,8 +57,12 @@ describe('an inch inspection on the printed limits', () => {
       const analysis = (await team.viewer.get(`/api/gear-sets/${gearSetId}/analysis`)).body;
       const verdicts = analysis.latest.summary.verdicts as { measure: string; verdict: string }[];
       expect(verdicts.filter((v) => v.verdict === 'out-of-band')).toEqual([]);
-      expect(['keep', 'watch'], JSON.stringify(analysis.recommendation.reasons)).toContain(analysis.recommendation.action);
-      expect(analysis.recommendation.reasons.filter((r: { severity: string }) => r.severity === 'critical')).toEqual([]);
+      expect(['keep', 'watch'], JSON.stringify(analysis.recommendation.reasons)).toContain(
+        analysis.recommendation.action,
+      );
+      expect(analysis.recommendation.reasons.filter((r: { severity: string }) => r.severity === 'critical')).toEqual(
+        [],
+      );
     }
   });
 
@@ -68,7 +72,11 @@ describe('an inch inspection on the printed limits', () => {
     await team.viewer.patch('/api/account', { lengthUnit: 'in', torqueUnit: 'lbf-in' });
     const summary = (await team.viewer.get(`/api/inspections/${id}`)).body.summary;
     const tight = summary.verdicts.find((v: { measure: string }) => v.measure === 'backlash-min-point');
-    expect(tight).toMatchObject({ limitText: '0.005', limitValue: 0.005, judgedAt: 'judged at the 0.001 in graduation' });
+    expect(tight).toMatchObject({
+      limitText: '0.005',
+      limitValue: 0.005,
+      judgedAt: 'judged at the 0.001 in graduation',
+    });
     const torque = summary.verdicts.find((v: { measure: string }) => v.measure === 'pinion-preload-used');
     expect(torque).toMatchObject({ limitText: '8', verdict: 'near-limit', unit: 'lbf-in' });
     await team.viewer.patch('/api/account', { lengthUnit: 'mm', torqueUnit: 'N-m' });

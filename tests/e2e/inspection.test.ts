@@ -50,11 +50,12 @@ describe('the inspection sheet in a real browser', () => {
     await expect.poll(() => page.getByTestId('runs').inputValue()).toMatch(/^\d+$/);
     await expect.poll(() => sheet.getAttribute('data-offline-ready'), { timeout: 15_000 }).toBe('true');
 
-    // Readings in thousandths, Enter to the next position; from the last one on to the runout.
+    // Readings in thousandths (over the field's limit as inches, so read as thou), Enter to the next position;
+    // from the last one on to the runout. The value as read shows under the field.
     await page.getByTestId('reading-1').focus();
     await page.keyboard.type('8');
     await page.keyboard.press('Enter');
-    expect(await page.getByTestId('reading-1-note').textContent()).toBe('read as 0.008 in (thousandths)');
+    expect(await page.getByTestId('reading-1-note').textContent()).toBe('= 0.008 in');
     for (const value of ['7', '6', '7']) {
       await page.keyboard.type(value);
       await page.keyboard.press('Enter');

@@ -25,7 +25,10 @@ function trendOf(points: { runs: number; value: number }[], limits: { min?: numb
 }
 
 /** The mean as the server answers it: drawn with its fit, never projected (the band is for the points). */
-function meanTrendOf(points: { runs: number; value: number }[], limits: { min?: number; max?: number }): ChartTrend | null {
+function meanTrendOf(
+  points: { runs: number; value: number }[],
+  limits: { min?: number; max?: number },
+): ChartTrend | null {
   if (points.length === 0) return null;
   const reason = { code: 'mean-not-projected' as const, message: 'The mean is not projected.' };
   return { fit: fitTrendLine(points), limits, projection: { projectedRunsAtLimit: null, runsToLimit: null, reason } };

@@ -29,7 +29,8 @@ export function MeasuresSection({
     `${formatLength(lengthToMm(v, unit), unit, resolution as IndicatorResolutionId)} ${unit}`;
   const profile = context.profile;
   const basis = { unit, torqueUnit: torqueUnit ?? 'lbf-in', resolution };
-  const judged = profile && typeof backFace === 'number' ? judgeMeasuredRunout(backFace, basis, profile.values) : undefined;
+  const judged =
+    profile && typeof backFace === 'number' ? judgeMeasuredRunout(backFace, basis, profile.values) : undefined;
   const runoutVerdict = profile && judged ? showSheetVerdicts([judged], profile.values, basis) : [];
 
   return (

@@ -36,7 +36,15 @@ export function PatternSection({ disabled, cutMethod }: { disabled: boolean; cut
   );
 }
 
-function PatternSide({ side, disabled, cutMethod }: { side: 'drive' | 'coast'; disabled: boolean; cutMethod: CutMethod }) {
+function PatternSide({
+  side,
+  disabled,
+  cutMethod,
+}: {
+  side: 'drive' | 'coast';
+  disabled: boolean;
+  cutMethod: CutMethod;
+}) {
   const { control } = useFormContext<SheetValues>();
   const { field, fieldState } = useController({ control, name: `patterns.${side}` });
   // The coast pattern is cross-checked against the drive pattern, never given the drive rule.

@@ -22,7 +22,8 @@ export function PreloadSection({ context, disabled }: { context: SheetContext; d
   const field = kind === 'new' ? 'pinionPreloadNew' : 'pinionPreloadUsed';
   const band = profile ? torqueBandToText(publishedLimitsOf(profile.values)[field], unit) : null;
   const basis = { unit: lengthUnit, torqueUnit: unit, resolution };
-  const judged = profile && typeof pinionTorque === 'number' ? judgePreload(pinionTorque, kind, basis, profile.values) : undefined;
+  const judged =
+    profile && typeof pinionTorque === 'number' ? judgePreload(pinionTorque, kind, basis, profile.values) : undefined;
   const verdicts = profile && judged ? showSheetVerdicts([judged], profile.values, basis) : [];
 
   return (
@@ -41,9 +42,8 @@ export function PreloadSection({ context, disabled }: { context: SheetContext; d
           </div>
           {band && profile && (
             <p className="text-sm" data-testid="preload-band">
-              Band for {kind} bearings:{' '}
-              <strong>{band}</strong>
-              . {bandToSourceText(profile.values, field, profile.sources, profile.name)}.
+              Band for {kind} bearings: <strong>{band}</strong>.{' '}
+              {bandToSourceText(profile.values, field, profile.sources, profile.name)}.
             </p>
           )}
         </fieldset>

@@ -94,14 +94,22 @@ function describeDrive(alongTooth: number, upTooth: number, cutMethod: CutMethod
     const pinionCue = up ?? along;
     if (pinionCue) {
       const closer = pinionCue === 'face' || pinionCue === 'heel';
-      corrections.push({ part: 'pinion', direction: closer ? 'toward-ring-gear' : 'away-from-ring-gear', source: NISSAN });
+      corrections.push({
+        part: 'pinion',
+        direction: closer ? 'toward-ring-gear' : 'away-from-ring-gear',
+        source: NISSAN,
+      });
       sentences.push(
         `Contact toward the ${pinionCue} usually calls for moving the pinion ${closer ? 'closer to' : 'away from'} the ring gear (${NISSAN}).`,
       );
     }
     if (along) {
       const heel = along === 'heel';
-      corrections.push({ part: 'ring-gear', direction: heel ? 'toward-pinion' : 'away-from-pinion', source: GEAR_MAKER });
+      corrections.push({
+        part: 'ring-gear',
+        direction: heel ? 'toward-pinion' : 'away-from-pinion',
+        source: GEAR_MAKER,
+      });
       sentences.push(
         `Contact toward the ${along} is often corrected by moving the ring gear ${heel ? 'toward the pinion (less backlash)' : 'away from the pinion (more backlash)'} (${GEAR_MAKER}).`,
       );
@@ -147,11 +155,14 @@ function describeCoast(alongTooth: number, upTooth: number, context: PatternCont
     );
   }
   if (cutMethod === 'face-hobbed') {
-    sentences.push("This set is face-hobbed: read both sides against the gear maker's pattern chart for this set (CP).");
+    sentences.push(
+      "This set is face-hobbed: read both sides against the gear maker's pattern chart for this set (CP).",
+    );
   } else if (along) {
     const coastCue = depthCueOf('coast', along);
     const driveAlong = context.drive ? placeOf(context.drive.alongTooth, 'toe', 'heel') : undefined;
-    const cutWords = cutMethod === 'unknown' ? ' (read as a face-milled set; a face-hobbed set answers differently, CP)' : '';
+    const cutWords =
+      cutMethod === 'unknown' ? ' (read as a face-milled set; a face-hobbed set answers differently, CP)' : '';
     if (driveAlong === undefined) {
       sentences.push(`Record the drive pattern to cross-check it${cutWords}.`);
     } else if (driveAlong === null) {

@@ -83,7 +83,9 @@ export function judgeInspection(
     if (backlash.spread !== undefined)
       verdicts.push(judgeAgainst('spread', backlash.spread, unit, undefined, length(published.maxSpread), near));
     if (backlash.runoutEstimate !== undefined)
-      verdicts.push(judgeAgainst('runout', backlash.runoutEstimate, unit, undefined, length(published.runoutMax), near));
+      verdicts.push(
+        judgeAgainst('runout', backlash.runoutEstimate, unit, undefined, length(published.runoutMax), near),
+      );
   }
   if (readings.backFaceRunout !== undefined && readings.backFaceRunout !== null) {
     const max = length(published.runoutMax);

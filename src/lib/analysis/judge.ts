@@ -21,12 +21,7 @@ export interface RangeVerdict {
 export type BacklashMeasure = 'backlash-min-point' | 'backlash-max-point' | 'spread' | 'runout';
 /** Every measure an inspection is judged on. */
 export type InspectionMeasure =
-  | BacklashMeasure
-  | 'runout-measured'
-  | 'pinion-preload-new'
-  | 'pinion-preload-used'
-  | 'hub-left'
-  | 'hub-right';
+  BacklashMeasure | 'runout-measured' | 'pinion-preload-new' | 'pinion-preload-used' | 'hub-left' | 'hub-right';
 
 /** A verdict on one named measure. */
 export interface MeasureVerdict extends RangeVerdict {

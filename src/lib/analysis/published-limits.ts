@@ -3,14 +3,7 @@
 // the same numbers (0.005 in is 0.127 mm): an inch reading is judged against the inch figure, never a converted mm
 // figure (TRADE.md, Units, CP).
 
-import {
-  lengthToMm,
-  mmToLength,
-  nmToTorque,
-  torqueToNm,
-  torqueUnitToLabel,
-  type LengthUnit,
-} from '../units';
+import { lengthToMm, mmToLength, nmToTorque, torqueToNm, torqueUnitToLabel, type LengthUnit } from '../units';
 
 /** Torque units a limit is published in and a reading is taken in. */
 export type PublishedTorqueUnit = 'N-m' | 'lbf-in';
@@ -122,7 +115,11 @@ export function torqueLimitIn(figures: TorqueFigures, unit: PublishedTorqueUnit)
  * 0.0051), otherwise `fallback` (the caller rounds the converted figure to the graduation).
  * @example lengthFiguresToText({ mm: '0.13', in: '0.005' }, 'in', () => '') // '0.005'
  */
-export function lengthFiguresToText(figures: LengthFigures, unit: LengthUnit, fallback: (mm: number) => string): string {
+export function lengthFiguresToText(
+  figures: LengthFigures,
+  unit: LengthUnit,
+  fallback: (mm: number) => string,
+): string {
   return figures[unit] ?? fallback(lengthFiguresToMm(figures));
 }
 

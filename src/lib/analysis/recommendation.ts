@@ -134,7 +134,8 @@ function collectReasons(input: RecommendationInput): RecommendationReason[] {
   }
   for (const pattern of input.patterns ?? []) {
     // A drive pattern off the usual region sets up again; a coast pattern is a cross-check and never does.
-    if (pattern.action !== 'keep') add(`pattern-${pattern.side}-${pattern.code}`, pattern.action, 'warning', pattern.guidance);
+    if (pattern.action !== 'keep')
+      add(`pattern-${pattern.side}-${pattern.code}`, pattern.action, 'warning', pattern.guidance);
   }
   return reasons;
 }

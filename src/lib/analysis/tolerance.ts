@@ -193,7 +193,10 @@ function findFigureIssues(published: PublishedLimits): ProfileIssue[] {
     for (const [unit, figure] of Object.entries(low) as [string, string | undefined][]) {
       const other = (high as Readonly<Record<string, string | undefined>>)[unit];
       if (figure !== undefined && other !== undefined && Number(figure) > Number(other))
-        issues.push({ field: `published.${field}`, message: `${field} (${figure} ${unit}) is above its max (${other} ${unit}).` });
+        issues.push({
+          field: `published.${field}`,
+          message: `${field} (${figure} ${unit}) is above its max (${other} ${unit}).`,
+        });
     }
   }
   return issues;

@@ -132,15 +132,24 @@ function project(reason: TrendReason): TrendProjection {
  * says; a line past a limit and heading back is "coming back toward the band", never a crossing in the past.
  * @example projectTrend(fitTrendLine(points), { max: 0.23 }) // { projectedRunsAtLimit: 61.7, runsToLimit: 13.7, limit: 'max' }
  */
-export function projectTrend(fit: LineFit, limit: TrendLimit | undefined, latestReading?: LatestReading): TrendProjection {
+export function projectTrend(
+  fit: LineFit,
+  limit: TrendLimit | undefined,
+  latestReading?: LatestReading,
+): TrendProjection {
   const latest = typeof latestReading === 'number' ? latestReading : latestReading?.value;
   const judgedPast = typeof latestReading === 'number' ? undefined : latestReading?.past;
   if (limit === undefined)
     return project({ code: 'no-limit', message: 'No limit given, so there is nothing to project to.' });
   const { lastRuns } = fit;
-  const reference = latest ?? (fit.slope !== null && fit.intercept !== null ? fit.intercept + fit.slope * lastRuns : undefined);
+  const reference =
+    latest ?? (fit.slope !== null && fit.intercept !== null ? fit.intercept + fit.slope * lastRuns : undefined);
   const band =
-    typeof limit === 'number' ? (reference === undefined || reference <= limit ? { max: limit } : { min: limit }) : limit;
+    typeof limit === 'number'
+      ? reference === undefined || reference <= limit
+        ? { max: limit }
+        : { min: limit }
+      : limit;
   if (band.min === undefined && band.max === undefined) {
     return project({ code: 'no-limit', message: 'The limit has neither a min nor a max.' });
   }

@@ -35,8 +35,7 @@ const figure = (label: string) =>
     .regex(FIGURE_PATTERN, `${label} must be a figure as printed, e.g. "0.005".`)
     .max(12, `${label}: at most 12 characters.`)
     .optional();
-const lengthFigures = (label: string) =>
-  z.object({ mm: figure(`${label}.mm`), in: figure(`${label}.in`) }).strict();
+const lengthFigures = (label: string) => z.object({ mm: figure(`${label}.mm`), in: figure(`${label}.in`) }).strict();
 const torqueFigures = (label: string) =>
   z.object({ 'N-m': figure(`${label}.N-m`), 'lbf-in': figure(`${label}.lbf-in`) }).strict();
 const torqueBandFigures = (label: string) =>
@@ -60,9 +59,11 @@ const hasFigure = (figures: Readonly<Record<string, string | undefined>> | undef
   figures !== undefined && Object.values(figures).some((f) => f !== undefined);
 
 /** Every limit given one way or the other: the issues naming those given neither way. */
-function findMissingLimits(values: {
-  [K in (typeof LENGTH_FIELDS)[number]]?: number;
-} & { [K in (typeof TORQUE_FIELDS)[number]]?: { min: number; max: number } } & { published?: PublishedInput }) {
+function findMissingLimits(
+  values: {
+    [K in (typeof LENGTH_FIELDS)[number]]?: number;
+  } & { [K in (typeof TORQUE_FIELDS)[number]]?: { min: number; max: number } } & { published?: PublishedInput },
+) {
   const issues: { path: string[]; message: string }[] = [];
   for (const field of LENGTH_FIELDS) {
     if (values[field] === undefined && !hasFigure(values.published?.[field]))
@@ -77,7 +78,10 @@ function findMissingLimits(values: {
 }
 
 /** The profile as stored: canonical figures settled, and every limit as published beside them. */
-function settleProfile(values: Parameters<typeof findMissingLimits>[0] & Omit<ToleranceProfile, 'published' | (typeof LENGTH_FIELDS)[number] | (typeof TORQUE_FIELDS)[number]>): ToleranceProfile {
+function settleProfile(
+  values: Parameters<typeof findMissingLimits>[0] &
+    Omit<ToleranceProfile, 'published' | (typeof LENGTH_FIELDS)[number] | (typeof TORQUE_FIELDS)[number]>,
+): ToleranceProfile {
   const p = values.published ?? {};
   const mm = (field: (typeof LENGTH_FIELDS)[number]) => values[field] ?? lengthFiguresToMm(p[field] as LengthFigures);
   const nm = (field: (typeof TORQUE_FIELDS)[number]) =>
@@ -96,7 +100,9 @@ function settleProfile(values: Parameters<typeof findMissingLimits>[0] & Omit<To
   const length = (field: (typeof LENGTH_FIELDS)[number]): LengthFigures =>
     hasFigure(p[field]) ? (p[field] as LengthFigures) : { mm: numberToFigure(canonical[field]) };
   const torque = (field: (typeof TORQUE_FIELDS)[number], side: 'min' | 'max'): TorqueFigures =>
-    hasFigure(p[field]?.[side]) ? (p[field]?.[side] as TorqueFigures) : { 'N-m': numberToFigure(canonical[field][side]) };
+    hasFigure(p[field]?.[side])
+      ? (p[field]?.[side] as TorqueFigures)
+      : { 'N-m': numberToFigure(canonical[field][side]) };
   const sent: PublishedLimits = {
     backlashMin: length('backlashMin'),
     backlashMax: length('backlashMax'),

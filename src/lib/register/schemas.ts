@@ -103,15 +103,15 @@ function checkGearTeeth(part: { kind?: string; ringTeeth?: number; pinionTeeth?:
 }
 
 /** The runout factor is set one way: a spiral angle or a typed k, not both. */
-function checkRunoutFactor(part: { spiralAngleDeg?: number | null; runoutK?: number | null }, ctx: z.RefinementCtx): void {
+function checkRunoutFactor(
+  part: { spiralAngleDeg?: number | null; runoutK?: number | null },
+  ctx: z.RefinementCtx,
+): void {
   if (typeof part.spiralAngleDeg === 'number' && typeof part.runoutK === 'number')
     ctx.addIssue({ code: 'custom', path: ['runoutK'], message: 'Give a spiral angle or a typed k, not both.' });
 }
 
-export const partCreateSchema = z
-  .object(partFields)
-  .superRefine(checkGearTeeth)
-  .superRefine(checkRunoutFactor);
+export const partCreateSchema = z.object(partFields).superRefine(checkGearTeeth).superRefine(checkRunoutFactor);
 export const partUpdateSchema = z.object(partFields).omit({ kind: true }).partial().superRefine(checkRunoutFactor);
 
 export const installationSchema = z

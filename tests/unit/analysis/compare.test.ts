@@ -9,14 +9,19 @@ describe('compareInspections', () => {
   // The rule: a change counts only beyond twice the coarser graduation (CP: each reading carries ± one graduation).
   it('leaves a change of exactly two graduations unflagged and flags three, on a 0.001 in dial', () => {
     const change = (before: number, after: number) =>
-      compareInspections({ measures: { min: before }, resolution: 0.001 }, { measures: { min: after }, resolution: 0.001 })[0]!;
+      compareInspections(
+        { measures: { min: before }, resolution: 0.001 },
+        { measures: { min: after }, resolution: 0.001 },
+      )[0]!;
     expect(change(0.006, 0.008)).toMatchObject({ threshold: 0.002, flagged: false }); // two graduations (CP)
     expect(change(0.006, 0.009).flagged).toBe(true); // three graduations (CP)
     expect(change(0.009, 0.006).flagged).toBe(true);
     // On a 0.01 mm dial: 0.16 → 0.18 mm is two graduations, 0.16 → 0.19 mm three (CP).
     const mm = (before: number, after: number) =>
-      compareInspections({ measures: { min: before }, resolution: 0.01 }, { measures: { min: after }, resolution: 0.01 })[0]!
-        .flagged;
+      compareInspections(
+        { measures: { min: before }, resolution: 0.01 },
+        { measures: { min: after }, resolution: 0.01 },
+      )[0]!.flagged;
     expect(mm(0.16, 0.18)).toBe(false);
     expect(mm(0.16, 0.19)).toBe(true);
   });

@@ -86,8 +86,11 @@ describe('a limit printed only in the other unit', () => {
     published: { ...DEFAULT_PROFILE.published!, backlashMin: { mm: '0.13' } },
   });
   const judgeMin = (value: number, graduation: number) =>
-    judgeInspection({ backlash: { min: value, max: 0.007 } }, mmOnly, { unit: 'in', torqueUnit: 'lbf-in', graduation })[0]!
-      .verdict;
+    judgeInspection({ backlash: { min: value, max: 0.007 } }, mmOnly, {
+      unit: 'in',
+      torqueUnit: 'lbf-in',
+      graduation,
+    })[0]!.verdict;
 
   it('allows half the indicator graduation before calling an inch reading out (CP)', () => {
     // 0.005118 − 0.005 = 0.000118 in, within half of 0.001 in; 0.004 is 0.001118 in short: out.

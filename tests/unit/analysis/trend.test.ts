@@ -163,7 +163,9 @@ describe('projectTrend: the four cases of issue 16', () => {
     const fit = fitTrendLine([...points.slice(0, 2), { runs: 20, value: 0.18 }]);
     expect(projectTrend(fit, band, 0.24).reason?.code).toBe('past-limit-now');
     // With only two inspections too: the reading is past now, a projection or not.
-    expect(projectTrend(fitTrendLine(points.slice(0, 2)), band, 0.24).reason?.message).toContain('past the max (0.23) now');
+    expect(projectTrend(fitTrendLine(points.slice(0, 2)), band, 0.24).reason?.message).toContain(
+      'past the max (0.23) now',
+    );
   });
 
   it('says a line above the max and falling is coming back toward the band', () => {

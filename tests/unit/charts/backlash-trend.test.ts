@@ -75,7 +75,9 @@ describe('shapeBacklashTrend', () => {
     expect(shape.projection!.to.runs).toBeCloseTo(30, 9);
     expect(shape.projection!.to.value).toBe(0.005);
     expect(shape.projection!.label).toBe('run 30');
-    expect(shape.message).toMatch(/tightest point reaches the lower limit \(0\.005 in\) at about run 30, 10 runs after/);
+    expect(shape.message).toMatch(
+      /tightest point reaches the lower limit \(0\.005 in\) at about run 30, 10 runs after/,
+    );
   });
 
   it('says a far crossing in words instead of stretching the chart to it', () => {

@@ -64,7 +64,11 @@ describe('verdictsToRows', () => {
     const measured = { ...estimate, measure: 'runout-measured' } as const;
     expect(verdictsToRows([measured], 0, '0.001in')[0]!.label).toBe('Back-face runout, measured (TIR)');
     // The limit as published: 0.003 in (S: Ford 1997), with what it was judged at.
-    const row = verdictsToRows([{ ...estimate, limitText: '0.003', judgedAt: 'judged at the 0.001 in graduation' }], 0, '0.001in')[0]!;
+    const row = verdictsToRows(
+      [{ ...estimate, limitText: '0.003', judgedAt: 'judged at the 0.001 in graduation' }],
+      0,
+      '0.001in',
+    )[0]!;
     expect(row.limitText).toBe('upper 0.003 in');
     expect(row.judgedAt).toBe('judged at the 0.001 in graduation');
   });

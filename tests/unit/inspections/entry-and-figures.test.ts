@@ -95,7 +95,10 @@ describe('the live figures', () => {
 
   it('calls the runout estimate out when the once-per-turn part is large', () => {
     // 0.010 / 0.007 / 0.004 / 0.007 in: C = 0.003 in, TIR = 0.006 / 0.707209 = 0.0084841 in, over 0.003 in (S: Ford 1997)
-    const f = computeLiveFigures([0.01, 0.007, 0.004, 0.007], 'in', DEFAULT_PROFILE, { ringTeeth: 41, pinionTeeth: 10 });
+    const f = computeLiveFigures([0.01, 0.007, 0.004, 0.007], 'in', DEFAULT_PROFILE, {
+      ringTeeth: 41,
+      pinionTeeth: 10,
+    });
     expect(f.runoutEstimate!.tir).toBeCloseTo(0.0084841, 6);
     expect(f.verdicts.find((v) => v.measure === 'runout')?.verdict).toBe('out-of-band');
   });

@@ -517,7 +517,13 @@ describe('analyseGearSet: an inch inspection on the printed limits, read in mm (
       backlashMm: [0.004, 0.006, 0.007, 0.006].map((inch) => inch * MM_PER_IN),
     };
     const out = analyseGearSet(
-      input([{ ...only, data: past, summary: summariseInspection(past, DEFAULT_PROFILE, NO_GEOMETRY, { lengthUnit: 'mm', torqueUnit: 'N-m' }) }]),
+      input([
+        {
+          ...only,
+          data: past,
+          summary: summariseInspection(past, DEFAULT_PROFILE, NO_GEOMETRY, { lengthUnit: 'mm', torqueUnit: 'N-m' }),
+        },
+      ]),
     );
     expect(out.trends.find((t) => t.measure === 'backlash-min-point')?.projection.reason?.code).toBe('past-limit-now');
   });
