@@ -178,7 +178,14 @@ describe('the inspection sheet in a real browser', () => {
     await row.getByRole('link').click();
     await page.waitForURL(`${server.baseUrl}/inspections/${inspectionId}`);
     expect(await page.getByTestId('inspection-status').textContent()).toContain('Submitted');
-    expect(await page.getByTestId('detail-verdicts').textContent()).toContain('Out of band');
+    // Spread 0.002 in sits on GM's printed 0.002 in (S: GM 1996): near the limit, never out of band against
+    // 0.05 mm = 0.00197 in; the limit shown as printed and judged at the dial it was read on.
+    const verdicts = await page.getByTestId('detail-verdicts').textContent();
+    expect(verdicts).toContain('Near a limit — Spread');
+    expect(verdicts).not.toContain('Out of band');
+    expect(verdicts).toContain(
+      'Upper limit 0.002 in, less than a graduation inside, judged at the 0.001 in graduation',
+    );
     expect(await page.getByTestId('detail-photos-drive').locator('img').count()).toBe(1);
     // A technician cannot edit a submitted inspection.
     expect(await page.getByTestId('edit-link').count()).toBe(0);
