@@ -37,6 +37,7 @@ describe('compareInspections', () => {
   });
 
   it('flags a change of more than two graduations in either direction', () => {
+    // 0.1778 − 0.1016 = 0.0762 mm = 3 thou > 2 thou (NIST SP 811; the rule is CP).
     const changes = compareInspections(
       { measures: { min: 0.1016, max: 0.2 }, resolution: THOU },
       { measures: { min: 0.1778, max: 0.1 }, resolution: THOU },
@@ -48,6 +49,7 @@ describe('compareInspections', () => {
   });
 
   it('uses the coarser of the two resolutions', () => {
+    // The coarser dial bounds what both resolve (CP).
     const [change] = compareInspections(
       { measures: { min: 0.15 }, resolution: 0.002 },
       { measures: { min: 0.165 }, resolution: 0.01 },
@@ -61,6 +63,7 @@ describe('compareInspections', () => {
   });
 
   it('lists a measure only one inspection has with no delta and no flag', () => {
+    // Nothing to subtract, nothing to flag (CP).
     const changes = compareInspections(
       { measures: { spread: 0.03 }, resolution: 0.01 },
       { measures: { tir: 0.2, empty: undefined }, resolution: 0.01 },
@@ -72,6 +75,7 @@ describe('compareInspections', () => {
   });
 
   it('refuses a resolution that is not positive', () => {
+    // A graduation is positive (CP).
     expect(() => compareInspections({ measures: {}, resolution: 0 }, { measures: {}, resolution: 0.01 })).toThrow(
       RangeError,
     );
@@ -80,6 +84,7 @@ describe('compareInspections', () => {
 
 describe('summaryToMeasures', () => {
   it('takes min, max, mean, spread, amplitude and runout from a backlash summary', () => {
+    // The same figures as the summary, worked by hand on the readings written here (D).
     const measures = summaryToMeasures(summariseBacklash([0.2, 0.15, 0.1, 0.15], { ringTeeth: 41, pinionTeeth: 10 }));
     expect(Object.keys(measures)).toEqual(['min', 'max', 'mean', 'spread', 'amplitude', 'tir']);
     expect(measures.amplitude).toBeCloseTo(0.05, 15);

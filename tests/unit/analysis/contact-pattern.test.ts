@@ -55,6 +55,7 @@ describe('describePattern', () => {
   });
 
   it('lets the height decide the pinion when the pattern is off both ways', () => {
+    // TRADE.md (S: Nissan …): face → pinion closer; (gear maker’s technical note): toe → ring gear away.
     const guidance = describePattern({ side: 'drive', alongTooth: 0.1, upTooth: 0.9 });
     expect(guidance.code).toBe('toe-face');
     expect(guidance.corrections.map((c) => c.direction)).toEqual(['toward-ring-gear', 'away-from-pinion']);
@@ -67,6 +68,7 @@ describe('describePattern', () => {
   });
 
   it('refuses positions outside 0..1 on the coast side too', () => {
+    // 0 = toe, 1 = heel (S: GM service manual, 9-1/2 in axle); outside is no position.
     expect(() => describePattern({ side: 'coast', alongTooth: -0.1, upTooth: 0.5 })).toThrow(RangeError);
   });
 });
@@ -78,6 +80,7 @@ describe('describePattern: the coast side', () => {
   const FACE_MILLED = { cutMethod: 'face-milled' as const };
 
   it('never tells a coast pattern toward the heel to move the pinion closer (the drive rule)', () => {
+    // TRADE.md (axle maker’s pattern guide): the coast side answers the other way along the tooth.
     const guidance = describePattern({ side: 'coast', alongTooth: 0.9, upTooth: 0.5 }, FACE_MILLED);
     expect(guidance.corrections).toEqual([]);
     expect(guidance.guidance).not.toContain('closer to the ring gear');
@@ -96,6 +99,7 @@ describe('describePattern: the coast side', () => {
   });
 
   it('reads a coast pattern toward the heel with a drive pattern toward the toe as agreeing: pinion away', () => {
+    // Drive at the toe: pinion too close (S: Nissan, toe → away); coast at the heel: the same cause (axle maker’s guide).
     const guidance = describePattern(
       { side: 'coast', alongTooth: 0.9, upTooth: 0.5 },
       { ...FACE_MILLED, drive: { alongTooth: 0.1, upTooth: 0.5 } },
@@ -105,6 +109,7 @@ describe('describePattern: the coast side', () => {
   });
 
   it('says a depth change cannot centre both when drive and coast sit toward the same end', () => {
+    // A depth change moves drive and coast opposite ways along the tooth (axle maker’s pattern guide).
     const guidance = describePattern(
       { side: 'coast', alongTooth: 0.9, upTooth: 0.5 },
       { ...FACE_MILLED, drive: { alongTooth: 0.9, upTooth: 0.5 } },
@@ -122,6 +127,7 @@ describe('describePattern: the coast side', () => {
   });
 
   it('never makes a coast pattern a reason to re-shim on its own', () => {
+    // Depth corrections are read from the drive side (axle maker’s pattern guide).
     for (const alongTooth of [0, 0.1, 0.9, 1]) {
       for (const upTooth of [0, 0.5, 1]) {
         expect(describePattern({ side: 'coast', alongTooth, upTooth }, FACE_MILLED).action).not.toBe('re-shim');
@@ -150,6 +156,7 @@ describe('describePattern: the cut method', () => {
   });
 
   it('refuses positions outside 0..1', () => {
+    // 0 = toe, 1 = heel (S: GM service manual, 9-1/2 in axle); outside is no position.
     expect(() => describePattern({ side: 'drive', alongTooth: 1.2, upTooth: 0.5 })).toThrow(RangeError);
     expect(() => describePattern({ side: 'drive', alongTooth: 0.5, upTooth: Number.NaN })).toThrow(RangeError);
   });

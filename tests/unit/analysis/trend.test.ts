@@ -66,6 +66,7 @@ describe('fitTrendLine', () => {
   });
 
   it('agrees with simple-statistics on random data', () => {
+    // Independent implementation: simple-statistics linearRegression and rSquared.
     const random = createRandom(36);
     for (let trial = 0; trial < 100; trial++) {
       const points = Array.from({ length: pickInteger(random, 3, 40) }, () => ({
@@ -86,6 +87,7 @@ describe('fitTrendLine', () => {
   });
 
   it('fits two points exactly, with no residual SD left to estimate', () => {
+    // Two points define the line; n − 2 = 0 leaves no residual SD (NIST StRD definition of residual SD).
     const fit = fitTrendLine(line(0.15, 0.001, [10, 30]));
     expect(fit.slope).toBeCloseTo(0.001, 15);
     expect(fit.intercept).toBeCloseTo(0.15, 15);
@@ -94,6 +96,7 @@ describe('fitTrendLine', () => {
   });
 
   it('has no slope when every point is at the same run count, and no R² when values never change', () => {
+    // Sxx = 0 (no run spread) and Syy = 0 (no change): both undefined (D, from the OLS formulas).
     expect(
       fitTrendLine([
         { runs: 5, value: 0.1 },
@@ -106,6 +109,7 @@ describe('fitTrendLine', () => {
   });
 
   it('starts projections from the largest run count, whatever the order of points', () => {
+    // Projections look forward from the last inspection (CP, the README decision on trends).
     expect(fitTrendLine(line(0.1, 0.001, [30, 10, 20])).lastRuns).toBe(30);
   });
 });
@@ -122,6 +126,7 @@ describe('projectTrend', () => {
   });
 
   it('reads a bare number above the line as a max and below it as a min', () => {
+    // 0.3 − 0.002·x = 0.13 → x = 85, worked by hand; the side rule is Lashline’s (CP).
     expect(projectTrend(rising, 0.23)).toMatchObject({ limit: 'max' });
     const falling = fitTrendLine(line(0.3, -0.002, [0, 10, 20]));
     const projection = projectTrend(falling, 0.13);
@@ -130,6 +135,7 @@ describe('projectTrend', () => {
   });
 
   it('gives no crossing when the line moves away from the only limit', () => {
+    // A rising line never meets a min below it (D, worked by hand).
     expect(projectTrend(rising, { min: 0.05 })).toMatchObject({
       projectedRunsAtLimit: null,
       reason: { code: 'moving-away' },
@@ -137,10 +143,12 @@ describe('projectTrend', () => {
   });
 
   it('gives no crossing for a flat trend', () => {
+    // Slope 0 never meets a limit (D).
     expect(projectTrend(fitTrendLine(line(0.15, 0, [0, 10, 20])), { max: 0.23 }).reason?.code).toBe('flat');
   });
 
   it('says when the fitted line is past the limit and not heading back, never when it "passed" it', () => {
+    // 0.1 + 0.002·20 = 0.14 is past 0.12 and rising (worked by hand); the wording is Lashline’s (CP).
     const projection = projectTrend(rising, { max: 0.12 });
     expect(projection.projectedRunsAtLimit).toBeNull();
     expect(projection.reason?.code).toBe('already-past-limit');
@@ -178,6 +186,7 @@ describe('projectTrend: the four cases of issue 16', () => {
   });
 
   it('says a line below the min and rising is coming back toward the band', () => {
+    // 0.08 + 0.002·20 = 0.12 < 0.13 (S: GM 1996), rising (worked by hand); wording CP.
     const fit = fitTrendLine(line(0.08, 0.002, [0, 10, 20])); // 0.08, 0.10, 0.12 — latest reading 0.135 inside
     expect(projectTrend(fit, band, 0.135).reason?.code).toBe('returning');
   });
@@ -193,6 +202,7 @@ describe('projectTrend: the four cases of issue 16', () => {
   });
 
   it('says how many more inspections a projection needs', () => {
+    // Three points for a projection (CP, the README decision on trends).
     expect(projectTrend(fitTrendLine(line(0.1, 0, [0])), 0.23).reason).toEqual({
       code: 'too-few-points',
       message: 'Two more inspections give a projection.',
@@ -203,6 +213,7 @@ describe('projectTrend: the four cases of issue 16', () => {
   });
 
   it('says when all inspections are at one run count, or no limit is given', () => {
+    // Sxx = 0 gives no slope (D); no limit, nothing to project to (CP).
     const sameRuns = fitTrendLine([0.1, 0.12, 0.14].map((value) => ({ runs: 7, value })));
     expect(projectTrend(sameRuns, 0.23).reason?.code).toBe('no-run-spread');
     expect(projectTrend(rising, undefined).reason?.code).toBe('no-limit');
