@@ -105,7 +105,9 @@ export function shapeBacklashTrend(input: GearSetChartInput): TrendChartShape {
   ];
   const step = resolutionStep(resolution, unit);
   const yDomain = valueDomain(values, step);
-  const bandText = `${format(band.min)}–${format(band.max)} ${unit}`;
+  // The band as printed in the reader's unit where it is (0.005–0.009 in), else to the graduation.
+  const printed = input.limitTexts;
+  const bandText = `${printed?.backlashMin ?? format(band.min)}–${printed?.backlashMax ?? format(band.max)} ${unit}`;
 
   let message: string;
   let state: TrendChartShape['state'];

@@ -52,6 +52,17 @@ export interface GearSetChartInput {
     preloadNew: { min: number; max: number };
     preloadUsed: { min: number; max: number };
   };
+  /** Each limit as printed in the reader's unit, where the source prints it there ("0.005", "8"); else absent. */
+  limitTexts?: LimitTexts;
+}
+
+export interface LimitTexts {
+  backlashMin?: string;
+  backlashMax?: string;
+  maxSpread?: string;
+  runoutMax?: string;
+  preloadNew?: { min?: string; max?: string };
+  preloadUsed?: { min?: string; max?: string };
 }
 
 /** The parts of GET /api/gear-sets/:id/analysis the charts read. */
@@ -171,6 +182,14 @@ export function toGearSetChartInput(
       spread: trend('spread'),
     },
     life: analysis.life,
+    limitTexts: {
+      backlashMin: p?.backlashMin[unit],
+      backlashMax: p?.backlashMax[unit],
+      maxSpread: p?.maxSpread[unit],
+      runoutMax: p?.runoutMax[unit],
+      preloadNew: { min: p?.pinionPreloadNew.min[torqueUnit], max: p?.pinionPreloadNew.max[torqueUnit] },
+      preloadUsed: { min: p?.pinionPreloadUsed.min[torqueUnit], max: p?.pinionPreloadUsed.max[torqueUnit] },
+    },
     limits: {
       backlash: { min: len(v.backlashMin, p?.backlashMin), max: len(v.backlashMax, p?.backlashMax) },
       maxSpread: len(v.maxSpread, p?.maxSpread),

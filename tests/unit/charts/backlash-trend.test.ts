@@ -130,3 +130,13 @@ describe('shapeBacklashTrend', () => {
     expect(shapeBacklashTrend(makeInput(RISING, { lifeLimitRuns: null })).lifeLimit).toBeNull();
   });
 });
+
+describe('limits on the charts as printed', () => {
+  it('writes the band as printed in the reader’s unit, not converted to the graduation', () => {
+    // 0.005–0.009 in and 0.002 in (S: GM 1996): on a 0.0005 in dial the graduation would write 0.0050–0.0090.
+    const input = makeInput([{ runs: 5, mean: 0.007, resolution: '0.0005in' }]);
+    const printed = { ...input, limitTexts: { backlashMin: '0.005', backlashMax: '0.009', maxSpread: '0.002' } };
+    expect(shapeBacklashTrend(printed).bands[0]!.label).toBe('band 0.005–0.009 in');
+    expect(shapeBacklashTrend(input).bands[0]!.label).toBe('band 0.0050–0.0090 in');
+  });
+});
