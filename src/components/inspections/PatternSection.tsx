@@ -17,6 +17,12 @@ const PLACE_WORDS: Record<string, string> = {
   'toe-flank': 'Toward the toe and the flank',
 };
 
+const CUT_WORDS: Record<CutMethod, string> = {
+  'face-milled': 'This set is face-milled.',
+  'face-hobbed': 'This set is face-hobbed: follow the gear maker’s pattern chart for it.',
+  unknown: 'How this set was cut is not recorded: the guidance reads it as face-milled.',
+};
+
 /** The drive and coast contact patterns, each with the usual correction as guidance. */
 export function PatternSection({ disabled, cutMethod }: { disabled: boolean; cutMethod: CutMethod }) {
   return (
@@ -27,6 +33,9 @@ export function PatternSection({ disabled, cutMethod }: { disabled: boolean; cut
       <p className="mb-4 text-sm text-ink-soft">
         Drive side: the convex side of the ring-gear tooth; coast side: the concave side. Check the pattern under load
         (about 54–68 N·m / 40–50 lbf·ft of pinion turning resistance, GM 9-1/2 in manual).
+      </p>
+      <p className="mb-4 text-sm text-ink-soft" data-testid="pattern-cut-method">
+        {CUT_WORDS[cutMethod]} Depth corrections are read from the drive side; the coast side is a cross-check.
       </p>
       <div className="grid gap-6 lg:grid-cols-2">
         <PatternSide side="drive" disabled={disabled} cutMethod={cutMethod} />
