@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_PROFILE } from '../../../src/lib/analysis/tolerance';
 import { parseDecimalText, parseIndicatorText, parseLengthText } from '../../../src/lib/inspections/entry-text';
-import { computeLiveFigures, judgePreload } from '../../../src/lib/inspections/live-figures';
+import { computeLiveFigures, judgeMeasuredRunout, judgePreload } from '../../../src/lib/inspections/live-figures';
+import { summariseInspection } from '../../../src/lib/inspections/summary';
 import {
   resizeReadings,
   sheetToPatchBody,
@@ -130,5 +131,51 @@ describe('the sheet values', () => {
     });
     expect(sheetToPatchBody(sheet)).not.toHaveProperty('gearSetId');
     expect(sheetToPatchBody(sheet)).toMatchObject({ readings: [null, null, null] });
+  });
+});
+
+describe('the same verdicts live and saved', () => {
+  it('judges the same measures with the same verdicts while typing as the saved summary keeps', () => {
+    // An inch sheet (invented figures): readings, back-face runout and used-bearing torque, with tooth counts so
+    // the runout estimate is judged too. Stored as the sheet stores them: × 25.4 and × 0.1129848290276167 (NIST).
+    const readings = [0.009, 0.006, 0.005, 0.007];
+    const basis = { unit: 'in' as const, torqueUnit: 'lbf-in' as const, resolution: '0.001in' };
+    const geometry = { ringTeeth: 41, pinionTeeth: 10, pressureAngleDeg: 20 };
+    const live = [
+      ...computeLiveFigures(readings, 'in', DEFAULT_PROFILE, geometry, '0.001in').verdicts,
+      judgeMeasuredRunout(0.004, basis, DEFAULT_PROFILE)!,
+      judgePreload(13, 'used', basis, DEFAULT_PROFILE)!,
+    ];
+    const saved = summariseInspection(
+      {
+        entry: { unit: 'in', resolution: '0.001in', torqueUnit: 'lbf-in' },
+        runsChangeReason: null,
+        backlashMm: readings.map((r) => r * 25.4),
+        runoutMm: { backFace: 0.004 * 25.4, radial: null },
+        pinion: { shimsMm: [], depthChangeMm: null, marking: null },
+        carrierShimsMm: { left: null, right: null },
+        preload: {
+          pinionNm: 13 * 0.1129848290276167,
+          bearings: 'used',
+          hubLeft: { unchanged: null, torqueNm: null },
+          hubRight: { unchanged: null, torqueNm: null },
+        },
+        patterns: { drive: null, coast: null },
+        condition: { teeth: [], splines: 'none', bearings: 'none', seals: 'none' },
+        notes: null,
+      },
+      DEFAULT_PROFILE,
+      geometry,
+      { lengthUnit: 'in', torqueUnit: 'lbf-in' },
+    ).verdicts;
+    const pairs = (list: readonly { measure: string; verdict: string }[]) => list.map((v) => [v.measure, v.verdict]);
+    expect(pairs(saved)).toEqual(pairs(live));
+    // Spread 0.004 in over 0.002 in (S: GM 1996), runout 0.004 in over 0.003 in (S: Ford 1997), 13 lbf·in over
+    // 12 lbf·in (S: GM, 7-1/2 in axle): each out, live and saved alike.
+    expect(
+      pairs(saved)
+        .filter(([, v]) => v === 'out-of-band')
+        .map(([m]) => m),
+    ).toEqual(['spread', 'runout', 'runout-measured', 'pinion-preload-used']);
   });
 });
