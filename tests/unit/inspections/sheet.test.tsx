@@ -40,6 +40,22 @@ describe('the inspection sheet', { timeout: 20_000 }, () => {
     expect(screen.getByLabelText<HTMLSelectElement>('Indicator resolution').value).toBe('0.01mm');
   });
 
+  it('reads shims typed in thousandths as thousandths, and a half-thousandth reading as 0.0085 in', async () => {
+    const { user } = await openSheet();
+    // "8.5" on an inch backlash field: over 2.5 mm = 0.0984 in as inches, 0.0085 in as thousandths (CP).
+    await user.type(screen.getByTestId('reading-1'), '8.5');
+    expect(screen.getByTestId('reading-1-note').textContent).toBe(
+      '= 0.0085 in — finer than a 0.001 in indicator reads',
+    );
+    // "25" and "3" on the shim stack: 0.025 in and 0.003 in, never 25 in (the sheet once showed "Total: 28.000 in").
+    await user.click(screen.getByRole('button', { name: 'Add a shim' }));
+    await user.type(screen.getByTestId('shim-0'), '25');
+    await user.click(screen.getByRole('button', { name: 'Add a shim' }));
+    await user.type(screen.getByTestId('shim-1'), '3');
+    expect(screen.getByTestId('shim-0-note').textContent).toBe('= 0.025 in');
+    expect(screen.getByTestId('shim-total').textContent).toContain('0.028 in');
+  });
+
   it('moves to the next position on Enter, and from the last one to the next section', async () => {
     const { user } = await openSheet();
     await user.click(screen.getByTestId('reading-1'));
