@@ -192,6 +192,14 @@ export const parts = sqliteTable(
     pressureAngleDeg: real('pressure_angle_deg'),
     // The tolerance profile the set is judged by; null means the team's default profile.
     toleranceProfileId: text('tolerance_profile_id'),
+    // Gear sets only: how the teeth were cut, which decides the contact-pattern guidance (face-hobbed sets get the
+    // gear maker's chart, not the toe/heel rule), and the runout factor k as a spiral angle or a typed k (null:
+    // k from the tooth counts and pressure angle alone).
+    cutMethod: text('cut_method', { enum: ['face-milled', 'face-hobbed', 'unknown'] })
+      .notNull()
+      .default('unknown'),
+    spiralAngleDeg: real('spiral_angle_deg'),
+    runoutK: real('runout_k'),
     createdAt: createdAt(),
   },
   (table) => [

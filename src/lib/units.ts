@@ -114,20 +114,21 @@ function requireResolution(resolution: ResolutionLike): IndicatorResolution {
 // Float products such as 0.0254 / 25.4 land a hair off a decade; this keeps them on it.
 const DIGIT_TOLERANCE = 1e-9;
 
+/** One graduation of a resolution, in `unit`. */
+export function resolutionToStep(resolutionLike: ResolutionLike, unit: LengthUnit): number {
+  const resolution = requireResolution(resolutionLike);
+  return resolution.unit === unit ? resolution.step : mmToLength(resolution.mm, unit);
+}
+
 /**
  * Number of decimals a value may show in `displayUnit` without claiming more than the indicator resolves.
- * Rule: show down to the decimal place of the graduation's leading digit; if the graduation is not a
- * whole number of units at that place (a converted step such as 0.0254 mm), show one digit more, so rounding
- * moves a value by at most a twentieth of a graduation. Never more than one digit finer than the graduation.
- * @example decimalsForResolution('0.001in', 'mm') // 3 (0.0254 mm → 0.025)
+ * TRADE.md's rule (CP): d decimals where 10^-d is the largest power of ten not above the graduation in the
+ * reader's unit (0.01 mm is 0.000394 in: 4 decimals; 0.001 in is 0.0254 mm: 2 decimals).
+ * @example decimalsForResolution('0.001in', 'mm') // 2 (0.0254 mm → 0.03)
  */
 export function decimalsForResolution(resolutionLike: ResolutionLike, displayUnit: LengthUnit): number {
-  const resolution = requireResolution(resolutionLike);
-  const step = resolution.unit === displayUnit ? resolution.step : mmToLength(resolution.mm, displayUnit);
-  const leadingPlace = -Math.floor(Math.log10(step) + DIGIT_TOLERANCE);
-  const scaled = step * 10 ** leadingPlace;
-  const isWholeAtPlace = Math.abs(scaled - Math.round(scaled)) <= DIGIT_TOLERANCE * scaled;
-  return Math.max(0, isWholeAtPlace ? leadingPlace : leadingPlace + 1);
+  const step = resolutionToStep(resolutionLike, displayUnit);
+  return Math.max(0, -Math.floor(Math.log10(step) + DIGIT_TOLERANCE));
 }
 
 /**
@@ -144,55 +145,75 @@ export function formatLength(mm: number, unit: LengthUnit, resolution: Resolutio
   return (rounded / factor).toFixed(decimals);
 }
 
-/** How a typed indicator entry was read. */
+/** How a typed length entry was read. */
 export type EntryInterpretation = 'as-typed' | 'thousandths' | 'hundredths';
 
-/** Result of reading a typed indicator entry. */
-export type IndicatorEntry =
+/** Result of reading a typed length entry. */
+export type LengthEntry =
   | {
       readonly ok: true;
-      /** The reading in the entry unit. */
+      /** The value in the entry unit. */
       readonly value: number;
       readonly interpretedAs: EntryInterpretation;
       /** What was typed, trimmed. */
       readonly input: string;
-      /** Sentence to show beside the field, e.g. "10 read as thousandths: 0.010 in". */
+      /** The value as read, to show under the field: "= 0.0085 in". */
       readonly text: string;
     }
   | {
       readonly ok: false;
-      readonly code: 'empty' | 'not-a-number' | 'negative';
+      readonly code: 'empty' | 'not-a-number' | 'negative' | 'too-large';
       readonly input: string;
+      /** Why the entry is refused, worded in the entry unit. */
       readonly text: string;
     };
 
-const NUMBER_PATTERN = /^\+?(?:\d+(?:[.,]\d*)?|[.,]\d+)$/;
-const WHOLE_PATTERN = /^\+?\d+$/;
+/** What a length field accepts: its largest magnitude in mm, and whether it may be negative. */
+export interface LengthFieldLimit {
+  readonly maxMm: number;
+  readonly signed?: boolean;
+}
+
+const NUMBER_PATTERN = /^[+-]?(?:\d+(?:[.,]\d*)?|[.,]\d+)$/;
+
+// Twelve significant digits: far below any graduation, and no float tail in "= 0.0085 in".
+const cleanNumber = (value: number): number => Number(value.toPrecision(12));
 
 /**
- * Reads a typed dial-indicator entry with the shop's "thousandths entry rule".
- * Inches: a whole number ≥ 1 is thousandths ("10" → 0.010 in), as technicians say "ten thou".
- * Millimetres: a whole number ≥ 1 is hundredths ("13" → 0.13 mm), the graduation of a metric dial.
- * A whole number ≥ 1 in or ≥ 1 mm is never a lash or runout reading, so the rule cannot hide a real value.
- * Anything with a decimal point (or comma) is taken as typed; "0" stays 0.
- * @example interpretIndicatorEntry('10', 'in') // { ok: true, value: 0.01, interpretedAs: 'thousandths', … }
+ * A field's limit in its entry unit, for messages: 2.5 mm → "0.0984 in".
+ * @example lengthLimitToText(5, 'in') // '0.1969 in'
  */
-export function interpretIndicatorEntry(text: string, unit: LengthUnit): IndicatorEntry {
+export function lengthLimitToText(maxMm: number, unit: LengthUnit): string {
+  return unit === 'in' ? `${mmToLength(maxMm, 'in').toFixed(4)} in` : `${maxMm} mm`;
+}
+
+/**
+ * Reads a typed length with the sheet's one entry rule. A number within the field's limit is taken as typed; a
+ * number above it is read as thousandths of an inch (hundredths of a millimetre on a metric sheet) when that lands
+ * inside the limit, as technicians say "eight and a half thou" and a metric dial reads in hundredths; otherwise it
+ * is refused, in the entry unit. The value as read is always given back to show under the field (CP).
+ * @example readLengthEntry('8.5', 'in', { maxMm: 2.5 }) // { ok: true, value: 0.0085, interpretedAs: 'thousandths', text: '= 0.0085 in' }
+ */
+export function readLengthEntry(text: string, unit: LengthUnit, limit: LengthFieldLimit): LengthEntry {
   const input = text.trim();
-  if (input === '') return { ok: false, code: 'empty', input, text: 'Type a reading.' };
-  if (input.startsWith('-') && NUMBER_PATTERN.test(input.slice(1))) {
-    return { ok: false, code: 'negative', input, text: `"${input}" is negative; an indicator reading is 0 or more.` };
-  }
+  if (input === '') return { ok: false, code: 'empty', input, text: 'Type a value.' };
   if (!NUMBER_PATTERN.test(input)) {
     return { ok: false, code: 'not-a-number', input, text: `"${input}" is not a number; type e.g. 0.008 or 8.` };
   }
   const typed = Number(input.replace(',', '.'));
-  if (WHOLE_PATTERN.test(input) && typed >= 1) {
-    const isInch = unit === 'in';
-    const value = typed / (isInch ? 1000 : 100);
-    const interpretedAs: EntryInterpretation = isInch ? 'thousandths' : 'hundredths';
-    const shown = value.toFixed(isInch ? 3 : 2);
-    return { ok: true, value, interpretedAs, input, text: `${input} read as ${interpretedAs}: ${shown} ${unit}` };
+  if (typed < 0 && !limit.signed) {
+    return { ok: false, code: 'negative', input, text: `"${input}" is negative; give 0 or more.` };
   }
-  return { ok: true, value: typed, interpretedAs: 'as-typed', input, text: `${input} ${unit} as typed` };
+  const fits = (value: number) => Math.abs(lengthToMm(value, unit)) <= limit.maxMm * (1 + DIGIT_TOLERANCE);
+  const read = (value: number, interpretedAs: EntryInterpretation): LengthEntry => {
+    const clean = cleanNumber(value);
+    return { ok: true, value: clean, interpretedAs, input, text: `= ${clean} ${unit}` };
+  };
+  if (fits(typed)) return read(typed, 'as-typed');
+  const isInch = unit === 'in';
+  const scaled = typed / (isInch ? 1000 : 100);
+  if (fits(scaled)) return read(scaled, isInch ? 'thousandths' : 'hundredths');
+  const most = `${limit.signed ? '±' : ''}${lengthLimitToText(limit.maxMm, unit)}`;
+  const how = isInch ? 'thousandths' : 'hundredths';
+  return { ok: false, code: 'too-large', input, text: `"${input}" is over ${most}, even read as ${how}.` };
 }

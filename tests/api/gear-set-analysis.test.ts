@@ -28,10 +28,13 @@ describe('GET /api/gear-sets/:id/analysis', () => {
     const id = await newSet('TR-EMPTY');
     const empty = (await chief.get(`/api/gear-sets/${id}/analysis`)).body;
     expect(empty).toMatchObject({ inspectionCount: 0, latest: null, change: null, recommendation: null });
-    expect(empty.trends[0].projection.reason.code).toBe('too-few-points');
+    const tightest = (body: {
+      trends: { measure: string; projection: { reason: { code: string; message: string } } }[];
+    }) => body.trends.find((t) => t.measure === 'backlash-min-point')!;
+    expect(tightest(empty).projection.reason.code).toBe('too-few-points');
     await submitInspection(chief, draftBody(id, mm([0.18, 0.17, 0.16, 0.17], 5)));
     const one = (await chief.get(`/api/gear-sets/${id}/analysis`)).body;
-    expect(one.trends[0].projection.reason.message).toBe('Two more inspections give a projection.');
+    expect(tightest(one).projection.reason.message).toBe('Two more inspections give a projection.');
     expect(one.recommendation.action).toBe('keep');
   });
 
@@ -45,21 +48,25 @@ describe('GET /api/gear-sets/:id/analysis', () => {
     const mean = analysis.trends.find((t: { measure: string }) => t.measure === 'backlash-mean');
     expect(mean.fit.slope).toBeCloseTo(0.002, 12);
     expect(mean.fit.r2).toBeCloseTo(1, 12);
-    expect(mean.projection.projectedRunsAtLimit).toBeCloseTo(40, 9);
-    expect(mean.projection.limit).toBe('max');
+    // The band is for the points (S: GM 1996, "at the minimum point"): the mean is drawn, never projected; the
+    // loosest point 0.16, 0.18, 0.20 mm meets 0.23 mm at run 35.
+    expect(mean.projection.reason.code).toBe('mean-not-projected');
+    const loosest = analysis.trends.find((t: { measure: string }) => t.measure === 'backlash-max-point');
+    expect(loosest.projection.projectedRunsAtLimit).toBeCloseTo(35, 9);
+    expect(loosest.projection.limit).toBe('max');
     // Each reading moved 0.02 mm: exactly 2 × the 0.01 mm resolution, which is not beyond it.
     const change = analysis.change.find((c: { measure: string }) => c.measure === 'mean');
     expect(change.delta).toBeCloseTo(0.02, 12);
     expect(change.flagged).toBe(false);
     expect(analysis.life).toMatchObject({ totalRuns: 0, lifeLimitRuns: 50 });
-    // 20 runs to the limit: beyond the default service interval of 8 runs, so nothing to do yet …
+    // 15 runs to the limit: beyond the default service interval of 8 runs, so nothing to do yet …
     expect(analysis.recommendation.action).toBe('keep');
     // … but within a 25-run interval the set is re-shimmed before it gets there.
     expect((await chief.patch('/api/team/settings', { serviceIntervalRuns: 25 })).status).toBe(200);
     const later = (await chief.get(`/api/gear-sets/${id}/analysis`)).body;
     expect(later.recommendation.action).toBe('re-shim');
     expect(later.recommendation.reasons.map((r: { code: string }) => r.code)).toContain(
-      'backlash-mean-limit-before-next-service',
+      'backlash-max-point-limit-before-next-service',
     );
     await chief.patch('/api/team/settings', { serviceIntervalRuns: 8 });
   });

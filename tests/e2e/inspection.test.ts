@@ -50,11 +50,12 @@ describe('the inspection sheet in a real browser', () => {
     await expect.poll(() => page.getByTestId('runs').inputValue()).toMatch(/^\d+$/);
     await expect.poll(() => sheet.getAttribute('data-offline-ready'), { timeout: 15_000 }).toBe('true');
 
-    // Readings in thousandths, Enter to the next position; from the last one on to the runout.
+    // Readings in thousandths (over the field's limit as inches, so read as thou), Enter to the next position;
+    // from the last one on to the runout. The value as read shows under the field.
     await page.getByTestId('reading-1').focus();
     await page.keyboard.type('8');
     await page.keyboard.press('Enter');
-    expect(await page.getByTestId('reading-1-note').textContent()).toBe('read as 0.008 in (thousandths)');
+    expect(await page.getByTestId('reading-1-note').textContent()).toBe('= 0.008 in');
     for (const value of ['7', '6', '7']) {
       await page.keyboard.type(value);
       await page.keyboard.press('Enter');
@@ -189,7 +190,14 @@ describe('the inspection sheet in a real browser', () => {
     await row.getByRole('link').click();
     await page.waitForURL(`${server.baseUrl}/inspections/${inspectionId}`);
     expect(await page.getByTestId('inspection-status').textContent()).toContain('Submitted');
-    expect(await page.getByTestId('detail-verdicts').textContent()).toContain('Out of band');
+    // Spread 0.002 in sits on GM's printed 0.002 in (S: GM 1996): near the limit, never out of band against
+    // 0.05 mm = 0.00197 in; the limit shown as printed and judged at the dial it was read on.
+    const verdicts = await page.getByTestId('detail-verdicts').textContent();
+    expect(verdicts).toContain('Near a limit — Spread');
+    expect(verdicts).not.toContain('Out of band');
+    expect(verdicts).toContain(
+      'Upper limit 0.002 in, less than a graduation inside, judged at the 0.001 in graduation',
+    );
     expect(await page.getByTestId('detail-photos-drive').locator('img').count()).toBe(1);
     // A technician cannot edit a submitted inspection.
     expect(await page.getByTestId('edit-link').count()).toBe(0);

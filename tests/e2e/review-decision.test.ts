@@ -32,7 +32,7 @@ describe('a crew chief decides a review in the browser', () => {
     await page.waitForURL(/\/reviews\/[\w-]+$/);
     const evidence = page.getByTestId('evidence');
     expect(await evidence.getByText(/Lashline suggests: ■ Retire/).count()).toBe(1);
-    expect(await evidence.getByText(/reach the life limit of 50/).count()).toBe(1);
+    expect(await evidence.getByText(/runs over the life limit of 50/).count()).toBe(1);
     expect(
       await evidence
         .getByRole('row', { name: /Back-face runout \(measured\)/ })

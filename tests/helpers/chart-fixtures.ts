@@ -21,7 +21,17 @@ const MAX_SPREAD = 0.002;
 function trendOf(points: { runs: number; value: number }[], limits: { min?: number; max?: number }): ChartTrend | null {
   if (points.length === 0) return null;
   const fit = fitTrendLine(points);
-  return { fit, limits, projection: projectTrend(fit, limits) };
+  return { fit, limits, projection: projectTrend(fit, limits, points.at(-1)!.value) };
+}
+
+/** The mean as the server answers it: drawn with its fit, never projected (the band is for the points). */
+function meanTrendOf(
+  points: { runs: number; value: number }[],
+  limits: { min?: number; max?: number },
+): ChartTrend | null {
+  if (points.length === 0) return null;
+  const reason = { code: 'mean-not-projected' as const, message: 'The mean is not projected.' };
+  return { fit: fitTrendLine(points), limits, projection: { projectedRunsAtLimit: null, runsToLimit: null, reason } };
 }
 
 export function makeInput(readings: Reading[], options: { lifeLimitRuns?: number | null } = {}): GearSetChartInput {
@@ -47,8 +57,16 @@ export function makeInput(readings: Reading[], options: { lifeLimitRuns?: number
     torqueUnit: 'lbf-in',
     inspections,
     trends: {
-      backlashMean: trendOf(
+      backlashMean: meanTrendOf(
         inspections.map((i) => ({ runs: i.runs, value: i.backlash!.mean })),
+        BAND,
+      ),
+      backlashMin: trendOf(
+        inspections.map((i) => ({ runs: i.runs, value: i.backlash!.min })),
+        BAND,
+      ),
+      backlashMax: trendOf(
+        inspections.map((i) => ({ runs: i.runs, value: i.backlash!.max })),
         BAND,
       ),
       spread: trendOf(

@@ -4,7 +4,7 @@ import {
   findResolution,
   formatLength,
   INDICATOR_RESOLUTIONS,
-  interpretIndicatorEntry,
+  readLengthEntry,
   lengthToMm,
   mmToLength,
   NM_PER_LBFFT,
@@ -34,13 +34,16 @@ describe('length conversion', () => {
     expect(mmToLength(0.13, 'mm')).toBe(0.13);
   });
 
-  it('matches the inch figures the GM and Ford manuals print beside their mm figures', () => {
-    // TRADE.md (S: GM light-truck service manual, 8-5/8 in ring gear axle, 1996): 0.13–0.23 mm (0.005–0.009 in)
-    expect(mmToLength(0.13, 'in')).toBeCloseTo(0.005, 3);
-    expect(mmToLength(0.23, 'in')).toBeCloseTo(0.009, 3);
-    // TRADE.md (S: both GM manuals): 0.05 mm (0.002 in); (S: Ford light-truck service manual, 1997): 0.076 mm (0.003 in)
-    expect(mmToLength(0.05, 'in')).toBeCloseTo(0.002, 3);
-    expect(mmToLength(0.076, 'in')).toBeCloseTo(0.003, 4);
+  it('keeps the printed inch figures apart from the converted mm figures: they are rounded, not equal', () => {
+    // TRADE.md (Units): "0.005 in is 0.127 mm" — 1 in = 25.4 mm exactly (NIST SP 811 (2008) App. B)
+    expect(lengthToMm(0.005, 'in')).toBeCloseTo(0.127, 15);
+    // TRADE.md (S: GM 1996) prints 0.13 mm beside 0.005 in: 0.13 mm is 0.005118… in, a tenth of a thou more,
+    // which an inch dial at 0.0001 in tells apart (NIST SP 811: 0.13 / 25.4).
+    expect(Math.abs(mmToLength(0.13, 'in') - 0.005)).toBeGreaterThan(0.0001);
+    // (S: both GM manuals) 0.05 mm beside 0.002 in: 0.001969 in, below the printed inch figure.
+    expect(mmToLength(0.05, 'in')).toBeLessThan(0.002);
+    // (S: Ford 1997) 0.076 mm beside 0.003 in: 0.003 in is 0.0762 mm.
+    expect(lengthToMm(0.003, 'in')).toBeCloseTo(0.0762, 15);
   });
 
   it('round-trips random lengths both ways to 1e-15 relative', () => {
@@ -117,28 +120,30 @@ describe('indicator resolutions', () => {
     expect(findResolution('0.1in')).toBeUndefined();
   });
 
+  // TRADE.md (Units, CP): d decimals where 10^-d is the largest power of ten not above the graduation in the
+  // reader's unit. Each row works the graduation out by hand (NIST SP 811: 1 in = 25.4 mm) and names that power.
   it.each([
-    ['0.001in', 'in', 3],
-    ['0.0005in', 'in', 4],
-    ['0.0001in', 'in', 4],
-    ['0.01mm', 'mm', 2],
-    ['0.002mm', 'mm', 3],
-    ['0.001in', 'mm', 3],
-    ['0.0005in', 'mm', 3],
-    ['0.0001in', 'mm', 4],
-    ['0.01mm', 'in', 5],
-    ['0.002mm', 'in', 6],
+    ['0.001in', 'in', 3], //   0.001 in            → 0.001
+    ['0.0005in', 'in', 4], //  0.0005 in           → 0.0001
+    ['0.0001in', 'in', 4], //  0.0001 in           → 0.0001
+    ['0.01mm', 'mm', 2], //    0.01 mm             → 0.01
+    ['0.002mm', 'mm', 3], //   0.002 mm            → 0.001
+    ['0.001in', 'mm', 2], //   0.0254 mm           → 0.01
+    ['0.0005in', 'mm', 2], //  0.0127 mm           → 0.01
+    ['0.0001in', 'mm', 3], //  0.00254 mm          → 0.001
+    ['0.01mm', 'in', 4], //    0.000394 in         → 0.0001 (TRADE.md's own example)
+    ['0.002mm', 'in', 5], //   0.0000787 in        → 0.00001
   ] as const)('shows a %s reading in %s with %i decimals', (id, unit, decimals) => {
     expect(decimalsForResolution(resolution(id), unit)).toBe(decimals);
   });
 
-  it('never shows a coarser place than the graduation, nor more than one digit past its leading digit', () => {
+  it('never shows a place finer than the graduation, nor a coarser place than its leading digit', () => {
     for (const r of INDICATOR_RESOLUTIONS) {
       for (const unit of ['in', 'mm'] as LengthUnit[]) {
         const step = mmToLength(r.mm, unit);
         const decimals = decimalsForResolution(r, unit);
         expect(10 ** -decimals).toBeLessThanOrEqual(step * (1 + 1e-9));
-        expect(10 ** -(decimals - 2)).toBeGreaterThan(step);
+        expect(10 ** -(decimals - 1)).toBeGreaterThan(step);
       }
     }
   });
@@ -163,9 +168,10 @@ describe('formatLength', () => {
     expect(formatLength(lengthToMm(0.008, 'in'), 'in', resolution('0.001in'))).toBe('0.008');
   });
 
-  it('shows 0.003 in in mm with three decimals, so it compares with the 0.076 mm Ford limit', () => {
-    // TRADE.md (S: Ford light-truck service manual, 1997): 0.076 mm (0.003 in)
-    expect(formatLength(lengthToMm(0.003, 'in'), 'mm', resolution('0.001in'))).toBe('0.076');
+  it('shows an inch reading in mm with no more digits than the dial resolves', () => {
+    // 0.003 in = 0.0762 mm (NIST SP 811); a 0.001 in dial is 0.0254 mm: 2 decimals; a 0.0001 in dial: 3 (CP rule)
+    expect(formatLength(lengthToMm(0.003, 'in'), 'mm', resolution('0.001in'))).toBe('0.08');
+    expect(formatLength(lengthToMm(0.003, 'in'), 'mm', resolution('0.0001in'))).toBe('0.076');
   });
 
   it('rounds halves away from zero without being thrown by float noise', () => {
@@ -179,38 +185,59 @@ describe('formatLength', () => {
   });
 });
 
-describe('the thousandths entry rule', () => {
-  it('reads a whole number in inches as thousandths', () => {
-    const entry = interpretIndicatorEntry('10', 'in');
-    expect(entry).toMatchObject({ ok: true, value: 0.01, interpretedAs: 'thousandths' });
-    expect(entry.text).toBe('10 read as thousandths: 0.010 in');
+describe('the entry rule for every length field', () => {
+  // The sheet's limits: a reading at most 2.5 mm, a shim at most 5 mm, a depth change at most ±5 mm.
+  const reading = { maxMm: 2.5 };
+  const shim = { maxMm: 5 };
+  const depth = { maxMm: 5, signed: true };
+
+  it('takes a number within the field limit as typed and shows it as read', () => {
+    expect(readLengthEntry('0.010', 'in', reading)).toMatchObject({ ok: true, value: 0.01, interpretedAs: 'as-typed' });
+    expect(readLengthEntry('.008', 'in', reading)).toMatchObject({ ok: true, value: 0.008, text: '= 0.008 in' });
+    expect(readLengthEntry('0,13', 'mm', reading)).toMatchObject({ ok: true, value: 0.13, text: '= 0.13 mm' });
+    expect(readLengthEntry('0', 'in', reading)).toMatchObject({ ok: true, value: 0 });
   });
 
-  it('takes a value with a decimal point as typed', () => {
-    expect(interpretIndicatorEntry('0.010', 'in')).toMatchObject({ ok: true, value: 0.01, interpretedAs: 'as-typed' });
-    expect(interpretIndicatorEntry('.008', 'in')).toMatchObject({ ok: true, value: 0.008, interpretedAs: 'as-typed' });
-    expect(interpretIndicatorEntry('10.', 'in')).toMatchObject({ ok: true, value: 10, interpretedAs: 'as-typed' });
+  it('reads a number above the limit as thousandths of an inch when that lands inside it', () => {
+    // A half-thousandth dial read as "8.5 thou" (CP): 8.5 in is over 2.5 mm = 0.0984 in; 0.0085 in is inside.
+    expect(readLengthEntry('8.5', 'in', reading)).toEqual({
+      ok: true,
+      value: 0.0085,
+      interpretedAs: 'thousandths',
+      input: '8.5',
+      text: '= 0.0085 in',
+    });
+    expect(readLengthEntry('  10 ', 'in', reading)).toMatchObject({ value: 0.01, input: '10', text: '= 0.01 in' });
+    // A shim "25" (thou) is 0.025 in, never 25 in.
+    expect(readLengthEntry('25', 'in', shim)).toMatchObject({ ok: true, value: 0.025, text: '= 0.025 in' });
   });
 
-  it('reads a whole number in millimetres as hundredths', () => {
-    expect(interpretIndicatorEntry('13', 'mm')).toMatchObject({ ok: true, value: 0.13, interpretedAs: 'hundredths' });
-    expect(interpretIndicatorEntry('0.13', 'mm')).toMatchObject({ ok: true, value: 0.13, interpretedAs: 'as-typed' });
+  it('reads a number above the limit as hundredths of a millimetre on a metric sheet', () => {
+    expect(readLengthEntry('13', 'mm', reading)).toMatchObject({ value: 0.13, interpretedAs: 'hundredths' });
+    // Within the limit a metric number is taken as typed: 2 mm is a possible (if large) figure.
+    expect(readLengthEntry('2', 'mm', reading)).toMatchObject({ value: 2, interpretedAs: 'as-typed' });
   });
 
-  it('keeps zero as zero and trims spaces', () => {
-    expect(interpretIndicatorEntry('0', 'in')).toMatchObject({ ok: true, value: 0, interpretedAs: 'as-typed' });
-    expect(interpretIndicatorEntry('  8 ', 'in')).toMatchObject({ ok: true, value: 0.008, input: '8' });
+  it('reads a signed depth change the same way', () => {
+    expect(readLengthEntry('-4', 'in', depth)).toMatchObject({ ok: true, value: -0.004, interpretedAs: 'thousandths' });
+    expect(readLengthEntry('-4', 'in', shim)).toMatchObject({ ok: false, code: 'negative' });
   });
 
-  it('accepts a decimal comma', () => {
-    expect(interpretIndicatorEntry('0,13', 'mm')).toMatchObject({ ok: true, value: 0.13, interpretedAs: 'as-typed' });
+  it('refuses a number too large even as thousandths, in the entry unit', () => {
+    // 250 thou = 0.25 in, over 5 mm = 0.1969 in (NIST SP 811: 5 / 25.4)
+    expect(readLengthEntry('250', 'in', shim)).toEqual({
+      ok: false,
+      code: 'too-large',
+      input: '250',
+      text: '"250" is over 0.1969 in, even read as thousandths.',
+    });
+    expect(readLengthEntry('600', 'mm', shim)).toMatchObject({ ok: false, text: expect.stringContaining('5 mm') });
   });
 
-  it('rejects empty, non-numeric and negative entries with a code', () => {
-    expect(interpretIndicatorEntry('  ', 'in')).toMatchObject({ ok: false, code: 'empty' });
+  it('rejects empty and non-numeric entries with a code', () => {
+    expect(readLengthEntry('  ', 'in', reading)).toMatchObject({ ok: false, code: 'empty' });
     for (const text of ['abc', '1e-3', '0.01.2', '0x10', '1 0']) {
-      expect(interpretIndicatorEntry(text, 'in')).toMatchObject({ ok: false, code: 'not-a-number' });
+      expect(readLengthEntry(text, 'in', reading)).toMatchObject({ ok: false, code: 'not-a-number' });
     }
-    expect(interpretIndicatorEntry('-5', 'mm')).toMatchObject({ ok: false, code: 'negative' });
   });
 });

@@ -28,6 +28,8 @@ export default function VerdictTable({
     );
   }
   const rows = verdictsToRows(verdicts, engineCount, resolution);
+  // Every length verdict of one inspection is judged at its one dial: say it once under the table.
+  const judgedAt = rows.find((row) => row.judgedAt.includes('graduation'))?.judgedAt;
   return (
     <div className="relative overflow-x-auto">
       <table className="data-table" data-testid="verdict-table">
@@ -63,6 +65,11 @@ export default function VerdictTable({
           ))}
         </tbody>
       </table>
+      {judgedAt && (
+        <p className="mt-1 text-sm text-ink-soft" data-testid="verdict-table-judged-at">
+          {`Lengths ${judgedAt}; each limit as published in the unit shown.`}
+        </p>
+      )}
     </div>
   );
 }

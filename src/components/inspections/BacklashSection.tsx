@@ -1,6 +1,6 @@
 import { useContext } from 'react';
 import { useFormContext, useWatch } from 'react-hook-form';
-import { computeLiveFigures } from '../../lib/inspections/live-figures';
+import { computeLiveFigures, showSheetVerdicts } from '../../lib/inspections/live-figures';
 import { resizeReadings, type SheetValues } from '../../lib/inspections/sheet-values';
 import { formatLength, lengthToMm, type IndicatorResolutionId } from '../../lib/units';
 import { EntryField, EntryTextsContext, SheetSection } from './fields';
@@ -13,14 +13,27 @@ const POSITION_CHOICES = Array.from({ length: 22 }, (_, i) => i + 3);
 /** The backlash readings around the ring gear, with the live figures and the polar preview. */
 export function BacklashSection({ context, disabled }: { context: SheetContext; disabled: boolean }) {
   const { control, setValue, getValues } = useFormContext<SheetValues>();
-  const [readings, unit, resolution] = useWatch({ control, name: ['readings', 'unit', 'resolution'] });
+  const [readings, unit, resolution, torqueUnit] = useWatch({
+    control,
+    name: ['readings', 'unit', 'resolution', 'torqueUnit'],
+  });
   const profile = context.profile?.values ?? null;
   const set = context.gearSet;
-  const figures = computeLiveFigures(readings, unit, profile, {
-    ringTeeth: set?.ringTeeth,
-    pinionTeeth: set?.pinionTeeth,
-    pressureAngleDeg: set?.pressureAngleDeg,
-  });
+  const figures = computeLiveFigures(
+    readings,
+    unit,
+    profile,
+    {
+      ringTeeth: set?.ringTeeth,
+      pinionTeeth: set?.pinionTeeth,
+      pressureAngleDeg: set?.pressureAngleDeg,
+      spiralAngleDeg: set?.spiralAngleDeg,
+      runoutK: set?.runoutK,
+    },
+    resolution,
+  );
+  const basis = { unit, torqueUnit: torqueUnit ?? 'lbf-in', resolution };
+  const shownVerdicts = profile ? showSheetVerdicts(figures.verdicts, profile, basis) : [];
   const format = (value: number) => formatLength(lengthToMm(value, unit), unit, resolution as IndicatorResolutionId);
   const count = readings.length;
 
@@ -43,7 +56,8 @@ export function BacklashSection({ context, disabled }: { context: SheetContext; 
     <SheetSection id="backlash" title="Backlash">
       <p className="mb-3 text-sm text-ink-soft">
         Indicator stem at the heel end of a ring-gear tooth, in line with rotation; hold the pinion and rock the ring
-        gear. Type thousandths as whole numbers: 10 is read as 0.010 in, 13 as 0.13 mm.
+        gear. A number too large for a reading is read as thousandths of an inch (8.5 is 0.0085 in) or hundredths of a
+        millimetre (13 is 0.13 mm); the value as read shows under each field.
       </p>
       <div className="mb-4 flex max-w-xs flex-col gap-1">
         <label htmlFor="positions-count">Positions around the ring gear</label>
@@ -110,7 +124,7 @@ export function BacklashSection({ context, disabled }: { context: SheetContext; 
                 <>
                   <dt>Runout it suggests</dt>
                   <dd className="font-semibold">
-                    {format(figures.runoutEstimate.tir)} {unit} TIR (k = {figures.runoutEstimate.k.toFixed(3)})
+                    {format(figures.runoutEstimate.tir)} {unit} TIR ({figures.runoutEstimate.kText})
                   </dd>
                 </>
               )}
@@ -131,7 +145,7 @@ export function BacklashSection({ context, disabled }: { context: SheetContext; 
           )}
           {context.profile && (
             <VerdictList
-              verdicts={figures.verdicts}
+              verdicts={shownVerdicts}
               format={(v) => `${format(v)} ${unit}`}
               profile={context.profile}
               provisional={!figures.complete}

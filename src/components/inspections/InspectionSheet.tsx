@@ -256,7 +256,7 @@ function Sheet({ props, boot, store }: { props: SheetProps; boot: BootResult; st
           <BacklashSection context={context} disabled={readOnly} />
           <MeasuresSection context={context} disabled={readOnly} shimRows={shimRows} onShimRows={onShimRows} />
           <PreloadSection context={context} disabled={readOnly} />
-          <PatternSection disabled={readOnly} />
+          <PatternSection disabled={readOnly} cutMethod={context.gearSet?.cutMethod ?? 'unknown'} />
           <PhotosSection
             draftId={boot.draft.localId}
             inspectionId={serverId}

@@ -1,9 +1,9 @@
 import { useId, useState } from 'react';
 import { useController, useFormContext, useWatch } from 'react-hook-form';
-import { judgeMeasuredRunout } from '../../lib/inspections/live-figures';
-import { parseDecimalText } from '../../lib/inspections/entry-text';
+import { judgeMeasuredRunout, showSheetVerdicts } from '../../lib/inspections/live-figures';
+import { parseLengthText } from '../../lib/inspections/entry-text';
 import type { SheetValues } from '../../lib/inspections/sheet-values';
-import { formatLength, lengthToMm, type IndicatorResolutionId } from '../../lib/units';
+import { formatLength, lengthToMm, type IndicatorResolutionId, type LengthUnit } from '../../lib/units';
 import { EntryField, FieldError, SheetSection } from './fields';
 import type { SheetContext } from './sheet-context';
 import { VerdictList } from './VerdictList';
@@ -21,14 +21,17 @@ export function MeasuresSection({
   onShimRows: (rows: string[]) => void;
 }) {
   const { control } = useFormContext<SheetValues>();
-  const [unit, resolution, backFace] = useWatch({ control, name: ['unit', 'resolution', 'runout.backFace'] });
+  const [unit, resolution, backFace, torqueUnit] = useWatch({
+    control,
+    name: ['unit', 'resolution', 'runout.backFace', 'torqueUnit'],
+  });
   const format = (v: number) =>
     `${formatLength(lengthToMm(v, unit), unit, resolution as IndicatorResolutionId)} ${unit}`;
   const profile = context.profile;
-  const runoutVerdict =
-    profile && typeof backFace === 'number'
-      ? [{ measure: 'runout-measured', value: backFace, ...judgeMeasuredRunout(backFace, unit, profile.values) }]
-      : [];
+  const basis = { unit, torqueUnit: torqueUnit ?? 'lbf-in', resolution };
+  const judged =
+    profile && typeof backFace === 'number' ? judgeMeasuredRunout(backFace, basis, profile.values) : undefined;
+  const runoutVerdict = profile && judged ? showSheetVerdicts([judged], profile.values, basis) : [];
 
   return (
     <>
@@ -61,7 +64,7 @@ export function MeasuresSection({
       <SheetSection id="pinion" title="Pinion depth">
         <fieldset disabled={disabled} className="flex flex-col gap-4">
           <legend className="sr-only">Pinion depth shims</legend>
-          <ShimStack rows={shimRows} onRows={onShimRows} unit={unit} format={format} />
+          <ShimStack rows={shimRows} onRows={onShimRows} unit={unit} resolution={resolution} format={format} />
           <div className="grid gap-4 md:grid-cols-2">
             <EntryField
               name="pinion.depthChange"
@@ -128,23 +131,26 @@ function ShimStack({
   rows,
   onRows,
   unit,
+  resolution,
   format,
 }: {
   rows: string[];
   onRows: (rows: string[]) => void;
-  unit: string;
+  unit: LengthUnit;
+  resolution: string;
   format: (v: number) => string;
 }) {
   const { control } = useFormContext<SheetValues>();
   const { field, fieldState } = useController({ control, name: 'pinion.shims' });
   const [focusLast, setFocusLast] = useState(false);
-  const parsed = rows.map((text) => parseDecimalText(text));
+  const read = (text: string) => parseLengthText(text, unit, resolution, 'shim');
+  const parsed = rows.map(read);
   const shims = field.value ?? [];
   const total = shims.reduce((a, b) => a + b, 0);
 
   const update = (next: string[]) => {
     onRows(next);
-    field.onChange(next.map((t) => parseDecimalText(t).value).filter((v): v is number => v !== null));
+    field.onChange(next.map((t) => read(t).value).filter((v): v is number => v !== null));
   };
 
   return (
@@ -157,6 +163,7 @@ function ShimStack({
           const error =
             parsed[i]?.error ??
             (fieldState.error as unknown as Record<number, { message?: string }> | undefined)?.[i]?.message;
+          const note = parsed[i]?.note;
           return (
             <li key={i} className="flex flex-wrap items-end gap-2">
               <div className="flex flex-col gap-1">
@@ -188,6 +195,11 @@ function ShimStack({
               >
                 Remove
               </button>
+              {note && !error && (
+                <p className="w-full text-sm text-ink-soft" data-testid={`${id}-note`}>
+                  {note}
+                </p>
+              )}
               <FieldError id={`${id}-error`} message={error} />
             </li>
           );

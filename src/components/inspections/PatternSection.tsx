@@ -1,6 +1,6 @@
 import { useId } from 'react';
-import { useController, useFormContext } from 'react-hook-form';
-import { describePattern } from '../../lib/analysis/contact-pattern';
+import { useController, useFormContext, useWatch } from 'react-hook-form';
+import { describePattern, type CutMethod } from '../../lib/analysis/contact-pattern';
 import type { SheetValues } from '../../lib/inspections/sheet-values';
 import { FieldError, SheetSection } from './fields';
 import { PatternPicker } from './PatternPicker';
@@ -17,8 +17,14 @@ const PLACE_WORDS: Record<string, string> = {
   'toe-flank': 'Toward the toe and the flank',
 };
 
+const CUT_WORDS: Record<CutMethod, string> = {
+  'face-milled': 'This set is face-milled.',
+  'face-hobbed': 'This set is face-hobbed: follow the gear maker’s pattern chart for it.',
+  unknown: 'How this set was cut is not recorded: the guidance reads it as face-milled.',
+};
+
 /** The drive and coast contact patterns, each with the usual correction as guidance. */
-export function PatternSection({ disabled }: { disabled: boolean }) {
+export function PatternSection({ disabled, cutMethod }: { disabled: boolean; cutMethod: CutMethod }) {
   return (
     <SheetSection id="patterns" title="Contact pattern">
       <p className="notice notice-caution mb-4 text-sm" role="note">
@@ -28,20 +34,38 @@ export function PatternSection({ disabled }: { disabled: boolean }) {
         Drive side: the convex side of the ring-gear tooth; coast side: the concave side. Check the pattern under load
         (about 54–68 N·m / 40–50 lbf·ft of pinion turning resistance, GM 9-1/2 in manual).
       </p>
+      <p className="mb-4 text-sm text-ink-soft" data-testid="pattern-cut-method">
+        {CUT_WORDS[cutMethod]} Depth corrections are read from the drive side; the coast side is a cross-check.
+      </p>
       <div className="grid gap-6 lg:grid-cols-2">
-        <PatternSide side="drive" disabled={disabled} />
-        <PatternSide side="coast" disabled={disabled} />
+        <PatternSide side="drive" disabled={disabled} cutMethod={cutMethod} />
+        <PatternSide side="coast" disabled={disabled} cutMethod={cutMethod} />
       </div>
     </SheetSection>
   );
 }
 
-function PatternSide({ side, disabled }: { side: 'drive' | 'coast'; disabled: boolean }) {
+function PatternSide({
+  side,
+  disabled,
+  cutMethod,
+}: {
+  side: 'drive' | 'coast';
+  disabled: boolean;
+  cutMethod: CutMethod;
+}) {
   const { control } = useFormContext<SheetValues>();
   const { field, fieldState } = useController({ control, name: `patterns.${side}` });
+  // The coast pattern is cross-checked against the drive pattern, never given the drive rule.
+  const drive = useWatch({ control, name: 'patterns.drive' }) ?? null;
   const value = field.value ?? null;
   const id = useId();
-  const guidance = value ? describePattern({ side, alongTooth: value.along, upTooth: value.up }) : null;
+  const guidance = value
+    ? describePattern(
+        { side, alongTooth: value.along, upTooth: value.up },
+        { cutMethod, drive: drive ? { alongTooth: drive.along, upTooth: drive.up } : null },
+      )
+    : null;
   const title = side === 'drive' ? 'Drive side' : 'Coast side';
   const setPart = (key: 'along' | 'up' | 'length', text: string) => {
     const n = Number(text);

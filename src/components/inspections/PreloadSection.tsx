@@ -1,5 +1,7 @@
 import { useController, useFormContext, useWatch } from 'react-hook-form';
-import { judgePreload, preloadBandIn } from '../../lib/inspections/live-figures';
+import { judgePreload, showSheetVerdicts } from '../../lib/inspections/live-figures';
+import { torqueBandToText } from '../../lib/analysis/published-limits';
+import { publishedLimitsOf } from '../../lib/analysis/tolerance';
 import type { SheetValues } from '../../lib/inspections/sheet-values';
 import { bandToSourceText, formatTorque } from '../../lib/inspections/verdict-text';
 import { torqueUnitToLabel } from '../../lib/units';
@@ -10,25 +12,19 @@ import { VerdictList } from './VerdictList';
 /** Bearing preload: the pinion turning torque against its band, and the hub check on each side. */
 export function PreloadSection({ context, disabled }: { context: SheetContext; disabled: boolean }) {
   const { control, register } = useFormContext<SheetValues>();
-  const [torqueUnit, bearings, pinionTorque] = useWatch({
+  const [torqueUnit, bearings, pinionTorque, lengthUnit, resolution] = useWatch({
     control,
-    name: ['torqueUnit', 'preload.bearings', 'preload.pinionTorque'],
+    name: ['torqueUnit', 'preload.bearings', 'preload.pinionTorque', 'unit', 'resolution'],
   });
   const unit = torqueUnit ?? 'lbf-in';
   const kind = bearings ?? 'used';
   const profile = context.profile;
   const field = kind === 'new' ? 'pinionPreloadNew' : 'pinionPreloadUsed';
-  const band = profile ? preloadBandIn(profile.values, kind, unit) : null;
-  const verdicts =
-    profile && typeof pinionTorque === 'number'
-      ? [
-          {
-            measure: `pinion-preload-${kind}`,
-            value: pinionTorque,
-            ...judgePreload(pinionTorque, kind, unit, profile.values),
-          },
-        ]
-      : [];
+  const band = profile ? torqueBandToText(publishedLimitsOf(profile.values)[field], unit) : null;
+  const basis = { unit: lengthUnit, torqueUnit: unit, resolution };
+  const judged =
+    profile && typeof pinionTorque === 'number' ? judgePreload(pinionTorque, kind, basis, profile.values) : undefined;
+  const verdicts = profile && judged ? showSheetVerdicts([judged], profile.values, basis) : [];
 
   return (
     <SheetSection id="preload" title="Bearing preload">
@@ -46,11 +42,8 @@ export function PreloadSection({ context, disabled }: { context: SheetContext; d
           </div>
           {band && profile && (
             <p className="text-sm" data-testid="preload-band">
-              Band for {kind} bearings:{' '}
-              <strong>
-                {band.min.toFixed(1)}–{formatTorque(band.max, unit)}
-              </strong>
-              . {bandToSourceText(profile.values, field, profile.sources, profile.name)}.
+              Band for {kind} bearings: <strong>{band}</strong>.{' '}
+              {bandToSourceText(profile.values, field, profile.sources, profile.name)}.
             </p>
           )}
         </fieldset>

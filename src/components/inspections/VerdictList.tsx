@@ -10,9 +10,20 @@ export interface ShownVerdict {
   limit: 'min' | 'max';
   limitValue: number;
   margin: number;
+  /** The limit as published in the unit shown ("0.005"); without it the limit is formatted. */
+  limitText?: string;
+  /** What the verdict was judged at ("judged at the 0.001 in graduation"). */
+  judgedAt?: string;
 }
 
-/** Verdicts with their limit, margin and the source of each band. */
+// The limit as published keeps its printed digits; the unit comes from the formatter.
+function limitToText(v: ShownVerdict, format: (value: number) => string): string {
+  if (v.limitText === undefined) return format(v.limitValue);
+  const unitSuffix = format(v.limitValue).replace(/^[-−+\d.,\s]+/, '');
+  return unitSuffix ? `${v.limitText} ${unitSuffix}` : v.limitText;
+}
+
+/** Verdicts with their limit, margin, what they were judged at and the source of each band. */
 export function VerdictList({
   verdicts,
   format,
@@ -42,7 +53,7 @@ export function VerdictList({
               </span>
             </div>
             <p className="text-sm text-ink-soft">
-              {v.limit === 'min' ? 'Lower' : 'Upper'} limit {format(v.limitValue)}, {margin}.{' '}
+              {`${v.limit === 'min' ? 'Lower' : 'Upper'} limit ${limitToText(v, format)}, ${margin}${v.judgedAt ? `, ${v.judgedAt}` : ''}.`}{' '}
               {field && <>Band: {bandToSourceText(profile.values, field, profile.sources, profile.name)}.</>}
             </p>
           </li>

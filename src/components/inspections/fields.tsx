@@ -1,11 +1,6 @@
 import { createContext, useContext, useEffect, useId, useRef, useState, type ReactNode } from 'react';
 import { useController, useFormContext, useWatch, type FieldPath } from 'react-hook-form';
-import {
-  entryDecimals,
-  parseDecimalText,
-  parseIndicatorText,
-  type ParsedEntry,
-} from '../../lib/inspections/entry-text';
+import { entryDecimals, parseDecimalText, parseLengthText, type ParsedEntry } from '../../lib/inspections/entry-text';
 import { valueToEntryText, type SheetValues } from '../../lib/inspections/sheet-values';
 import type { LengthUnit } from '../../lib/units';
 
@@ -23,9 +18,13 @@ export const EntryTextsContext = createContext<EntryTexts>({ get: () => undefine
 export type EntryKind = 'indicator' | 'length' | 'signed-length' | 'decimal' | 'whole';
 
 function parseFor(kind: EntryKind, text: string, unit: LengthUnit, resolution: string): ParsedEntry {
-  if (kind === 'indicator') return parseIndicatorText(text, unit, resolution);
-  return parseDecimalText(text, { signed: kind === 'signed-length', whole: kind === 'whole' });
+  if (kind === 'indicator') return parseLengthText(text, unit, resolution, 'indicator');
+  if (kind === 'length') return parseLengthText(text, unit, resolution, 'shim');
+  if (kind === 'signed-length') return parseLengthText(text, unit, resolution, 'depth-change');
+  return parseDecimalText(text, { whole: kind === 'whole' });
 }
+
+const isLengthKind = (kind: EntryKind) => kind === 'indicator' || kind === 'length' || kind === 'signed-length';
 
 export function FieldError({ id, message }: { id: string; message?: string }) {
   if (!message) return null;
@@ -51,7 +50,7 @@ interface EntryFieldProps {
   disabled?: boolean;
 }
 
-/** A number typed as text; indicator fields apply the thousandths rule and say how they read it. */
+/** A number typed as text; length fields apply the sheet's one entry rule and show the value as read. */
 export function EntryField({
   name,
   label,
@@ -81,7 +80,7 @@ export function EntryField({
   // The entry unit changed: read the same text in the new unit (the usual fix for a wrong unit choice).
   useEffect(() => {
     if (first.current) return;
-    if (kind !== 'indicator' || parsed.value === (value ?? null)) return;
+    if (!isLengthKind(kind) || parsed.value === (value ?? null)) return;
     field.onChange(parsed.value ?? empty);
     // eslint-disable-next-line react-hooks/exhaustive-deps -- only a unit change re-reads the text
   }, [unit]);

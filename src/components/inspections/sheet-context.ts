@@ -11,6 +11,10 @@ export interface GearSetInfo {
   pinionTeeth?: number | null;
   ratioLabel?: string | null;
   pressureAngleDeg?: number | null;
+  /** How the teeth were cut, and the runout factor as a spiral angle or a typed k (absent on older answers). */
+  cutMethod?: 'face-milled' | 'face-hobbed' | 'unknown';
+  spiralAngleDeg?: number | null;
+  runoutK?: number | null;
   totalRuns: number;
   runsSinceInstall: number;
   location: { targetType: 'assembly' | 'car'; targetId: string; label: string } | null;

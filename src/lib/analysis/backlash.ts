@@ -1,7 +1,7 @@
 // Backlash readings around the ring gear → statistics, once-per-turn fit and, with tooth counts, a runout estimate.
 
 import { fitFirstHarmonic, MAX_POSITIONS, MIN_POSITIONS } from './harmonic-fit';
-import { amplitudeToRunout, computeRunoutFactor } from './runout';
+import { amplitudeToRunout, computeRunoutFactor, runoutFactorToText, type RunoutFactorBasis } from './runout';
 import { summariseReadings } from './statistics';
 import type { HarmonicFit } from './harmonic-fit';
 import type { GearGeometry } from './runout';
@@ -11,6 +11,10 @@ import type { ReadingStatistics } from './statistics';
 export interface RunoutEstimate {
   readonly k: number;
   readonly deltaDeg: number;
+  /** Which k was used: from the tooth counts alone, with the spiral angle, or typed in. */
+  readonly kBasis: RunoutFactorBasis;
+  /** The k in words, for the screen: "k = 0.707, from the tooth counts and the pressure angle …". */
+  readonly kText: string;
   /** Estimated back-face runout (total indicated), same unit as the readings. */
   readonly tir: number;
 }
@@ -34,6 +38,12 @@ export function summariseBacklash(readings: readonly number[], geometry?: GearGe
   const statistics = summariseReadings(readings);
   const harmonic = fitFirstHarmonic(readings, statistics.mean);
   if (!geometry) return { ...statistics, harmonic };
-  const { k, deltaDeg } = computeRunoutFactor(geometry);
-  return { ...statistics, harmonic, runoutEstimate: { k, deltaDeg, tir: amplitudeToRunout(harmonic.amplitude, k) } };
+  const factor = computeRunoutFactor(geometry);
+  const { k, deltaDeg, basis } = factor;
+  const kText = runoutFactorToText(factor, geometry.spiralAngleDeg);
+  return {
+    ...statistics,
+    harmonic,
+    runoutEstimate: { k, deltaDeg, kBasis: basis, kText, tir: amplitudeToRunout(harmonic.amplitude, k) },
+  };
 }

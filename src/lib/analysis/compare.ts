@@ -1,6 +1,7 @@
 // Change since the previous inspection, flagged only when it is larger than two readings' worth of doubt.
 // Each reading carries ± one graduation, so a difference of two readings carries ± two; anything within that
-// could be the indicator, not the gear set. The coarser indicator of the two inspections sets the step.
+// could be the indicator, not the gear set (CP: no published source). The coarser indicator of the two
+// inspections sets the step.
 
 import type { BacklashSummary } from './backlash';
 

@@ -5,6 +5,7 @@ import { summariseBacklash } from './backlash';
 import { judgeBacklash } from './judge';
 import { computeTighteningSequence } from './tightening-sequence';
 import { fitTrendLine, projectTrend } from './trend';
+import type { RunoutEstimate } from './backlash';
 import type { HarmonicFit } from './harmonic-fit';
 import type { MeasureVerdict } from './judge';
 import type { BacklashRequest, TrendRequest } from './schemas';
@@ -15,7 +16,7 @@ import type { TrendReason } from './trend';
 export interface BacklashAnalysis extends ReadingStatistics {
   readonly unit: 'in' | 'mm';
   readonly harmonic: HarmonicFit;
-  readonly runoutEstimate?: { readonly k: number; readonly deltaDeg: number; readonly tir: number };
+  readonly runoutEstimate?: RunoutEstimate;
   readonly verdicts?: MeasureVerdict[];
 }
 

@@ -19,22 +19,37 @@ export interface RangeVerdict {
 }
 
 export type BacklashMeasure = 'backlash-min-point' | 'backlash-max-point' | 'spread' | 'runout';
+/** Every measure an inspection is judged on. */
+export type InspectionMeasure =
+  BacklashMeasure | 'runout-measured' | 'pinion-preload-new' | 'pinion-preload-used' | 'hub-left' | 'hub-right';
 
 /** A verdict on one named measure. */
 export interface MeasureVerdict extends RangeVerdict {
-  readonly measure: BacklashMeasure;
+  readonly measure: InspectionMeasure;
   readonly value: number;
 }
 
 // Inputs come through unit conversions; a boundary value must not flip on the 17th digit.
 const RELATIVE_TOLERANCE = 1e-12;
 
+/** How far past each limit a value may sit and still be within (a limit judged in the other unit, CP). */
+export interface LimitAllowance {
+  readonly min?: number;
+  readonly max?: number;
+}
+
 /**
  * Judges a value against a closed band. Near = within nearShare × (max − min) of a limit; for a one-sided
- * limit, within nearShare × that limit. Limits are inclusive: a value on a limit is near-limit, not out.
+ * limit, within nearShare × that limit. Limits are inclusive: a value on a limit is near-limit, not out; with an
+ * allowance, a value up to that far past the limit is near-limit too (the margin stays measured to the limit).
  * @example judgeRange(0.14, { min: 0.13, max: 0.23 }, 0.1) // { verdict: 'near-limit', limit: 'min', margin: 0.01 }
  */
-export function judgeRange(value: number, limits: RangeLimits, nearShare: number): RangeVerdict {
+export function judgeRange(
+  value: number,
+  limits: RangeLimits,
+  nearShare: number,
+  allowance: LimitAllowance = {},
+): RangeVerdict {
   const { min, max } = limits;
   if (!Number.isFinite(value)) throw new RangeError('judgeRange needs a finite value.');
   if (min === undefined && max === undefined) throw new RangeError('judgeRange needs a min or a max.');
@@ -47,8 +62,9 @@ export function judgeRange(value: number, limits: RangeLimits, nearShare: number
   const limit: 'min' | 'max' = marginMin <= marginMax ? 'min' : 'max';
   const margin = limit === 'min' ? marginMin : marginMax;
   const limitValue = (limit === 'min' ? min : max) as number;
+  const allowed = (limit === 'min' ? allowance.min : allowance.max) ?? 0;
   const verdict: Verdict =
-    margin < -tolerance ? 'out-of-band' : margin <= nearZone + tolerance ? 'near-limit' : 'in-band';
+    margin < -(tolerance + allowed) ? 'out-of-band' : margin <= nearZone + tolerance ? 'near-limit' : 'in-band';
   return { verdict, limit, limitValue, margin };
 }
 
@@ -66,7 +82,7 @@ const DEFAULT_NEAR_SHARE = 0.1;
  * @example judgeBacklash(summary, DEFAULT_PROFILE).map((v) => v.measure) // ['backlash-min-point', …]
  */
 export function judgeBacklash(
-  summary: Pick<BacklashSummary, 'min' | 'max' | 'spread' | 'runoutEstimate'>,
+  summary: Pick<BacklashSummary, 'min' | 'max' | 'spread'> & { readonly runoutEstimate?: { readonly tir: number } },
   limits: BacklashLimits,
 ): MeasureVerdict[] {
   const nearShare = limits.nearShare ?? DEFAULT_NEAR_SHARE;

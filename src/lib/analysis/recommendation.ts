@@ -66,7 +66,9 @@ function collectReasons(input: RecommendationInput): RecommendationReason[] {
   const add = (code: string, action: RecommendedAction, severity: ReasonSeverity, message: string): void => {
     reasons.push({ code, message, severity, action });
   };
-  if (runs >= life)
+  if (runs > life)
+    add('life-reached', 'retire', 'critical', `${runs - life} runs over the life limit of ${life}: replace the set.`);
+  else if (runs === life)
     add('life-reached', 'retire', 'critical', `${runs} runs reach the life limit of ${life}: replace the set.`);
   else if (life - runs <= interval) {
     add(
@@ -115,23 +117,25 @@ function collectReasons(input: RecommendationInput): RecommendationReason[] {
     }
   }
   for (const { measure, projection } of input.trends ?? []) {
-    const alreadyPast = projection.reason?.code === 'already-past-limit';
+    const code = projection.reason?.code;
+    const alreadyPast = code === 'already-past-limit' || code === 'past-limit-now';
     const runsLeft = alreadyPast ? 0 : projection.runsToLimit;
     if (runsLeft === null || runsLeft > interval) continue;
     // A backlash heading out of its band is corrected with shims now rather than found out of band later.
     const action: RecommendedAction = isBacklash(measure) ? 're-shim' : 'watch';
-    const when = alreadyPast
-      ? `The ${measureToLabel(measure).toLowerCase()} trend line is already past`
-      : `At this rate the ${measureToLabel(measure).toLowerCase()} reaches`;
-    add(
-      `${measure}-limit-before-next-service`,
-      action,
-      'warning',
-      `${when} its limit within the service interval of ${interval} runs.`,
-    );
+    const name = measureToLabel(measure).toLowerCase();
+    const message =
+      code === 'past-limit-now'
+        ? `The ${name} is past its limit now.`
+        : alreadyPast
+          ? `The ${name} trend line is past its limit and not heading back.`
+          : `At this rate the ${name} reaches its limit within the service interval of ${interval} runs.`;
+    add(`${measure}-limit-before-next-service`, action, 'warning', message);
   }
   for (const pattern of input.patterns ?? []) {
-    if (!pattern.inUsualRegion) add(`pattern-${pattern.side}-${pattern.code}`, 're-shim', 'warning', pattern.guidance);
+    // A drive pattern off the usual region sets up again; a coast pattern is a cross-check and never does.
+    if (pattern.action !== 'keep')
+      add(`pattern-${pattern.side}-${pattern.code}`, pattern.action, 'warning', pattern.guidance);
   }
   return reasons;
 }

@@ -75,12 +75,38 @@ export function fitTrendLine(points: readonly TrendPoint[]): LineFit {
 export type TrendLimit = number | { readonly min?: number; readonly max?: number };
 
 export type TrendReasonCode =
-  'no-limit' | 'too-few-points' | 'no-run-spread' | 'flat' | 'moving-away' | 'already-past-limit';
+  | 'no-limit'
+  | 'too-few-points'
+  | 'no-run-spread'
+  | 'flat'
+  | 'moving-away'
+  | 'already-past-limit'
+  | 'past-limit-now'
+  | 'returning'
+  | 'mean-not-projected';
 
 /** Why there is no projection: a machine code and a sentence for the screen. */
 export interface TrendReason {
   readonly code: TrendReasonCode;
   readonly message: string;
+}
+
+/** The latest reading of a trend: its value, and whether its inspection's verdict called it past a limit. */
+export type LatestReading = number | { readonly value: number; readonly past?: boolean };
+
+/** The limit a value is past (a float hair past is not past), or null. */
+function sidePassed(value: number, band: { min?: number; max?: number }): 'min' | 'max' | null {
+  const slack = 1e-9 * Math.max(Math.abs(value), Math.abs(band.max ?? 0), Math.abs(band.min ?? 0));
+  if (band.max !== undefined && value > band.max + slack) return 'max';
+  if (band.min !== undefined && value < band.min - slack) return 'min';
+  return null;
+}
+
+/** The limit a value is nearer to (a verdict out of band is past that one). */
+function nearestSide(value: number, band: { min?: number; max?: number }): 'min' | 'max' {
+  const toMax = band.max === undefined ? Infinity : Math.abs(value - band.max);
+  const toMin = band.min === undefined ? Infinity : Math.abs(value - band.min);
+  return toMax <= toMin ? 'max' : 'min';
 }
 
 /** Where the fitted line meets the limit, looking forward from the last inspection. */
@@ -99,18 +125,46 @@ function project(reason: TrendReason): TrendProjection {
   return { projectedRunsAtLimit: null, runsToLimit: null, reason };
 }
 
-function formatRuns(runs: number): string {
-  return String(Math.round(runs * 10) / 10);
-}
-
 /**
  * Projects the run count at which the fitted line reaches the limit. A single number is a limit on whichever
- * side of it the line sits at the last run (below → a max, above → a min). Needs 3 points; only looks forward.
+ * side of it the latest reading (or, without one, the line) sits at the last run (below → a max, above → a min).
+ * Needs 3 points; only looks forward. The latest reading past a limit is "past the limit now", whatever the line
+ * says; a line past a limit and heading back is "coming back toward the band", never a crossing in the past.
  * @example projectTrend(fitTrendLine(points), { max: 0.23 }) // { projectedRunsAtLimit: 61.7, runsToLimit: 13.7, limit: 'max' }
  */
-export function projectTrend(fit: LineFit, limit: TrendLimit | undefined): TrendProjection {
+export function projectTrend(
+  fit: LineFit,
+  limit: TrendLimit | undefined,
+  latestReading?: LatestReading,
+): TrendProjection {
+  const latest = typeof latestReading === 'number' ? latestReading : latestReading?.value;
+  const judgedPast = typeof latestReading === 'number' ? undefined : latestReading?.past;
   if (limit === undefined)
     return project({ code: 'no-limit', message: 'No limit given, so there is nothing to project to.' });
+  const { lastRuns } = fit;
+  const reference =
+    latest ?? (fit.slope !== null && fit.intercept !== null ? fit.intercept + fit.slope * lastRuns : undefined);
+  const band =
+    typeof limit === 'number'
+      ? reference === undefined || reference <= limit
+        ? { max: limit }
+        : { min: limit }
+      : limit;
+  if (band.min === undefined && band.max === undefined) {
+    return project({ code: 'no-limit', message: 'The limit has neither a min nor a max.' });
+  }
+  // The reading is what the band judges: past a limit now is past it, however the line runs. Where the latest
+  // inspection's verdict is given, it decides (judged at its graduation against the limit as published).
+  if (latest !== undefined) {
+    const side = judgedPast === undefined ? sidePassed(latest, band) : judgedPast ? nearestSide(latest, band) : null;
+    const value = side ? band[side] : undefined;
+    if (side && value !== undefined) {
+      return project({
+        code: 'past-limit-now',
+        message: `The latest reading is past the ${side} (${value}) now, at run ${lastRuns}.`,
+      });
+    }
+  }
   if (fit.count < MIN_TREND_POINTS) {
     const missing = MIN_TREND_POINTS - fit.count;
     const words =
@@ -123,23 +177,23 @@ export function projectTrend(fit: LineFit, limit: TrendLimit | undefined): Trend
       message: 'All inspections are at the same run count; a trend needs different run counts.',
     });
   }
-  const { slope, intercept, lastRuns } = fit;
+  const { slope, intercept } = fit;
   const fittedNow = intercept + slope * lastRuns;
-  const band = typeof limit === 'number' ? (fittedNow <= limit ? { max: limit } : { min: limit }) : limit;
-  if (band.min === undefined && band.max === undefined) {
-    return project({ code: 'no-limit', message: 'The limit has neither a min nor a max.' });
-  }
   for (const side of ['max', 'min'] as const) {
     const value = band[side];
     const isPast = value !== undefined && (side === 'max' ? fittedNow > value : fittedNow < value);
-    if (isPast) {
-      const at = slope === 0 ? null : (value - intercept) / slope;
-      const when = at === null ? '' : ` at run ${formatRuns(at)}`;
+    if (!isPast) continue;
+    const returning = side === 'max' ? slope < 0 : slope > 0;
+    if (returning) {
       return project({
-        code: 'already-past-limit',
-        message: `The fitted line passed the ${side} (${value})${when}, before the last inspection at run ${lastRuns}.`,
+        code: 'returning',
+        message: `The fitted line is past the ${side} (${value}) but heading back: coming back toward the band.`,
       });
     }
+    return project({
+      code: 'already-past-limit',
+      message: `The fitted line is past the ${side} (${value}) at run ${lastRuns} and not heading back.`,
+    });
   }
   if (slope === 0)
     return project({ code: 'flat', message: 'The trend is flat; at this rate the limit is never reached.' });
@@ -161,4 +215,15 @@ export function projectTrend(fit: LineFit, limit: TrendLimit | undefined): Trend
  */
 export function computeRunsLeft(runsSinceInstall: number, lifeLimitRuns: number): number {
   return Math.max(0, lifeLimitRuns - runsSinceInstall);
+}
+
+/**
+ * The life limit in words: runs left, or runs over it — never a negative count.
+ * @example lifeToText(67, 50) // '17 runs over the life limit'
+ */
+export function lifeToText(totalRuns: number, lifeLimitRuns: number): string {
+  const left = lifeLimitRuns - totalRuns;
+  if (left > 0) return `${left} run${left === 1 ? '' : 's'} left`;
+  if (left === 0) return 'at the life limit';
+  return `${-left} run${left === -1 ? '' : 's'} over the life limit`;
 }

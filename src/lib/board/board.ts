@@ -57,7 +57,12 @@ const OUT_OF_USE: readonly PartStatus[] = ['retired', 'scrapped'];
 // A projection this far off is a flat line, not a forecast (the charts say the same).
 const NEVER_RUNS = 100_000;
 
-const TREND_WORDS: Readonly<Record<string, string>> = { 'backlash-mean': 'mean backlash', spread: 'spread' };
+const TREND_WORDS: Readonly<Record<string, string>> = {
+  'backlash-mean': 'mean backlash',
+  'backlash-min-point': 'tightest backlash',
+  'backlash-max-point': 'loosest backlash',
+  spread: 'spread',
+};
 
 /** The nearest limit ahead: the life limit or a trend crossing, whichever comes first. */
 export function findProjectedRunsLeft(
@@ -68,7 +73,8 @@ export function findProjectedRunsLeft(
   if (set.lifeLimitRuns !== null) candidates.push({ runs: set.lifeLimitRuns - set.totalRuns, what: 'life limit' });
   for (const trend of analysis?.trends ?? []) {
     const what = TREND_WORDS[trend.measure] ?? trend.measure;
-    if (trend.projection.reason?.code === 'already-past-limit')
+    const code = trend.projection.reason?.code;
+    if (code === 'already-past-limit' || code === 'past-limit-now')
       candidates.push({ runs: 0, what: `${what} past its limit` });
     else if (trend.projection.runsToLimit !== null && trend.projection.runsToLimit < NEVER_RUNS)
       candidates.push({ runs: Math.floor(trend.projection.runsToLimit), what });

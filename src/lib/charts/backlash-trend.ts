@@ -1,5 +1,6 @@
-// Mean backlash against runs: each inspection's mean with its min–max, the tolerance band, the fitted
-// line and its projection to the limit it is heading for. Pure.
+// Backlash against runs: each inspection's mean with its min–max, the tolerance band and the mean's fitted line.
+// The band is for the points, not the mean: the projection drawn is the tightest or the loosest point's, whichever
+// reaches its limit first; the mean is never projected. Pure.
 
 import {
   coarsestResolution,
@@ -23,7 +24,7 @@ import {
 } from './trend-chart';
 
 /**
- * Shapes the mean-backlash trend of a gear set.
+ * Shapes the backlash trend of a gear set: the mean drawn, the tightest and loosest points projected.
  * @example shapeBacklashTrend(input).projection?.label // 'run 54'
  */
 export function shapeBacklashTrend(input: GearSetChartInput): TrendChartShape {
@@ -58,13 +59,30 @@ export function shapeBacklashTrend(input: GearSetChartInput): TrendChartShape {
   const trend = input.trends.backlashMean;
   const lastRuns = Math.max(0, ...points.map((p) => p.runs));
   const horizon = projectionHorizon(lastRuns, life.lifeLimitRuns);
+  const pointTrends = [
+    { trend: input.trends.backlashMin, measure: 'backlash at the tightest point' },
+    { trend: input.trends.backlashMax, measure: 'backlash at the loosest point' },
+  ].flatMap(({ trend: t, measure }) =>
+    t && points.length > 0
+      ? [
+          {
+            projection: t.projection,
+            shaped: shapeProjection(t.fit, t.projection, t.limits, horizon, {
+              measure,
+              formatValue: format,
+              unitLabel: unit,
+            }),
+          },
+        ]
+      : [],
+  );
+  // The line drawn is the crossing that comes first; the sentence says what each point is doing.
+  const drawn = pointTrends
+    .filter((p) => p.shaped.line !== null)
+    .sort((a, b) => (a.projection.projectedRunsAtLimit ?? 0) - (b.projection.projectedRunsAtLimit ?? 0))[0];
   const shaped =
-    trend && points.length > 0
-      ? shapeProjection(trend.fit, trend.projection, trend.limits, horizon, {
-          measure: 'mean backlash',
-          formatValue: format,
-          unitLabel: unit,
-        })
+    pointTrends.length > 0
+      ? { line: drawn?.shaped.line ?? null, message: [...new Set(pointTrends.map((p) => p.shaped.message))].join(' ') }
       : null;
   const fit = trend
     ? fitToLine(
@@ -87,7 +105,9 @@ export function shapeBacklashTrend(input: GearSetChartInput): TrendChartShape {
   ];
   const step = resolutionStep(resolution, unit);
   const yDomain = valueDomain(values, step);
-  const bandText = `${format(band.min)}–${format(band.max)} ${unit}`;
+  // The band as printed in the reader's unit where it is (0.005–0.009 in), else to the graduation.
+  const printed = input.limitTexts;
+  const bandText = `${printed?.backlashMin ?? format(band.min)}–${printed?.backlashMax ?? format(band.max)} ${unit}`;
 
   let message: string;
   let state: TrendChartShape['state'];

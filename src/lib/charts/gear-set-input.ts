@@ -4,6 +4,7 @@
 
 import type { LineFit, TrendProjection, Verdict } from '../analysis';
 import type { InspectionView } from '../inspections/views';
+import type { LengthFigures, PublishedLimits, TorqueFigures } from '../analysis/published-limits';
 import { mmToLength, nmToTorque, type IndicatorResolutionId, type LengthUnit } from '../units';
 import { toResolutionId } from './format';
 
@@ -37,7 +38,13 @@ export interface GearSetChartInput {
   torqueUnit: TorqueUnitId;
   /** Oldest first (by runs, then date). */
   inspections: ChartInspection[];
-  trends: { backlashMean: ChartTrend | null; spread: ChartTrend | null };
+  /** The mean is drawn with its fit but never projected; the tightest and loosest points are (the band is theirs). */
+  trends: {
+    backlashMean: ChartTrend | null;
+    backlashMin: ChartTrend | null;
+    backlashMax: ChartTrend | null;
+    spread: ChartTrend | null;
+  };
   life: { totalRuns: number; runsSinceInstall: number; lifeLimitRuns: number | null; runsLeft: number | null };
   limits: {
     backlash: { min: number; max: number };
@@ -46,6 +53,17 @@ export interface GearSetChartInput {
     preloadNew: { min: number; max: number };
     preloadUsed: { min: number; max: number };
   };
+  /** Each limit as printed in the reader's unit, where the source prints it there ("0.005", "8"); else absent. */
+  limitTexts?: LimitTexts;
+}
+
+export interface LimitTexts {
+  backlashMin?: string;
+  backlashMax?: string;
+  maxSpread?: string;
+  runoutMax?: string;
+  preloadNew?: { min?: string; max?: string };
+  preloadUsed?: { min?: string; max?: string };
 }
 
 /** The parts of GET /api/gear-sets/:id/analysis the charts read. */
@@ -64,7 +82,7 @@ export type InspectionAnswer = Pick<
   'id' | 'status' | 'inspectedAt' | 'runsAtInspection' | 'resolution' | 'canonical' | 'summary'
 >;
 
-/** The parts of GET /api/tolerance-profiles/for-gear-set/:id the charts read (canonical mm, N·m). */
+/** The parts of GET /api/tolerance-profiles/for-gear-set/:id the charts read (canonical mm, N·m, and as published). */
 export interface ProfileAnswer {
   values: {
     backlashMin: number;
@@ -73,6 +91,7 @@ export interface ProfileAnswer {
     runoutMax: number;
     pinionPreloadNew: { min: number; max: number };
     pinionPreloadUsed: { min: number; max: number };
+    published?: PublishedLimits;
   };
 }
 
@@ -126,10 +145,15 @@ export function toGearSetChartInput(
   const unit: LengthUnit = analysis.unit === 'mm' || analysis.unit === 'in' ? analysis.unit : units.lengthUnit;
   const torqueUnit: TorqueUnitId =
     analysis.torqueUnit === 'N-m' || analysis.torqueUnit === 'lbf-in' ? analysis.torqueUnit : units.torqueUnit;
-  const len = (mm: number) => mmToLength(mm, unit);
-  const torque = (band: { min: number; max: number }) => ({
-    min: nmToTorque(band.min, torqueUnit),
-    max: nmToTorque(band.max, torqueUnit),
+  // A limit where the sources print it in the reader's unit is drawn at that figure (0.005 in, never 0.0051).
+  const p = profile.values.published;
+  const len = (mm: number, figures?: LengthFigures) =>
+    figures?.[unit] !== undefined ? Number(figures[unit]) : mmToLength(mm, unit);
+  const printedTorque = (nm: number, figures?: TorqueFigures) =>
+    figures?.[torqueUnit] !== undefined ? Number(figures[torqueUnit]) : nmToTorque(nm, torqueUnit);
+  const torque = (band: { min: number; max: number }, figures?: { min: TorqueFigures; max: TorqueFigures }) => ({
+    min: printedTorque(band.min, figures?.min),
+    max: printedTorque(band.max, figures?.max),
   });
   const trend = (measure: string): ChartTrend | null => {
     const found = analysis.trends.find((t) => t.measure === measure);
@@ -144,14 +168,27 @@ export function toGearSetChartInput(
       .filter((i) => i.status === 'submitted')
       .map((i) => inspectionToChartInspection(i, unit, torqueUnit))
       .sort((a, b) => a.runs - b.runs || a.inspectedAt.localeCompare(b.inspectedAt)),
-    trends: { backlashMean: trend('backlash-mean'), spread: trend('spread') },
+    trends: {
+      backlashMean: trend('backlash-mean'),
+      backlashMin: trend('backlash-min-point'),
+      backlashMax: trend('backlash-max-point'),
+      spread: trend('spread'),
+    },
     life: analysis.life,
+    limitTexts: {
+      backlashMin: p?.backlashMin[unit],
+      backlashMax: p?.backlashMax[unit],
+      maxSpread: p?.maxSpread[unit],
+      runoutMax: p?.runoutMax[unit],
+      preloadNew: { min: p?.pinionPreloadNew.min[torqueUnit], max: p?.pinionPreloadNew.max[torqueUnit] },
+      preloadUsed: { min: p?.pinionPreloadUsed.min[torqueUnit], max: p?.pinionPreloadUsed.max[torqueUnit] },
+    },
     limits: {
-      backlash: { min: len(v.backlashMin), max: len(v.backlashMax) },
-      maxSpread: len(v.maxSpread),
-      runoutMax: len(v.runoutMax),
-      preloadNew: torque(v.pinionPreloadNew),
-      preloadUsed: torque(v.pinionPreloadUsed),
+      backlash: { min: len(v.backlashMin, p?.backlashMin), max: len(v.backlashMax, p?.backlashMax) },
+      maxSpread: len(v.maxSpread, p?.maxSpread),
+      runoutMax: len(v.runoutMax, p?.runoutMax),
+      preloadNew: torque(v.pinionPreloadNew, p?.pinionPreloadNew),
+      preloadUsed: torque(v.pinionPreloadUsed, p?.pinionPreloadUsed),
     },
   };
 }

@@ -87,6 +87,7 @@ export function shapeSpreadTrend(input: GearSetChartInput): TrendChartShape {
   );
   const format = (value: number) => lengthToText(value, unit, resolution);
   const limit = input.limits.maxSpread;
+  const limitText = input.limitTexts?.maxSpread ?? format(limit);
   const points = inspected.map((i) =>
     point(i, 'main', i.backlash!.spread, `${lengthToText(i.backlash!.spread, unit, i.resolution)} ${unit}`, 'spread'),
   );
@@ -127,14 +128,14 @@ export function shapeSpreadTrend(input: GearSetChartInput): TrendChartShape {
     series: [{ key: 'main', name: 'Spread around the gear', mark: 'circle' }],
     points,
     bands: [],
-    limitLines: [{ value: limit, label: `limit ${format(limit)} ${unit}` }],
+    limitLines: [{ value: limit, label: `limit ${limitText} ${unit}` }],
     fit,
     projection: shaped?.line ?? null,
     ...axesOf(life, x, yDomain, step, resolution, unit),
     columns: { value: 'Spread', range: null },
     ...words,
     summary: last
-      ? `Spread over ${countToText(points.length, 'inspection')}, latest ${last.valueText} at run ${last.runs}, against a limit of ${format(limit)} ${unit}. ${words.message}`
+      ? `Spread over ${countToText(points.length, 'inspection')}, latest ${last.valueText} at run ${last.runs}, against a limit of ${limitText} ${unit}. ${words.message}`
       : words.message,
   };
 }
@@ -151,6 +152,7 @@ export function shapeRunoutTrend(input: GearSetChartInput): TrendChartShape {
   );
   const format = (value: number) => lengthToText(value, unit, resolution);
   const limit = input.limits.runoutMax;
+  const limitText = input.limitTexts?.runoutMax ?? format(limit);
   const measured = input.inspections
     .filter((i) => i.runoutTir !== null)
     .map((i) =>
@@ -177,7 +179,7 @@ export function shapeRunoutTrend(input: GearSetChartInput): TrendChartShape {
   const last = measured.at(-1);
   const over = measured.filter((p) => p.value > limit).length;
   const said = last
-    ? `Latest measured runout ${last.valueText} against a limit of ${format(limit)} ${unit}${over ? `; ${countToText(over, 'inspection')} over it` : ''}.`
+    ? `Latest measured runout ${last.valueText} against a limit of ${limitText} ${unit}${over ? `; ${countToText(over, 'inspection')} over it` : ''}.`
     : estimated.length
       ? `No measured runout yet; the lash suggests ${estimated.at(-1)!.valueText}. Measure the ring-gear back face at the next teardown.`
       : '';
@@ -197,7 +199,7 @@ export function shapeRunoutTrend(input: GearSetChartInput): TrendChartShape {
     ],
     points,
     bands: [],
-    limitLines: [{ value: limit, label: `limit ${format(limit)} ${unit}` }],
+    limitLines: [{ value: limit, label: `limit ${limitText} ${unit}` }],
     fit: null,
     projection: null,
     ...axesOf(life, x, yDomain, step, resolution, unit),
@@ -230,8 +232,11 @@ export function shapePreloadTrend(input: GearSetChartInput): TrendChartShape {
   );
   const bandOf = (bearings: 'new' | 'used') =>
     bearings === 'new' ? input.limits.preloadNew : input.limits.preloadUsed;
+  // As printed in the reader's unit where it is (8–12 lbf·in, 1.0–1.4 N·m), else to one decimal.
+  const printedOf = (bearings: 'new' | 'used') =>
+    bearings === 'new' ? input.limitTexts?.preloadNew : input.limitTexts?.preloadUsed;
   const bandText = (bearings: 'new' | 'used') =>
-    `${bearings} bearings ${torqueToText(bandOf(bearings).min)}–${torqueToText(bandOf(bearings).max)} ${torqueLabel}`;
+    `${bearings} bearings ${printedOf(bearings)?.min ?? torqueToText(bandOf(bearings).min)}–${printedOf(bearings)?.max ?? torqueToText(bandOf(bearings).max)} ${torqueLabel}`;
   // Each inspection's band holds until the next inspection: bearings change only at a teardown.
   const bands: ChartBand[] = withPreload.map((i, k) => {
     const next = withPreload[k + 1];

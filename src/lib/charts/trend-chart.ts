@@ -111,15 +111,30 @@ export function shapeProjection(
   const side = (s: 'min' | 'max') => (s === 'max' ? 'upper limit' : 'lower limit');
   const reason = projection.reason;
   if (reason) {
-    if (reason.code === 'already-past-limit' && fit.slope !== null && fit.intercept !== null) {
+    const pastSide = (): 'min' | 'max' | null => {
+      if (fit.slope === null || fit.intercept === null) return null;
       const fittedNow = fit.intercept + fit.slope * fit.lastRuns;
-      const which: 'min' | 'max' = limits.max !== undefined && fittedNow > limits.max ? 'max' : 'min';
-      const value = limits[which] as number;
-      const at = fit.slope === 0 ? null : (value - fit.intercept) / fit.slope;
-      const since = at !== null && at >= 0 && at <= fit.lastRuns ? `, since about run ${runsToText(at)}` : '';
+      if (limits.max !== undefined && fittedNow > limits.max) return 'max';
+      if (limits.min !== undefined && fittedNow < limits.min) return 'min';
+      return null;
+    };
+    const limitWords = (which: 'min' | 'max') =>
+      `the ${side(which)} (${formatValue(limits[which] as number)} ${unitLabel})`;
+    if (reason.code === 'past-limit-now') {
+      return { line: null, message: `The latest ${measure} is past its limit now.` };
+    }
+    if (reason.code === 'returning') {
+      const which = pastSide();
+      const past = which ? ` is past ${limitWords(which)} but` : '';
+      return { line: null, message: `The fitted line of ${measure}${past} is coming back toward the band.` };
+    }
+    if (reason.code === 'already-past-limit') {
+      const which = pastSide();
+      const past = which ? `past ${limitWords(which)}` : 'past its limit';
+      // Never a crossing "before the last inspection": the reading, not the line, says where the set is.
       return {
         line: null,
-        message: `The fitted line of ${measure} is already past the ${side(which)} (${formatValue(value)} ${unitLabel})${since}.`,
+        message: `The fitted line of ${measure} sits ${past} at the last inspection and is not heading back, though the latest reading is within it.`,
       };
     }
     if (reason.code === 'moving-away')

@@ -15,6 +15,10 @@ export interface VerdictInput {
   margin: number;
   /** 'in' | 'mm' for lengths, 'lbf-in' | 'N-m' for torques, 'check' for a yes/no check. */
   unit: string;
+  /** The limit as published in this unit ("0.005"); without it the limit is formatted to the graduation. */
+  limitText?: string;
+  /** What the verdict was judged at ("judged at the 0.001 in graduation"). */
+  judgedAt?: string;
 }
 
 export interface VerdictRow {
@@ -23,6 +27,8 @@ export interface VerdictRow {
   valueText: string;
   limitText: string;
   marginText: string;
+  /** What the verdict was judged at, or '' when the summary does not say. */
+  judgedAt: string;
   verdict: Verdict;
 }
 
@@ -32,8 +38,8 @@ const LABELS: Readonly<Record<string, string>> = {
 };
 
 /**
- * Rows for the verdict table. The engine's own verdicts come first in a summary; a `runout` among them is
- * the estimate from the lash, `runout-measured` (or a `runout` after them) the measured back face.
+ * Rows for the verdict table. A summary names the runout estimated from the lash `runout` and the measured back
+ * face `runout-measured`; `engineCount` is kept for callers of the older shape and no longer decides anything.
  * @example verdictsToRows(summary.verdicts, 3, '0.001in')[0].label // 'Backlash at the tightest point'
  */
 export function verdictsToRows(
@@ -42,8 +48,8 @@ export function verdictsToRows(
   resolution: IndicatorResolutionId,
 ): VerdictRow[] {
   return verdicts.map((v, i) => {
-    // Summaries name the measured back face 'runout-measured'; older ones called it 'runout' after the engine's own.
-    const measure = v.measure === 'runout' ? (i < engineCount ? 'runout-estimated' : 'runout-measured') : v.measure;
+    void engineCount;
+    const measure = v.measure === 'runout' ? 'runout-estimated' : v.measure;
     const isLength = v.unit === 'in' || v.unit === 'mm';
     const show = (x: number): string => {
       if (v.unit === 'check') return x ? 'yes' : 'no';
@@ -58,6 +64,7 @@ export function verdictsToRows(
         valueText: v.value ? 'effort unchanged' : 'effort changed',
         limitText: 'effort stays the same',
         marginText: '—',
+        judgedAt: '',
         verdict: v.verdict,
       };
     }
@@ -65,11 +72,16 @@ export function verdictsToRows(
       key: `${measure}:${i}`,
       label,
       valueText: show(v.value),
-      limitText: `${v.limit === 'min' ? 'lower' : 'upper'} ${show(v.limitValue)}`,
+      limitText: `${v.limit === 'min' ? 'lower' : 'upper'} ${v.limitText !== undefined ? `${v.limitText} ${unitLabel(v.unit)}` : show(v.limitValue)}`,
       marginText: `${show(Math.abs(v.margin))} ${v.margin >= 0 ? 'inside' : 'beyond'}`,
+      judgedAt: v.judgedAt ?? '',
       verdict: v.verdict,
     };
   });
+}
+
+function unitLabel(unit: string): string {
+  return unit === 'in' || unit === 'mm' ? unit : torqueUnitToLabel(unit === 'N-m' ? 'N-m' : 'lbf-in');
 }
 
 function capitalise(text: string): string {

@@ -1,9 +1,10 @@
 import { summariseBacklash, type RunoutEstimate } from '../analysis/backlash';
 import type { HarmonicFit } from '../analysis/harmonic-fit';
-import { judgeBacklash, judgeRange, type MeasureVerdict, type RangeVerdict } from '../analysis/judge';
+import { judgeInspection, type InspectionReadings, type JudgedMeasure } from '../analysis/judge-inspection';
 import { computeMean, summariseReadings } from '../analysis/statistics';
-import type { ToleranceProfile } from '../analysis/tolerance';
-import { mmToLength, nmToTorque, type LengthUnit, type TorqueUnit } from '../units';
+import { publishedLimitsOf, type ToleranceProfile } from '../analysis/tolerance';
+import { findResolution, mmToLength, type LengthUnit } from '../units';
+import { verdictsForReader, type ReaderVerdict } from './verdicts-for-reader';
 
 /**
  * The figures the sheet shows while the technician types: the server's own functions (statistics,
@@ -21,25 +22,43 @@ export interface LiveFigures {
   sd: number | null;
   harmonic: HarmonicFit | null;
   runoutEstimate: RunoutEstimate | null;
-  /** In the entry unit, like every figure here. */
-  verdicts: MeasureVerdict[];
+  /** In the entry unit, like every figure here; judged by the same function as the saved summary. */
+  verdicts: JudgedMeasure[];
 }
 
 export interface Geometry {
   ringTeeth?: number | null;
   pinionTeeth?: number | null;
   pressureAngleDeg?: number | null;
+  /** The set's runout factor setting (runout.ts): a spiral angle or a typed k. */
+  spiralAngleDeg?: number | null;
+  runoutK?: number | null;
 }
 
-/** The profile's length limits in the entry unit (the profile is stored in mm). */
-export function profileToLengthLimits(profile: ToleranceProfile, unit: LengthUnit) {
-  return {
-    backlashMin: mmToLength(profile.backlashMin, unit),
-    backlashMax: mmToLength(profile.backlashMax, unit),
-    maxSpread: mmToLength(profile.maxSpread, unit),
-    runoutMax: mmToLength(profile.runoutMax, unit),
-    nearShare: profile.nearShare,
-  };
+/** What the sheet's verdicts are judged at: the entry units and the dial's graduation in the entry unit. */
+export interface SheetBasis {
+  unit: LengthUnit;
+  torqueUnit: 'lbf-in' | 'N-m';
+  resolution: string;
+}
+
+/** The graduation of a resolution id in `unit` (the coarsest dial of that unit when the id is unknown). */
+export function graduationIn(resolutionId: string, unit: LengthUnit): number {
+  const resolution = findResolution(resolutionId) ?? findResolution(unit === 'in' ? '0.001in' : '0.01mm')!;
+  return mmToLength(resolution.mm, unit);
+}
+
+/**
+ * Judges what the sheet holds so far with the one function the saved summary uses (judge-inspection.ts), so the
+ * verdicts seen while typing are the verdicts kept after submit.
+ */
+export function judgeSheetReadings(
+  readings: InspectionReadings,
+  profile: ToleranceProfile,
+  basis: SheetBasis,
+): JudgedMeasure[] {
+  const graduation = graduationIn(basis.resolution, basis.unit);
+  return judgeInspection(readings, profile, { unit: basis.unit, torqueUnit: basis.torqueUnit, graduation });
 }
 
 /**
@@ -51,6 +70,7 @@ export function computeLiveFigures(
   unit: LengthUnit,
   profile: ToleranceProfile | null,
   geometry: Geometry = {},
+  resolution: string = unit === 'in' ? '0.001in' : '0.01mm',
 ): LiveFigures {
   const read = readings.filter((r): r is number => r !== null && Number.isFinite(r));
   const total = readings.length;
@@ -75,6 +95,8 @@ export function computeLiveFigures(
           ringTeeth: geometry.ringTeeth,
           pinionTeeth: geometry.pinionTeeth,
           pressureAngleDeg: geometry.pressureAngleDeg ?? undefined,
+          spiralAngleDeg: geometry.spiralAngleDeg ?? null,
+          runoutK: geometry.runoutK ?? null,
         }
       : undefined;
   let figures: LiveFigures;
@@ -99,42 +121,44 @@ export function computeLiveFigures(
     figures = { ...empty, mean: only, min: only, max: only, spread: 0 };
   }
   if (profile) {
-    const verdicts = judgeBacklash(
-      {
-        min: figures.min!,
-        max: figures.max!,
-        spread: figures.spread!,
-        runoutEstimate: figures.runoutEstimate ?? undefined,
-      },
-      profileToLengthLimits(profile, unit),
-    );
     // One reading has no spread to judge yet.
-    figures.verdicts = read.length < 2 ? verdicts.filter((v) => v.measure !== 'spread') : verdicts;
+    const backlash = {
+      min: figures.min!,
+      max: figures.max!,
+      ...(read.length >= 2 && { spread: figures.spread! }),
+      ...(figures.runoutEstimate && { runoutEstimate: figures.runoutEstimate.tir }),
+    };
+    figures.verdicts = judgeSheetReadings({ backlash }, profile, { unit, torqueUnit: 'lbf-in', resolution });
   }
   return figures;
 }
 
-/** A measured back-face runout (entry unit) against the profile's runout limit. */
-export function judgeMeasuredRunout(value: number, unit: LengthUnit, profile: ToleranceProfile): RangeVerdict {
-  return judgeRange(value, { max: mmToLength(profile.runoutMax, unit) }, profile.nearShare);
-}
-
-/** The pinion turning-torque band for new or used bearings, in `torqueUnit`. */
-export function preloadBandIn(
+/** A measured back-face runout (entry unit) against the profile's runout limit as published. */
+export function judgeMeasuredRunout(
+  value: number,
+  basis: SheetBasis,
   profile: ToleranceProfile,
-  bearings: 'new' | 'used',
-  torqueUnit: TorqueUnit,
-): { min: number; max: number } {
-  const band = bearings === 'new' ? profile.pinionPreloadNew : profile.pinionPreloadUsed;
-  return { min: nmToTorque(band.min, torqueUnit), max: nmToTorque(band.max, torqueUnit) };
+): JudgedMeasure | undefined {
+  return judgeSheetReadings({ backFaceRunout: value }, profile, basis)[0];
 }
 
-/** A pinion turning torque (in `torqueUnit`) against its band. */
+/** A pinion turning torque (in the entry torque unit) against its band as published. */
 export function judgePreload(
   value: number,
   bearings: 'new' | 'used',
-  torqueUnit: TorqueUnit,
+  basis: SheetBasis,
   profile: ToleranceProfile,
-): RangeVerdict {
-  return judgeRange(value, preloadBandIn(profile, bearings, torqueUnit), profile.nearShare);
+): JudgedMeasure | undefined {
+  return judgeSheetReadings({ pinionTorque: { value, bearings } }, profile, basis)[0];
+}
+
+/** The sheet's verdicts as the list shows them: the limit as published in the entry unit and what it was judged at. */
+export function showSheetVerdicts(
+  judged: readonly JudgedMeasure[],
+  profile: ToleranceProfile,
+  basis: SheetBasis,
+): ReaderVerdict[] {
+  const resolution = findResolution(basis.resolution) ?? findResolution(basis.unit === 'in' ? '0.001in' : '0.01mm')!;
+  const units = { unit: basis.unit, torqueUnit: basis.torqueUnit };
+  return verdictsForReader(judged, publishedLimitsOf(profile), { entry: units, reader: units, resolution });
 }

@@ -1,5 +1,14 @@
 import { z } from 'zod';
-import { INDICATOR_RESOLUTIONS, lengthToMm, torqueToNm, type LengthUnit, type TorqueUnit } from '../units';
+import {
+  INDICATOR_RESOLUTIONS,
+  lengthLimitToText,
+  lengthToMm,
+  nmToTorque,
+  torqueToNm,
+  torqueUnitToLabel,
+  type LengthUnit,
+  type TorqueUnit,
+} from '../units';
 
 /**
  * The inspection sheet: one schema for the form in the browser and for the endpoints. Values come
@@ -12,6 +21,29 @@ export const SEVERITIES = ['none', 'light', 'moderate', 'severe'] as const;
 export type Severity = (typeof SEVERITIES)[number];
 export const TOOTH_FINDINGS = ['pitting', 'spalling', 'scoring', 'chipped', 'cracked', 'heat-discolouration'] as const;
 export const CONDITION_AREAS = ['splines', 'bearings', 'seals'] as const;
+
+const RESOLUTION_HINT = `Give one of ${RESOLUTION_IDS.join(', ')}, or one graduation as a number in the inspection's unit (0.0005 with unit "in").`;
+const INSPECTED_AT_HINT = 'Give a date (2026-05-03) or an ISO date-time, e.g. 2026-05-03T14:20:00Z.';
+
+/**
+ * The resolution id of a graduation typed as a number in the inspection's unit, or undefined for none.
+ * @example numberToResolutionId(0.0005, 'in') // '0.0005in'
+ */
+export function numberToResolutionId(step: number, unit: LengthUnit): string | undefined {
+  return INDICATOR_RESOLUTIONS.find((r) => r.unit === unit && Math.abs(r.step - step) <= 1e-9 * r.step)?.id;
+}
+
+/**
+ * A plain date is that day at noon. Teams have no time zone yet, so noon UTC until they do (issue 16): a date
+ * typed anywhere from UTC−11 to UTC+11 stays on its own day. A date-time is left as it is.
+ * @example plainDateToNoon('2026-05-03') // '2026-05-03T12:00:00Z'
+ */
+export function plainDateToNoon(text: string): string {
+  if (!/^\d{4}-\d{2}-\d{2}$/.test(text)) return text;
+  const noon = `${text}T12:00:00Z`;
+  // 2026-02-30 is no day: leave it for the date-time check to refuse.
+  return new Date(noon).toISOString().slice(0, 10) === text ? noon : text;
+}
 
 /** Field limits in canonical units. */
 export const LIMITS = {
@@ -56,7 +88,10 @@ const text = (max: number, label: string) =>
 const fields = {
   gearSetId: z.string({ error: 'Choose the gear set.' }).min(1, 'Choose the gear set.').max(64),
   assemblyId: z.string().min(1).max(64).nullable().optional(),
-  inspectedAt: z.iso.datetime({ offset: true, error: 'Give the date as an ISO date-time, e.g. 2026-05-03T14:20:00Z.' }),
+  inspectedAt: z
+    .string({ error: INSPECTED_AT_HINT })
+    .transform(plainDateToNoon)
+    .pipe(z.iso.datetime({ offset: true, error: INSPECTED_AT_HINT })),
   runsAtInspection: z
     .number({ error: 'Runs at inspection must be a whole number.' })
     .int('Runs at inspection must be a whole number.')
@@ -64,9 +99,10 @@ const fields = {
     .max(LIMITS.runs, `Runs at inspection: at most ${LIMITS.runs.toLocaleString('en')}.`),
   runsChangeReason: text(500, 'The reason'),
   technicianId: z.string().min(1).max(64).nullable().optional(),
-  unit: z.enum(['in', 'mm'], { error: 'unit: in or mm.' }),
-  resolution: z.enum(RESOLUTION_IDS, { error: `resolution: one of ${RESOLUTION_IDS.join(', ')}.` }),
-  torqueUnit: z.enum(['lbf-in', 'N-m'], { error: 'torqueUnit: lbf-in or N-m.' }).default('lbf-in'),
+  unit: z.enum(['in', 'mm'], { error: 'Give "in" or "mm".' }),
+  // An id ("0.0005in") or one graduation as a number in the inspection's unit (0.0005 with unit "in").
+  resolution: z.union([z.enum(RESOLUTION_IDS), z.number()], { error: RESOLUTION_HINT }),
+  torqueUnit: z.enum(['lbf-in', 'N-m'], { error: 'Give "lbf-in" or "N-m".' }).default('lbf-in'),
   readings: z
     .array(number('Each reading').min(0, 'Each reading is 0 or more.').nullable(), {
       error: 'readings: a list of backlash readings.',
@@ -98,7 +134,7 @@ const fields = {
   preload: z
     .object({
       pinionTorque: number('Pinion turning torque').min(0, 'Torque is 0 or more.').nullable().optional(),
-      bearings: z.enum(['new', 'used'], { error: 'bearings: new or used.' }).default('used'),
+      bearings: z.enum(['new', 'used'], { error: 'Give "new" or "used".' }).default('used'),
       hubLeft: hubSideSchema,
       hubRight: hubSideSchema,
     })
@@ -136,7 +172,8 @@ export function findLimitIssues(body: {
   preload?: { pinionTorque?: number | null; hubLeft?: { torque?: number }; hubRight?: { torque?: number } };
 }): Issue[] {
   const issues: Issue[] = [];
-  const label = (mm: number) => (body.unit === 'in' ? `${mm} mm (${(mm / 25.4).toFixed(4)} in)` : `${mm} mm`);
+  // Worded in the entry unit: the technician typed inches, so the limit is said in inches.
+  const label = (mm: number) => lengthLimitToText(mm, body.unit);
   const length = (
     value: number | null | undefined,
     maxMm: number,
@@ -153,7 +190,7 @@ export function findLimitIssues(body: {
     if (torqueToNm(value, body.torqueUnit) > LIMITS.torqueNm)
       issues.push({
         path,
-        message: `${name}: at most ${LIMITS.torqueNm} N·m (${(LIMITS.torqueNm / 0.1129848290276167).toFixed(0)} lbf·in).`,
+        message: `${name}: at most ${Number(nmToTorque(LIMITS.torqueNm, body.torqueUnit).toFixed(1))} ${torqueUnitToLabel(body.torqueUnit)}.`,
       });
   };
   body.readings?.forEach((value, i) => length(value, LIMITS.backlashMm, ['readings', i], `Reading ${i + 1}`));
@@ -169,11 +206,23 @@ export function findLimitIssues(body: {
   return issues;
 }
 
-const withLimits = <T extends z.ZodType<Parameters<typeof findLimitIssues>[0]>>(schema: T) =>
-  schema.superRefine((body, ctx) => {
-    for (const issue of findLimitIssues(body))
-      ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
-  });
+const withLimits = <T extends z.ZodType<Parameters<typeof findLimitIssues>[0] & { resolution: string | number }>>(
+  schema: T,
+) =>
+  schema
+    .superRefine((body, ctx) => {
+      if (typeof body.resolution === 'number' && !numberToResolutionId(body.resolution, body.unit))
+        ctx.addIssue({ code: 'custom', path: ['resolution'], message: RESOLUTION_HINT });
+      for (const issue of findLimitIssues(body))
+        ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
+    })
+    .transform((body) => ({
+      ...body,
+      resolution:
+        typeof body.resolution === 'number'
+          ? (numberToResolutionId(body.resolution, body.unit) as string)
+          : body.resolution,
+    }));
 
 /** A draft as created or replaced: positions not read yet may be null. */
 export const inspectionDraftSchema = withLimits(z.object(fields).strict());

@@ -5,7 +5,11 @@ import type { InspectionDraftInput } from './schemas';
  * The inspection sheet's values: the shared draft schema's input, except that "runs at inspection"
  * may still be empty while the sheet is being filled. Pure helpers to make, resize and send them.
  */
-export type SheetValues = Omit<InspectionDraftInput, 'runsAtInspection'> & { runsAtInspection?: number | null };
+export type SheetValues = Omit<InspectionDraftInput, 'runsAtInspection' | 'resolution'> & {
+  runsAtInspection?: number | null;
+  /** The sheet always holds the resolution's id. */
+  resolution: string;
+};
 
 export interface BlankSheetOptions {
   gearSetId: string;
@@ -78,7 +82,6 @@ export type InspectionEntryView = Pick<
   | 'inspectedAt'
   | 'runsAtInspection'
   | 'unit'
-  | 'resolution'
   | 'torqueUnit'
   | 'readings'
   | 'runout'
@@ -87,7 +90,14 @@ export type InspectionEntryView = Pick<
   | 'preload'
   | 'patterns'
   | 'condition'
-> & { assemblyId: string | null; technicianId: string | null; runsChangeReason?: string | null; notes?: string | null };
+> & {
+  assemblyId: string | null;
+  technicianId: string | null;
+  runsChangeReason?: string | null;
+  notes?: string | null;
+  /** The API always answers the resolution's id. */
+  resolution: string;
+};
 
 /** An existing inspection's entry values as a sheet, to edit it. */
 export function viewToSheet(view: InspectionEntryView): SheetValues {

@@ -1,14 +1,16 @@
 import {
-  analyseBacklash,
   describePattern,
-  judgeRange,
+  summariseBacklash,
   type BacklashAnalysis,
-  type MeasureVerdict,
   type PatternGuidance,
   type ToleranceProfile,
 } from '../analysis';
+import type { CutMethod } from '../analysis/contact-pattern';
+import { judgeInspection, type InspectionReadings } from '../analysis/judge-inspection';
+import { publishedLimitsOf } from '../analysis/tolerance';
 import { findResolution, mmToLength, nmToTorque, type LengthUnit } from '../units';
 import type { InspectionData } from './record';
+import { verdictsForReader, type ReaderVerdict } from './verdicts-for-reader';
 
 /**
  * What one inspection's readings mean against its tolerance profile, in the reader's units: the
@@ -23,6 +25,23 @@ export interface GearGeometry {
   ringTeeth: number | null;
   pinionTeeth: number | null;
   pressureAngleDeg: number | null;
+  /** How the set was cut (contact-pattern guidance); not known when absent. */
+  cutMethod?: CutMethod;
+  /** The set's runout factor setting: a spiral angle or a typed k (runout.ts). */
+  spiralAngleDeg?: number | null;
+  runoutK?: number | null;
+}
+
+/** The geometry the runout estimate needs, when both tooth counts are known. */
+function estimateGeometry(geometry: GearGeometry) {
+  if (!geometry.ringTeeth || !geometry.pinionTeeth) return undefined;
+  return {
+    ringTeeth: geometry.ringTeeth,
+    pinionTeeth: geometry.pinionTeeth,
+    pressureAngleDeg: geometry.pressureAngleDeg ?? undefined,
+    spiralAngleDeg: geometry.spiralAngleDeg ?? null,
+    runoutK: geometry.runoutK ?? null,
+  };
 }
 
 export interface InspectionSummary {
@@ -32,7 +51,8 @@ export interface InspectionSummary {
   /** The indicator graduation in the reader's length unit (for change thresholds and digits). */
   resolution: number;
   backlash: BacklashAnalysis | null;
-  verdicts: (MeasureVerdict & { unit: string })[];
+  /** Judged in the entry unit against the limits as published, shown in the reader's units. */
+  verdicts: ReaderVerdict[];
   patterns: PatternGuidance[];
   shimTotal: number | null;
   runoutTir: number | null;
@@ -47,75 +67,61 @@ export function summariseInspection(
 ): InspectionSummary {
   const unit = units.lengthUnit;
   const len = (mm: number) => mmToLength(mm, unit);
-  const torque = (nm: number) => nmToTorque(nm, units.torqueUnit);
   const complete = data.backlashMm.length >= 3 && data.backlashMm.every((r) => r !== null);
-  const backlash = complete
-    ? analyseBacklash({
-        unit,
-        readings: (data.backlashMm as number[]).map(len),
-        profile: { min: len(profile.backlashMin), max: len(profile.backlashMax), maxSpread: len(profile.maxSpread) },
-        ...(geometry.ringTeeth && geometry.pinionTeeth
-          ? {
-              ringTeeth: geometry.ringTeeth,
-              pinionTeeth: geometry.pinionTeeth,
-              pressureAngleDeg: geometry.pressureAngleDeg ?? 20,
-            }
-          : {}),
-      })
+  const backlash: BacklashAnalysis | null = complete
+    ? { unit, ...summariseBacklash((data.backlashMm as number[]).map(len), estimateGeometry(geometry)) }
     : null;
-  const verdicts: (MeasureVerdict & { unit: string })[] = (backlash?.verdicts ?? []).map((v) => ({ ...v, unit }));
-  const near = profile.nearShare;
-  if (data.runoutMm.backFace !== null) {
-    const value = len(data.runoutMm.backFace);
-    verdicts.push({
-      measure: 'runout-measured' as MeasureVerdict['measure'],
-      value,
-      ...judgeRange(value, { max: len(profile.runoutMax) }, near),
-      unit,
-    });
-  }
-  if (data.preload.pinionNm !== null) {
-    const band = data.preload.bearings === 'new' ? profile.pinionPreloadNew : profile.pinionPreloadUsed;
-    const value = torque(data.preload.pinionNm);
-    verdicts.push({
-      measure: `pinion-preload-${data.preload.bearings}` as MeasureVerdict['measure'],
-      value,
-      ...judgeRange(value, { min: torque(band.min), max: torque(band.max) }, near),
-      unit: units.torqueUnit,
-    });
-  }
-  if (profile.hubPreloadCheck) {
-    for (const [side, check] of [
-      ['left', data.preload.hubLeft],
-      ['right', data.preload.hubRight],
-    ] as const) {
-      if (check.unchanged === null) continue;
-      // A yes/no check: "unchanged" passes with margin 1, "changed" fails with margin -1.
-      verdicts.push({
-        measure: `hub-${side}` as MeasureVerdict['measure'],
-        value: check.unchanged ? 1 : 0,
-        verdict: check.unchanged ? 'in-band' : 'out-of-band',
-        limit: 'min',
-        limitValue: 1,
-        margin: check.unchanged ? 1 : -1,
-        unit: 'check',
-      });
-    }
-  }
+  const resolution = findResolution(data.entry.resolution) ?? findResolution(unit === 'in' ? '0.001in' : '0.01mm')!;
+  const entryUnit = data.entry.unit;
+  const readings: InspectionReadings = {
+    backlash: complete ? entryBacklash(data, entryUnit, geometry) : null,
+    backFaceRunout: data.runoutMm.backFace === null ? null : mmToLength(data.runoutMm.backFace, entryUnit),
+    pinionTorque:
+      data.preload.pinionNm === null
+        ? null
+        : { value: nmToTorque(data.preload.pinionNm, data.entry.torqueUnit), bearings: data.preload.bearings },
+    hubs: { left: data.preload.hubLeft.unchanged, right: data.preload.hubRight.unchanged },
+  };
+  const entryUnits = { unit: entryUnit, torqueUnit: data.entry.torqueUnit };
+  const judged = judgeInspection(readings, profile, {
+    ...entryUnits,
+    graduation: mmToLength(resolution.mm, entryUnit),
+  });
+  const verdicts = verdictsForReader(judged, publishedLimitsOf(profile), {
+    entry: entryUnits,
+    reader: { unit, torqueUnit: units.torqueUnit },
+    resolution,
+  });
+  const drive = data.patterns.drive;
+  const patternContext = {
+    cutMethod: geometry.cutMethod ?? 'unknown',
+    drive: drive ? { alongTooth: drive.along, upTooth: drive.up } : null,
+  };
   const patterns = (['drive', 'coast'] as const).flatMap((side) => {
     const p = data.patterns[side];
-    return p ? [describePattern({ side, alongTooth: p.along, upTooth: p.up })] : [];
+    return p ? [describePattern({ side, alongTooth: p.along, upTooth: p.up }, patternContext)] : [];
   });
-  const resolution = findResolution(data.entry.resolution);
   return {
     complete,
     unit,
     torqueUnit: units.torqueUnit,
-    resolution: resolution ? len(resolution.mm) : 0,
+    resolution: findResolution(data.entry.resolution) ? len(resolution.mm) : 0,
     backlash,
     verdicts,
     patterns,
     shimTotal: data.pinion.shimsMm.length ? len(data.pinion.shimsMm.reduce((a, b) => a + b, 0)) : null,
     runoutTir: data.runoutMm.backFace === null ? null : len(data.runoutMm.backFace),
+  };
+}
+
+/** The backlash figures the verdicts are judged on, in the unit the dial was read in. */
+function entryBacklash(data: InspectionData, entryUnit: LengthUnit, geometry: GearGeometry) {
+  const readings = (data.backlashMm as number[]).map((mm) => mmToLength(mm, entryUnit));
+  const summary = summariseBacklash(readings, estimateGeometry(geometry));
+  return {
+    min: summary.min,
+    max: summary.max,
+    spread: summary.spread,
+    ...(summary.runoutEstimate && { runoutEstimate: summary.runoutEstimate.tir }),
   };
 }

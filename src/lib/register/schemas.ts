@@ -71,6 +71,23 @@ const partFields = {
     .min(10, 'Pressure angle: at least 10°.')
     .max(30, 'Pressure angle: at most 30°.')
     .optional(),
+  // Gear sets: how the teeth were cut (contact-pattern guidance) and the runout factor k, as a spiral angle or a
+  // typed k (null clears it: k from the tooth counts and pressure angle alone).
+  cutMethod: z
+    .enum(['face-milled', 'face-hobbed', 'unknown'], { error: 'cutMethod: face-milled, face-hobbed or unknown.' })
+    .optional(),
+  spiralAngleDeg: z
+    .number({ error: 'The spiral angle must be a number of degrees.' })
+    .min(0, 'Spiral angle: at least 0°.')
+    .max(60, 'Spiral angle: at most 60°.')
+    .nullable()
+    .optional(),
+  runoutK: z
+    .number({ error: 'runoutK must be a number.' })
+    .gt(0, 'runoutK must be more than 0.')
+    .max(5, 'runoutK: at most 5.')
+    .nullable()
+    .optional(),
 };
 
 /** A gear set needs both tooth counts, the ring gear having more teeth than the pinion. */
@@ -85,8 +102,17 @@ function checkGearTeeth(part: { kind?: string; ringTeeth?: number; pinionTeeth?:
   }
 }
 
-export const partCreateSchema = z.object(partFields).superRefine(checkGearTeeth);
-export const partUpdateSchema = z.object(partFields).omit({ kind: true }).partial();
+/** The runout factor is set one way: a spiral angle or a typed k, not both. */
+function checkRunoutFactor(
+  part: { spiralAngleDeg?: number | null; runoutK?: number | null },
+  ctx: z.RefinementCtx,
+): void {
+  if (typeof part.spiralAngleDeg === 'number' && typeof part.runoutK === 'number')
+    ctx.addIssue({ code: 'custom', path: ['runoutK'], message: 'Give a spiral angle or a typed k, not both.' });
+}
+
+export const partCreateSchema = z.object(partFields).superRefine(checkGearTeeth).superRefine(checkRunoutFactor);
+export const partUpdateSchema = z.object(partFields).omit({ kind: true }).partial().superRefine(checkRunoutFactor);
 
 export const installationSchema = z
   .object({

@@ -24,6 +24,10 @@ export interface PartView {
   ratio?: number | null;
   ratioLabel?: string | null;
   pressureAngleDeg?: number | null;
+  /** Gear sets: how the teeth were cut, and the runout factor as a spiral angle or a typed k. */
+  cutMethod?: 'face-milled' | 'face-hobbed' | 'unknown';
+  spiralAngleDeg?: number | null;
+  runoutK?: number | null;
   createdAt: string;
 }
 

@@ -15,7 +15,11 @@ describe('summariseBacklash', () => {
 
   it('adds a runout estimate only when the tooth counts are given', () => {
     const summary = summariseBacklash([0.2, 0.15, 0.1, 0.15], { ringTeeth: 41, pinionTeeth: 10 });
-    expect(summary.runoutEstimate?.tir).toBeCloseTo((2 * 0.05) / summary.runoutEstimate!.k, 12);
+    // Worked by hand: C = 0.05; δ2 = atan(41/10), αn = 20° (M) → k = 2·sin δ2·tan αn = 0.7072090 (TRADE.md, D);
+    // TIR = 2C / k = 0.1 / 0.7072090 = 0.1414009.
+    expect(summary.runoutEstimate?.tir).toBeCloseTo(0.1414009, 6);
+    expect(summary.runoutEstimate).toMatchObject({ kBasis: 'tooth-counts' });
+    expect(summary.runoutEstimate?.kText).toContain('k = 0.707');
   });
 
   it('refuses fewer than 3 or more than 24 readings', () => {

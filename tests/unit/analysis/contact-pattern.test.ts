@@ -55,6 +55,7 @@ describe('describePattern', () => {
   });
 
   it('lets the height decide the pinion when the pattern is off both ways', () => {
+    // TRADE.md (S: Nissan …): face → pinion closer; (gear maker’s technical note): toe → ring gear away.
     const guidance = describePattern({ side: 'drive', alongTooth: 0.1, upTooth: 0.9 });
     expect(guidance.code).toBe('toe-face');
     expect(guidance.corrections.map((c) => c.direction)).toEqual(['toward-ring-gear', 'away-from-pinion']);
@@ -66,13 +67,96 @@ describe('describePattern', () => {
     expect(describePattern({ side: 'drive', alongTooth: 0.5, upTooth: 0.2 }).guidance).toContain('0.1 mm (0.004 in)');
   });
 
-  it('asks to confirm on the drive side when reading the coast side', () => {
-    const guidance = describePattern({ side: 'coast', alongTooth: 0.5, upTooth: 0.9 });
-    expect(guidance.side).toBe('coast');
-    expect(guidance.guidance).toContain('confirm on the drive side');
+  it('refuses positions outside 0..1 on the coast side too', () => {
+    // 0 = toe, 1 = heel (S: GM service manual, 9-1/2 in axle); outside is no position.
+    expect(() => describePattern({ side: 'coast', alongTooth: -0.1, upTooth: 0.5 })).toThrow(RangeError);
+  });
+});
+
+describe('describePattern: the coast side', () => {
+  // TRADE.md (axle maker's pattern guide, medium confidence): on a face-milled gear, as the pinion moves away from
+  // the ring-gear centreline, the drive pattern moves toward the heel and the coast pattern toward the toe. So a
+  // depth correction is read from the drive side; the coast rule is never the drive rule applied to the coast.
+  const FACE_MILLED = { cutMethod: 'face-milled' as const };
+
+  it('never tells a coast pattern toward the heel to move the pinion closer (the drive rule)', () => {
+    // TRADE.md (axle maker’s pattern guide): the coast side answers the other way along the tooth.
+    const guidance = describePattern({ side: 'coast', alongTooth: 0.9, upTooth: 0.5 }, FACE_MILLED);
+    expect(guidance.corrections).toEqual([]);
+    expect(guidance.guidance).not.toContain('closer to the ring gear');
+    expect(guidance.guidance).toContain('corrected from the drive side');
+    expect(guidance.action).toBe('watch');
+  });
+
+  it('reads a coast pattern toward the toe with a drive pattern toward the heel as agreeing: pinion closer', () => {
+    // Drive at the heel: pinion too far away (Nissan: heel → closer). Coast at the toe: the same cause (axle maker).
+    const guidance = describePattern(
+      { side: 'coast', alongTooth: 0.1, upTooth: 0.5 },
+      { ...FACE_MILLED, drive: { alongTooth: 0.9, upTooth: 0.5 } },
+    );
+    expect(guidance.guidance).toContain('agrees with the drive side');
+    expect(guidance.guidance).toContain('closer to the ring gear');
+  });
+
+  it('reads a coast pattern toward the heel with a drive pattern toward the toe as agreeing: pinion away', () => {
+    // Drive at the toe: pinion too close (S: Nissan, toe → away); coast at the heel: the same cause (axle maker’s guide).
+    const guidance = describePattern(
+      { side: 'coast', alongTooth: 0.9, upTooth: 0.5 },
+      { ...FACE_MILLED, drive: { alongTooth: 0.1, upTooth: 0.5 } },
+    );
+    expect(guidance.guidance).toContain('agrees with the drive side');
+    expect(guidance.guidance).toContain('away from the ring gear');
+  });
+
+  it('says a depth change cannot centre both when drive and coast sit toward the same end', () => {
+    // A depth change moves drive and coast opposite ways along the tooth (axle maker’s pattern guide).
+    const guidance = describePattern(
+      { side: 'coast', alongTooth: 0.9, upTooth: 0.5 },
+      { ...FACE_MILLED, drive: { alongTooth: 0.9, upTooth: 0.5 } },
+    );
+    expect(guidance.guidance).toContain('will not centre both');
+    expect(guidance.corrections).toEqual([]);
+  });
+
+  it('takes a coast pattern slightly toward the toe as usual for a new setup, not a reason to set up again', () => {
+    // TRADE.md (S: GM/Geo): under road load the pattern moves toward the heel, so a new setup may sit slightly
+    // toward the toe; "slightly" = 0.2–0.3 of the tooth (CP).
+    const guidance = describePattern({ side: 'coast', alongTooth: 0.25, upTooth: 0.5 }, FACE_MILLED);
+    expect(guidance).toMatchObject({ code: 'toe', inUsualRegion: true, action: 'keep' });
+    expect(guidance.guidance).toContain('GM/Geo');
+  });
+
+  it('never makes a coast pattern a reason to re-shim on its own', () => {
+    // Depth corrections are read from the drive side (axle maker’s pattern guide).
+    for (const alongTooth of [0, 0.1, 0.9, 1]) {
+      for (const upTooth of [0, 0.5, 1]) {
+        expect(describePattern({ side: 'coast', alongTooth, upTooth }, FACE_MILLED).action).not.toBe('re-shim');
+      }
+    }
+  });
+});
+
+describe('describePattern: the cut method', () => {
+  it('gives a face-hobbed set no toe/heel depth advice, only a pointer to the gear maker (CP)', () => {
+    for (const side of ['drive', 'coast'] as const) {
+      const guidance = describePattern({ side, alongTooth: 0.9, upTooth: 0.5 }, { cutMethod: 'face-hobbed' });
+      expect(guidance.corrections).toEqual([]);
+      expect(guidance.guidance).not.toMatch(/closer to the ring gear|away from the ring gear/);
+      expect(guidance.guidance).toContain("gear maker's pattern chart");
+    }
+  });
+
+  it('reads a set of unknown cut as face-milled, saying face-hobbed sets answer differently', () => {
+    // TRADE.md (S: Nissan …) for the rule; (CP) for the caution
+    const guidance = describePattern({ side: 'drive', alongTooth: 0.9, upTooth: 0.5 }, { cutMethod: 'unknown' });
+    expect(guidance.corrections[0]).toEqual({ part: 'pinion', direction: 'toward-ring-gear', source: NISSAN });
+    expect(guidance.guidance).toContain('face-hobbed set answers differently');
+    const milled = describePattern({ side: 'drive', alongTooth: 0.9, upTooth: 0.5 }, { cutMethod: 'face-milled' });
+    expect(milled.guidance).not.toContain('face-hobbed');
   });
 
   it('refuses positions outside 0..1', () => {
+    // 0 = toe, 1 = heel (S: GM service manual, 9-1/2 in axle); outside is no position.
     expect(() => describePattern({ side: 'drive', alongTooth: 1.2, upTooth: 0.5 })).toThrow(RangeError);
     expect(() => describePattern({ side: 'drive', alongTooth: 0.5, upTooth: Number.NaN })).toThrow(RangeError);
   });

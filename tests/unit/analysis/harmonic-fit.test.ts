@@ -36,6 +36,7 @@ function solveNormalEquations(readings: readonly number[]): [number, number, num
 
 describe('fitFirstHarmonic', () => {
   it('finds the loosest point at position 1 for four readings 0.2, 0.1, 0.0, 0.1', () => {
+    // Worked by hand (ISO 4291:1985 Annex F, as TRADE.md reproduces it, S): a = (2/4)·(0.2 − 0.0) = 0.1, b = 0.
     const fit = fitFirstHarmonic([0.2, 0.1, 0.0, 0.1]);
     expect(fit.a).toBeCloseTo(0.1, 15);
     expect(fit.b).toBe(0);
@@ -62,6 +63,7 @@ describe('fitFirstHarmonic', () => {
   });
 
   it('equals the brute-force normal-equations least-squares solution on noisy readings', () => {
+    // Independent computation written here: the normal equations of the least-squares fit (ISO 4291 Annex F, S).
     const random = createRandom(1985);
     for (let n = 3; n <= 24; n++) {
       const readings = Array.from({ length: n }, () => pickBetween(random, 0.1, 0.25));
@@ -77,6 +79,7 @@ describe('fitFirstHarmonic', () => {
   });
 
   it('leaves residuals orthogonal to 1, cos θ and sin θ, as a least-squares fit must', () => {
+    // A property of any least-squares fit (ISO 4291 Annex F, S): residuals orthogonal to each fitted function.
     const random = createRandom(7);
     for (const n of [4, 5, 8, 11, 24]) {
       const readings = Array.from({ length: n }, () => pickBetween(random, 0.1, 0.25));
@@ -89,6 +92,7 @@ describe('fitFirstHarmonic', () => {
   });
 
   it('fits any three readings exactly, leaving zero residuals', () => {
+    // Three readings, three unknowns (m, a, b): the fit is exact (ISO 4291 Annex F, S; D).
     const fit = fitFirstHarmonic([0.21, 0.13, 0.17]);
     for (const residual of fit.residuals) expect(Math.abs(residual)).toBeLessThan(1e-15);
   });
@@ -101,6 +105,7 @@ describe('fitFirstHarmonic', () => {
   });
 
   it('measures the loosest angle from position 1 in the direction positions are numbered', () => {
+    // Lashline convention, position 1 at 0°, angles growing with the position number (CP).
     const loosestAtThirdOfEight = [0.15, 0.17, 0.2, 0.17, 0.15, 0.13, 0.1, 0.13];
     const fit = fitFirstHarmonic(loosestAtThirdOfEight);
     expect(fit.loosestAngleDeg).toBeCloseTo(90, 9);
@@ -109,12 +114,14 @@ describe('fitFirstHarmonic', () => {
   });
 
   it('keeps angles in [0, 360) when the loosest point is at a negative atan2 angle', () => {
+    // Lashline convention: angles in [0°, 360°) (CP).
     const fit = fitFirstHarmonic(buildReadings(12, 0.15, 0, -0.02));
     expect(fit.loosestAngleDeg).toBeCloseTo(270, 9);
     expect(fit.tightestAngleDeg).toBeCloseTo(90, 9);
   });
 
   it('reports no loosest angle when every reading is the same', () => {
+    // No once-per-turn part, no direction (CP: the README decision on angles).
     const fit = fitFirstHarmonic([0.15, 0.15, 0.15, 0.15, 0.15]);
     expect(fit.amplitude).toBe(0);
     expect(fit.loosestAngleDeg).toBeNull();
@@ -122,10 +129,12 @@ describe('fitFirstHarmonic', () => {
   });
 
   it('refuses fewer than three readings', () => {
+    // TRADE.md: the fit needs N ≥ 3 (S, ISO 4291 Annex F as reproduced).
     expect(() => fitFirstHarmonic([0.1, 0.2])).toThrow(RangeError);
   });
 
   it('recovers a random phase for random N', () => {
+    // Independent: readings built from a known phase with cos(θ − φ) written here (ISO 4291 Annex F, S).
     const random = createRandom(360);
     for (let trial = 0; trial < 100; trial++) {
       const n = pickInteger(random, 3, 24);
@@ -143,6 +152,7 @@ describe('fitFirstHarmonic', () => {
 
 describe('normaliseDegrees', () => {
   it('wraps negative and overlarge angles into [0, 360)', () => {
+    // Lashline convention: angles in [0°, 360°) (CP).
     expect(normaliseDegrees(-90)).toBe(270);
     expect(normaliseDegrees(540)).toBe(180);
     expect(normaliseDegrees(360)).toBe(0);

@@ -25,7 +25,8 @@ describe('analyseBacklash', () => {
       pinionTeeth: 10,
     });
     expect(analysis.runoutEstimate?.k).toBeCloseTo(0.707, 3);
-    expect(analysis.runoutEstimate?.tir).toBeCloseTo(0.004 / analysis.runoutEstimate!.k, 12);
+    // C = 0.002 in; k = 2·sin(atan(41/10))·tan 20° = 0.7072090 worked by hand (TRADE.md, D): TIR = 0.004 / k.
+    expect(analysis.runoutEstimate?.tir).toBeCloseTo(0.005656, 6);
     expect(analysis.verdicts?.map((v) => [v.measure, v.verdict])).toEqual([
       ['backlash-min-point', 'out-of-band'],
       ['backlash-max-point', 'in-band'],

@@ -82,13 +82,13 @@ describe('judgeBacklash', () => {
     expect(verdicts.map((v) => v.measure)).toEqual(['spread']);
   });
 
-  it('works in inches with the inch band, giving the same verdicts', () => {
-    const inches = { min: 0.12 / 25.4, max: 0.2 / 25.4, spread: 0.08 / 25.4 };
-    const verdicts = judgeBacklash(inches, {
-      backlashMin: 0.13 / 25.4,
-      backlashMax: 0.23 / 25.4,
-      maxSpread: 0.05 / 25.4,
-    });
-    expect(verdicts.map((v) => v.verdict)).toEqual(['out-of-band', 'in-band', 'out-of-band']);
+  it('works in inches against the inch band as GM prints it', () => {
+    // TRADE.md (S: GM light-truck service manual, 8-5/8 in ring gear axle, 1996): 0.005–0.009 in at the minimum
+    // point, variation within 0.002 in — the printed inch figures, not 0.13 / 25.4 = 0.00512 in.
+    const inchBand = { backlashMin: 0.005, backlashMax: 0.009, maxSpread: 0.002 };
+    const onTheLimits = judgeBacklash({ min: 0.005, max: 0.007, spread: 0.002 }, inchBand);
+    expect(onTheLimits.map((v) => v.verdict)).toEqual(['near-limit', 'in-band', 'near-limit']);
+    const beyond = judgeBacklash({ min: 0.004, max: 0.008, spread: 0.004 }, inchBand);
+    expect(beyond.map((v) => v.verdict)).toEqual(['out-of-band', 'in-band', 'out-of-band']);
   });
 });

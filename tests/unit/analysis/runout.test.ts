@@ -24,9 +24,9 @@ describe('computeRunoutFactor', () => {
     // M: the 20° default is from memory (TRADE.md worked example); checked here only as the default in use
     expect(DEFAULT_PRESSURE_ANGLE_DEG).toBe(20);
     expect(DEFAULT_PRESSURE_ANGLE_SOURCE.key).toBe('M');
-    expect(computeRunoutFactor({ ringTeeth: 41, pinionTeeth: 10 }).k).toBe(
-      computeRunoutFactor({ ringTeeth: 41, pinionTeeth: 10, pressureAngleDeg: 20 }).k,
-    );
+    // Worked by hand with 20°: sin(atan(41/10)) = 4.1 / √17.81 = 0.9715202, tan 20° = 0.3639702,
+    // k = 2 × 0.9715202 × 0.3639702 = 0.7072090 (TRADE.md, D).
+    expect(computeRunoutFactor({ ringTeeth: 41, pinionTeeth: 10 }).k).toBeCloseTo(0.707209, 6);
   });
 
   it('reduces to the spur factor 2·tan α as the pitch angle approaches 90°', () => {
@@ -79,7 +79,8 @@ describe('recovering eccentricity and runout from the fit', () => {
   it('recovers a back-face runout Ra from readings with peak-to-peak k·Ra', () => {
     // TRADE.md (D): bevel/hypoid extension, lash peak-to-peak ≈ k·Ra
     const geometry = { ringTeeth: 41, pinionTeeth: 10, pressureAngleDeg: 20 };
-    const { k } = computeRunoutFactor(geometry);
+    // k written out here, not taken from the code: 2·sin δ2·tan αn with tan δ2 = 41/10 (TRADE.md, D).
+    const k = 2 * Math.sin(Math.atan2(41, 10)) * Math.tan(20 * DEG);
     const runout = 0.05;
     const readings = Array.from(
       { length: 8 },
@@ -87,7 +88,28 @@ describe('recovering eccentricity and runout from the fit', () => {
     );
     const estimate = summariseBacklash(readings, geometry).runoutEstimate;
     expect(estimate?.tir).toBeCloseTo(runout, 12);
-    expect(estimate?.k).toBe(k);
+    expect(estimate?.k).toBeCloseTo(0.707209, 6);
+  });
+
+  it('takes k in the transverse plane for a spiral angle: a 45° spiral gives 1/cos 45° ≈ 1.414 × k', () => {
+    // Elements of Metric Gear Technology: transverse j_t = 2·Δa·tan αt (§14) with tan αt = tan αn / cos β (helical
+    // relation, M); so k = 2·sin δ2·tan αn / cos βm (D). 0.7072090 / cos 45° = 1.0001445, worked by hand.
+    const factor = computeRunoutFactor({ ringTeeth: 41, pinionTeeth: 10, spiralAngleDeg: 45 });
+    expect(factor).toMatchObject({ basis: 'spiral-angle' });
+    expect(factor.k).toBeCloseTo(1.0001445, 6);
+    // The same lash (peak-to-peak 0.1) read as runout: 0.1414 without the spiral angle, 0.09999 with it — the
+    // straight-tooth k overstates by about 40 %.
+    expect(amplitudeToRunout(0.05, factor.k)).toBeCloseTo(0.0999856, 6);
+  });
+
+  it('uses a typed k as typed, and says which k it used', () => {
+    const typed = computeRunoutFactor({ ringTeeth: 41, pinionTeeth: 10, runoutK: 0.65 });
+    expect(typed).toMatchObject({ k: 0.65, basis: 'typed' });
+    const estimate = summariseBacklash([0.2, 0.15, 0.1, 0.15], { ringTeeth: 41, pinionTeeth: 10, runoutK: 0.65 });
+    // 2C / k = 0.1 / 0.65 = 0.153846
+    expect(estimate.runoutEstimate?.tir).toBeCloseTo(0.153846, 6);
+    expect(estimate.runoutEstimate?.kText).toBe('k = 0.650, typed in for this set');
+    expect(() => computeRunoutFactor({ ringTeeth: 41, pinionTeeth: 10, runoutK: 0 })).toThrow(RangeError);
   });
 
   it('converts amplitude to runout as 2C / k', () => {

@@ -19,11 +19,13 @@ describe('summariseReadings', () => {
   });
 
   it('gives min, max, spread and count', () => {
+    // Worked by hand on the readings written here (D: definitions only).
     expect(summariseReadings([0.15, 0.18, 0.14, 0.17])).toMatchObject({ count: 4, min: 0.14, max: 0.18 });
     expect(summariseReadings([0.15, 0.18, 0.14, 0.17]).spread).toBeCloseTo(0.04, 15);
   });
 
   it('agrees with simple-statistics on random readings', () => {
+    // Independent implementation: simple-statistics (sample SD with n − 1, as NIST StRD certifies).
     const random = createRandom(1);
     for (let trial = 0; trial < 200; trial++) {
       const readings = Array.from({ length: pickInteger(random, 2, 24) }, () => pickBetween(random, 0.05, 0.3));
@@ -34,6 +36,7 @@ describe('summariseReadings', () => {
   });
 
   it('refuses fewer than two readings', () => {
+    // A sample SD needs n ≥ 2 (NIST StRD definition).
     expect(() => summariseReadings([0.1])).toThrow(RangeError);
     expect(() => computeMean([])).toThrow(RangeError);
   });

@@ -53,6 +53,9 @@ describe('computeTighteningSequence', () => {
   it('hands out a frozen order, so one caller cannot change another caller’s sequence', () => {
     const sequence = computeTighteningSequence(6);
     expect(Object.isFrozen(sequence)).toBe(true);
-    expect(computeTighteningSequence(6)).toEqual([1, 4, 2, 5, 3, 6]);
+    // No published 6-bolt order (TRADE.md lists 4, 8, 12, 16): checked against the cross pattern itself (CP, "a
+    // cross (star) sequence"): every bolt once, each bolt followed by the one opposite it (3 positions round).
+    expect([...sequence].sort((a, b) => a - b)).toEqual([1, 2, 3, 4, 5, 6]);
+    for (let i = 0; i < 6; i += 2) expect(Math.abs(sequence[i]! - sequence[i + 1]!)).toBe(3);
   });
 });

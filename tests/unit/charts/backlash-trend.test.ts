@@ -48,32 +48,36 @@ describe('shapeBacklashTrend', () => {
     expect(shape.xDomain[1]).toBeGreaterThanOrEqual(50);
   });
 
-  it('projects a rising trend to the upper limit and labels the run', () => {
+  it('draws the mean but projects the loosest point to the upper limit, and labels the run', () => {
     const shape = shapeBacklashTrend(makeInput(RISING));
-    // 0.0065 + 0.00005·runs meets 0.009 at run 50 exactly.
+    // The mean line 0.0065 + 0.00005·runs stays on the chart; it would meet 0.009 at run 50, but the band is for
+    // the points (S: GM 1996, "at the minimum point"): the loosest, 0.007 + 0.00005·runs, meets 0.009 at run 40.
     expect(shape.fit).toHaveLength(2);
     expect(shape.fit![0]).toMatchObject({ runs: 0 });
     expect(shape.fit![0]!.value).toBeCloseTo(0.0065, 12);
     expect(shape.projection).not.toBeNull();
     expect(shape.projection!.from.runs).toBe(30);
-    expect(shape.projection!.from.value).toBeCloseTo(0.008, 12);
-    expect(shape.projection!.to.runs).toBeCloseTo(50, 9);
+    expect(shape.projection!.from.value).toBeCloseTo(0.0085, 12);
+    expect(shape.projection!.to.runs).toBeCloseTo(40, 9);
     expect(shape.projection!.to.value).toBe(0.009);
-    expect(shape.projection!.label).toBe('run 50');
-    expect(shape.message).toBe(
-      'At this rate mean backlash reaches the upper limit (0.009 in) at about run 50, 20 runs after the last inspection.',
+    expect(shape.projection!.label).toBe('run 40');
+    expect(shape.message).toContain(
+      'At this rate backlash at the loosest point reaches the upper limit (0.009 in) at about run 40, 10 runs after the last inspection.',
     );
+    expect(shape.message).not.toContain('mean backlash reaches');
     expect(shape.xDomain[1]).toBeGreaterThan(50);
     expect(shape.state).toBe('ready');
   });
 
   it('projects a falling trend to the lower limit', () => {
     const shape = shapeBacklashTrend(makeInput(FALLING));
-    // 0.0085 − 0.0001·runs meets 0.005 at run 35.
-    expect(shape.projection!.to.runs).toBeCloseTo(35, 9);
+    // The tightest point 0.008 − 0.0001·runs meets 0.005 at run 30 (the mean would at 35).
+    expect(shape.projection!.to.runs).toBeCloseTo(30, 9);
     expect(shape.projection!.to.value).toBe(0.005);
-    expect(shape.projection!.label).toBe('run 35');
-    expect(shape.message).toMatch(/reaches the lower limit \(0\.005 in\) at about run 35, 15 runs after/);
+    expect(shape.projection!.label).toBe('run 30');
+    expect(shape.message).toMatch(
+      /tightest point reaches the lower limit \(0\.005 in\) at about run 30, 10 runs after/,
+    );
   });
 
   it('says a far crossing in words instead of stretching the chart to it', () => {
@@ -89,7 +93,7 @@ describe('shapeBacklashTrend', () => {
     expect(shape.xDomain[1]).toBeLessThan(100);
   });
 
-  it('says when the line is already past a limit', () => {
+  it('says the latest reading is past its limit now, never that the line passed it before', () => {
     const shape = shapeBacklashTrend(
       makeInput([
         { runs: 0, mean: 0.008 },
@@ -98,7 +102,9 @@ describe('shapeBacklashTrend', () => {
       ]),
     );
     expect(shape.projection).toBeNull();
-    expect(shape.message).toMatch(/already past the upper limit \(0\.009 in\), since about run 8/);
+    // Loosest 0.0085, 0.0097, 0.0109 in: the latest is over the printed 0.009 in (S: GM 1996) now.
+    expect(shape.message).toContain('The latest backlash at the loosest point is past its limit now.');
+    expect(shape.message).not.toMatch(/since about run|before the last inspection/);
   });
 
   it('never writes more digits than the indicator resolves', () => {
@@ -122,5 +128,15 @@ describe('shapeBacklashTrend', () => {
   it('marks the life limit and leaves it out when the set has none', () => {
     expect(shapeBacklashTrend(makeInput(RISING)).lifeLimit).toEqual({ runs: 50, label: 'life limit 50' });
     expect(shapeBacklashTrend(makeInput(RISING, { lifeLimitRuns: null })).lifeLimit).toBeNull();
+  });
+});
+
+describe('limits on the charts as printed', () => {
+  it('writes the band as printed in the reader’s unit, not converted to the graduation', () => {
+    // 0.005–0.009 in and 0.002 in (S: GM 1996): on a 0.0005 in dial the graduation would write 0.0050–0.0090.
+    const input = makeInput([{ runs: 5, mean: 0.007, resolution: '0.0005in' }]);
+    const printed = { ...input, limitTexts: { backlashMin: '0.005', backlashMax: '0.009', maxSpread: '0.002' } };
+    expect(shapeBacklashTrend(printed).bands[0]!.label).toBe('band 0.005–0.009 in');
+    expect(shapeBacklashTrend(input).bands[0]!.label).toBe('band 0.0050–0.0090 in');
   });
 });

@@ -13,8 +13,8 @@ describe('chart number formats', () => {
     expect(lengthToText(0.008749, 'in', '0.001in')).toBe('0.009');
     expect(lengthToText(0.008749, 'in', '0.0005in')).toBe('0.0087');
     expect(lengthToText(0.2222, 'mm', '0.01mm')).toBe('0.22');
-    // 0.001 in is 0.0254 mm: one digit more than the leading place (units.ts rule).
-    expect(lengthToText(0.2222, 'mm', '0.001in')).toBe('0.222');
+    // 0.001 in is 0.0254 mm: the largest power of ten not above it is 0.01, so 2 decimals (TRADE.md, Units, CP).
+    expect(lengthToText(0.2222, 'mm', '0.001in')).toBe('0.22');
   });
 
   it('signs a change with a plus or a true minus, and none for nothing', () => {

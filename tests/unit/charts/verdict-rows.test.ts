@@ -59,8 +59,17 @@ describe('verdictsToRows', () => {
       margin: 0.001,
       unit: 'in',
     } as const;
-    expect(verdictsToRows([estimate], 1, '0.001in')[0]!.label).toBe('Runout estimated from the lash (TIR)');
-    // A summary written before the measured one had its own name.
-    expect(verdictsToRows([estimate], 0, '0.001in')[0]!.label).toBe('Back-face runout, measured (TIR)');
+    // Summaries are made on read, so 'runout' is always the estimate and 'runout-measured' the back face.
+    expect(verdictsToRows([estimate], 0, '0.001in')[0]!.label).toBe('Runout estimated from the lash (TIR)');
+    const measured = { ...estimate, measure: 'runout-measured' } as const;
+    expect(verdictsToRows([measured], 0, '0.001in')[0]!.label).toBe('Back-face runout, measured (TIR)');
+    // The limit as published: 0.003 in (S: Ford 1997), with what it was judged at.
+    const row = verdictsToRows(
+      [{ ...estimate, limitText: '0.003', judgedAt: 'judged at the 0.001 in graduation' }],
+      0,
+      '0.001in',
+    )[0]!;
+    expect(row.limitText).toBe('upper 0.003 in');
+    expect(row.judgedAt).toBe('judged at the 0.001 in graduation');
   });
 });

@@ -85,17 +85,32 @@ describe('analyseGearSet with no inspections or one', () => {
     expect(analysis.previous).toBeNull();
     expect(analysis.change).toBeNull();
     expect(analysis.recommendation).toBeNull();
-    expect(analysis.life).toEqual({ totalRuns: 3, runsSinceInstall: 3, lifeLimitRuns: 50, runsLeft: 50 - 3 });
+    expect(analysis.life).toEqual({
+      totalRuns: 3,
+      runsSinceInstall: 3,
+      lifeLimitRuns: 50,
+      runsLeft: 50 - 3,
+      runsOver: 0,
+      text: '47 runs left',
+    });
   });
 
-  it('still lays out both trends, empty, each saying how many inspections a projection needs', () => {
+  it('still lays out every trend, empty: the points and spread saying how many inspections a projection needs', () => {
     const analysis = analyseGearSet(input([]));
-    expect(analysis.trends.map((t) => t.measure)).toEqual(['backlash-mean', 'spread']);
+    expect(analysis.trends.map((t) => t.measure)).toEqual([
+      'backlash-mean',
+      'spread',
+      'backlash-min-point',
+      'backlash-max-point',
+    ]);
     for (const trend of analysis.trends) {
       expect(trend.points).toEqual([]);
       expect(trend.fit).toMatchObject({ count: 0, slope: null, intercept: null });
       expect(trend.projection.projectedRunsAtLimit).toBeNull();
-      expect(trend.projection.reason?.code).toBe('too-few-points');
+      // The band is for the points, not the mean: the mean is never projected (issue 16).
+      expect(trend.projection.reason?.code).toBe(
+        trend.measure === 'backlash-mean' ? 'mean-not-projected' : 'too-few-points',
+      );
     }
   });
 
@@ -109,7 +124,8 @@ describe('analyseGearSet with no inspections or one', () => {
     expect(analysis.trends[0]?.points).toHaveLength(1);
     expect(analysis.trends[0]?.points[0]?.runs).toBe(6);
     expect(analysis.trends[0]?.points[0]?.value).toBeCloseTo(0.18, 12);
-    expect(analysis.trends[0]?.projection.reason?.code).toBe('too-few-points');
+    expect(analysis.trends[0]?.projection.reason?.code).toBe('mean-not-projected');
+    expect(analysis.trends[2]?.projection.reason?.code).toBe('too-few-points');
     expect(analysis.recommendation).not.toBeNull();
   });
 });
@@ -154,6 +170,8 @@ describe('analyseGearSet: order and which inspections count', () => {
     expect(analysis.latest?.id).toBe('b');
     expect(analysis.previous?.id).toBe('a');
     expect(analysis.trends.map((t) => t.points.map((p) => p.inspectionId))).toEqual([
+      ['a', 'b'],
+      ['a', 'b'],
       ['a', 'b'],
       ['a', 'b'],
     ]);
@@ -280,14 +298,18 @@ describe('analyseGearSet: the trends of mean backlash and spread', () => {
     expect(mean?.fit.count).toBe(3);
   });
 
-  it('projects where each line meets its limit: the band for the mean, the max for the spread', () => {
-    const [mean, spread] = analyseGearSet(input(three)).trends;
+  it('projects the points and the spread to their limits, never the mean', () => {
+    const [mean, spread, tightest, loosest] = analyseGearSet(input(three)).trends;
     expect(mean?.limits).toEqual({ min: 0.13, max: 0.23 }); // S: GM 1996
     expect(spread?.limits).toEqual({ max: 0.05 }); // S: GM 1996
-    // 0.16 + 0.001·r = 0.23 at r = 70, 50 runs after the last inspection at 20
-    expect(mean?.projection.limit).toBe('max');
-    expect(mean?.projection.projectedRunsAtLimit).toBeCloseTo((0.23 - 0.16) / 0.001, 6);
-    expect(mean?.projection.runsToLimit).toBeCloseTo(70 - 20, 6);
+    // The mean reaches 0.23 at run 70, but the band is for the points (GM 1996: "at the minimum point").
+    expect(mean?.projection).toMatchObject({ projectedRunsAtLimit: null, reason: { code: 'mean-not-projected' } });
+    // Loosest: 0.17, 0.185, 0.20 → 0.17 + 0.0015·r = 0.23 at r = 40, 20 runs after the last inspection
+    expect(loosest?.projection.limit).toBe('max');
+    expect(loosest?.projection.projectedRunsAtLimit).toBeCloseTo((0.23 - 0.17) / 0.0015, 6);
+    expect(loosest?.projection.runsToLimit).toBeCloseTo(40 - 20, 6);
+    // Tightest: 0.15, 0.155, 0.16 → rising toward the max too, 0.15 + 0.0005·r = 0.23 at r = 160
+    expect(tightest?.projection.projectedRunsAtLimit).toBeCloseTo((0.23 - 0.15) / 0.0005, 6);
     // 0.02 + 0.001·r = 0.05 at r = 30, 10 runs after 20
     expect(spread?.projection.projectedRunsAtLimit).toBeCloseTo((0.05 - 0.02) / 0.001, 6);
     expect(spread?.projection.runsToLimit).toBeCloseTo(30 - 20, 6);
@@ -295,9 +317,9 @@ describe('analyseGearSet: the trends of mean backlash and spread', () => {
 
   it('projects to the limits it is given (the current profile), in their unit', () => {
     const wide = { backlashMin: 0.1, backlashMax: 0.3, maxSpread: 0.08 }; // an invented team profile
-    const [mean, spread] = analyseGearSet(input(three, { limits: wide })).trends;
+    const [mean, spread, , loosest] = analyseGearSet(input(three, { limits: wide })).trends;
     expect(mean?.limits).toEqual({ min: 0.1, max: 0.3 });
-    expect(mean?.projection.projectedRunsAtLimit).toBeCloseTo((0.3 - 0.16) / 0.001, 6);
+    expect(loosest?.projection.projectedRunsAtLimit).toBeCloseTo((0.3 - 0.17) / 0.0015, 6);
     expect(spread?.projection.projectedRunsAtLimit).toBeCloseTo((0.08 - 0.02) / 0.001, 6);
   });
 
@@ -307,10 +329,12 @@ describe('analyseGearSet: the trends of mean backlash and spread', () => {
       inspection('b', '2026-04-10T10:00:00Z', 4, { readings: around(0.18, 0.02) }),
       inspection('c', '2026-04-20T10:00:00Z', 8, { readings: around(0.16, 0.02) }),
     ];
-    const [mean] = analyseGearSet(input(closing)).trends;
-    // slope (0.16 − 0.20)/8 = −0.005 per run; 0.20 − 0.005·r = 0.13 at r = 14
-    expect(mean?.projection.limit).toBe('min');
-    expect(mean?.projection.projectedRunsAtLimit).toBeCloseTo((0.2 - 0.13) / 0.005, 6);
+    const [, , tightest, loosest] = analyseGearSet(input(closing)).trends;
+    // Tightest 0.19, 0.17, 0.15: slope −0.005 per run; 0.19 − 0.005·r = 0.13 at r = 12
+    expect(tightest?.projection.limit).toBe('min');
+    expect(tightest?.projection.projectedRunsAtLimit).toBeCloseTo((0.19 - 0.13) / 0.005, 6);
+    // Loosest 0.21, 0.19, 0.17 heads for the same min, later: r = 16
+    expect(loosest?.projection.projectedRunsAtLimit).toBeCloseTo((0.21 - 0.13) / 0.005, 6);
   });
 });
 
@@ -327,8 +351,15 @@ describe('analyseGearSet: life and the recommendation', () => {
       runsSinceInstall: 12,
       lifeLimitRuns: 50,
       runsLeft: 50 - 38,
+      runsOver: 0,
+      text: '12 runs left',
     });
-    expect(analyseGearSet(input(steady, { totalRuns: 53 })).life.runsLeft).toBe(50 - 53);
+    // Runs left never go negative: 67 runs on a 50-run life is "17 runs over the life limit".
+    expect(analyseGearSet(input(steady, { totalRuns: 67 })).life).toMatchObject({
+      runsLeft: 0,
+      runsOver: 17,
+      text: '17 runs over the life limit',
+    });
     expect(analyseGearSet(input(steady, { lifeLimitRuns: null })).life.runsLeft).toBeNull();
   });
 
@@ -399,7 +430,7 @@ describe('analyseGearSet: life and the recommendation', () => {
     expect(recommendation.reasons.map((r) => r.code)).toContain('pattern-drive-heel');
   });
 
-  it('passes both trends to the recommendation: a mean closing on the min within the interval means shims now', () => {
+  it('passes the point trends to the recommendation: a tightest point closing on the min means shims now', () => {
     const recommendation = analyseGearSet(
       input(
         [
@@ -410,9 +441,12 @@ describe('analyseGearSet: life and the recommendation', () => {
         { totalRuns: 8 },
       ),
     ).recommendation!;
-    // Crossing at run 14 (see the trend case above): 6 runs after the last inspection, within the interval of 8.
+    // The tightest point crosses the min at run 12 (see the trend case above): 4 runs after the last inspection,
+    // within the interval of 8. The mean alone never makes a reason.
     expect(recommendation.action).toBe('re-shim');
-    expect(recommendation.reasons.map((r) => r.code)).toContain('backlash-mean-limit-before-next-service');
+    const codes = recommendation.reasons.map((r) => r.code);
+    expect(codes).toContain('backlash-min-point-limit-before-next-service');
+    expect(codes).not.toContain('backlash-mean-limit-before-next-service');
   });
 
   it('passes the spread trend too: a spread opening up within the interval is one to watch', () => {
@@ -456,5 +490,41 @@ describe('conditionToDamage', () => {
       { area: 'other', severity: 'moderate', note: 'splines' },
       { area: 'other', severity: 'severe', note: 'seals' },
     ]);
+  });
+});
+
+describe('analyseGearSet: an inch inspection on the printed limits, read in mm (issue 16)', () => {
+  it('is not "past the limit now": the trend takes the verdict judged at the inch dial', () => {
+    // 0.005 / 0.006 / 0.007 / 0.006 in on a 0.001 in dial: 0.005 in and 0.002 in sit on GM's printed inch
+    // figures (S: GM 1996), though 0.127 mm is under the printed 0.13 mm (× 25.4, NIST SP 811).
+    const data: InspectionData = {
+      ...dataOf({ readings: [0.005, 0.006, 0.007, 0.006].map((inch) => inch * MM_PER_IN) }),
+      entry: { unit: 'in', resolution: '0.001in', torqueUnit: 'lbf-in' },
+    };
+    const only: AnalysedInspection = {
+      id: 'inch',
+      inspectedAt: '2026-04-01T10:00:00Z',
+      runsAtInspection: 0,
+      data,
+      summary: summariseInspection(data, DEFAULT_PROFILE, NO_GEOMETRY, { lengthUnit: 'mm', torqueUnit: 'N-m' }),
+    };
+    const analysis = analyseGearSet(input([only], { totalRuns: 0, runsSinceInstall: 0 }));
+    for (const trend of analysis.trends) expect(trend.projection.reason?.code).not.toBe('past-limit-now');
+    expect(['keep', 'watch']).toContain(analysis.recommendation!.action);
+    // A reading truly past the printed limit is past now: 0.004 in at the tightest point.
+    const past: InspectionData = {
+      ...data,
+      backlashMm: [0.004, 0.006, 0.007, 0.006].map((inch) => inch * MM_PER_IN),
+    };
+    const out = analyseGearSet(
+      input([
+        {
+          ...only,
+          data: past,
+          summary: summariseInspection(past, DEFAULT_PROFILE, NO_GEOMETRY, { lengthUnit: 'mm', torqueUnit: 'N-m' }),
+        },
+      ]),
+    );
+    expect(out.trends.find((t) => t.measure === 'backlash-min-point')?.projection.reason?.code).toBe('past-limit-now');
   });
 });

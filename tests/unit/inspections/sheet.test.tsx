@@ -21,11 +21,11 @@ async function openSheet() {
 
 // The whole sheet renders in jsdom, which is slow on a busy machine.
 describe('the inspection sheet', { timeout: 20_000 }, () => {
-  it('reads a typed 10 as thousandths, says so beside the field and stores 0.010 in', async () => {
+  it('reads a typed 10 as thousandths, shows the value as read under the field and stores 0.010 in', async () => {
     const { user } = await openSheet();
     await user.type(screen.getByTestId('reading-1'), '10');
-    // The thousandths rule (src/lib/units.ts): a whole number in inches is thousandths.
-    expect(screen.getByTestId('reading-1-note').textContent).toBe('read as 0.010 in (thousandths)');
+    // The entry rule (src/lib/units.ts): 10 in is over the 2.5 mm reading limit, 0.010 in is inside it.
+    expect(screen.getByTestId('reading-1-note').textContent).toBe('= 0.01 in');
     const [draft] = Object.values(localStorage).map((raw) => JSON.parse(raw));
     expect(draft.values.readings[0]).toBe(0.01);
     expect(draft.texts['readings.0']).toBe('10');
@@ -35,9 +35,25 @@ describe('the inspection sheet', { timeout: 20_000 }, () => {
     const { user } = await openSheet();
     await user.click(screen.getByLabelText('Millimetres (mm)'));
     await user.type(screen.getByTestId('reading-1'), '13');
-    expect(screen.getByTestId('reading-1-note').textContent).toBe('read as 0.13 mm (hundredths)');
+    expect(screen.getByTestId('reading-1-note').textContent).toBe('= 0.13 mm');
     // The resolution follows the unit: a metric dial reads 0.01 mm.
     expect(screen.getByLabelText<HTMLSelectElement>('Indicator resolution').value).toBe('0.01mm');
+  });
+
+  it('reads shims typed in thousandths as thousandths, and a half-thousandth reading as 0.0085 in', async () => {
+    const { user } = await openSheet();
+    // "8.5" on an inch backlash field: over 2.5 mm = 0.0984 in as inches, 0.0085 in as thousandths (CP).
+    await user.type(screen.getByTestId('reading-1'), '8.5');
+    expect(screen.getByTestId('reading-1-note').textContent).toBe(
+      '= 0.0085 in — finer than a 0.001 in indicator reads',
+    );
+    // "25" and "3" on the shim stack: 0.025 in and 0.003 in, never 25 in (the sheet once showed "Total: 28.000 in").
+    await user.click(screen.getByRole('button', { name: 'Add a shim' }));
+    await user.type(screen.getByTestId('shim-0'), '25');
+    await user.click(screen.getByRole('button', { name: 'Add a shim' }));
+    await user.type(screen.getByTestId('shim-1'), '3');
+    expect(screen.getByTestId('shim-0-note').textContent).toBe('= 0.025 in');
+    expect(screen.getByTestId('shim-total').textContent).toContain('0.028 in');
   });
 
   it('moves to the next position on Enter, and from the last one to the next section', async () => {
@@ -62,12 +78,15 @@ describe('the inspection sheet', { timeout: 20_000 }, () => {
     await user.type(screen.getByTestId('reading-3'), '7');
     await user.type(screen.getByTestId('reading-4'), '7');
     expect(screen.getByTestId('figure-mean').textContent).toBe('0.007 in');
-    // Spread 0.002 in = 0.0508 mm is past GM's 0.05 mm (S: GM 1996): out of band, in words and a mark.
+    // Spread 0.002 in sits on GM's printed 0.002 in (S: GM 1996): within (near the limit), never out of band
+    // against 0.05 mm = 0.00197 in; the limit is shown as printed and the line says what it was judged at.
     const spread = screen
       .getAllByText(/Spread \(max − min\):/)
       .at(-1)!
       .closest('li')!;
-    expect(spread.querySelector('[data-verdict]')!.textContent).toContain('Out of band');
+    expect(spread.querySelector('[data-verdict]')!.textContent).toContain('Near a limit');
+    expect(spread.textContent).toContain('Upper limit 0.002 in');
+    expect(spread.textContent).toContain('judged at the 0.001 in graduation');
     expect(spread.textContent).toContain('GM light-truck service manual');
     expect(screen.getByTestId('polar-curve')).toBeTruthy();
   });
@@ -126,7 +145,7 @@ describe('the inspection sheet', { timeout: 20_000 }, () => {
     renderSheet(url);
     expect(await screen.findByTestId('restored')).toBeTruthy();
     expect(screen.getByTestId<HTMLInputElement>('reading-1').value).toBe('9');
-    expect(screen.getByTestId('reading-1-note').textContent).toBe('read as 0.009 in (thousandths)');
+    expect(screen.getByTestId('reading-1-note').textContent).toBe('= 0.009 in');
     expect(screen.getByTestId<HTMLTextAreaElement>('notes').value).toBe('Light marks on the coast side.');
   });
 

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { recommendAction } from '../../../src/lib/analysis/recommendation';
 import { DEFAULT_PROFILE, type ToleranceProfile } from '../../../src/lib/analysis/tolerance';
 import type { InspectionData } from '../../../src/lib/inspections/record';
 import { summariseInspection, type GearGeometry, type ReaderUnits } from '../../../src/lib/inspections/summary';
@@ -171,6 +172,8 @@ describe('summariseInspection: which measures are judged, in which unit', () => 
       ['backlash-min-point', 'in'],
       ['backlash-max-point', 'in'],
       ['spread', 'in'],
+      // The runout the lash suggests is judged once saved as it is while typing (issue 16).
+      ['runout', 'in'],
       ['runout-measured', 'in'],
       ['pinion-preload-used', 'lbf-in'],
       ['hub-left', 'check'],
@@ -212,15 +215,18 @@ describe('summariseInspection: which measures are judged, in which unit', () => 
   it('gives the backlash limits in the reader’s unit beside the value', () => {
     const summary = summariseInspection(record(), PROFILE, NO_GEOMETRY, IN_LBFIN);
     const [tight, loose, spread] = summary.verdicts;
-    // Both points sit 0.03 mm inside, equally far from each limit; each verdict names a limit of the band.
-    // S: GM 1996 0.13–0.23 mm, and 0.05 mm spread; ÷ 25.4 (S: NIST SP 811, 2008, App. B)
+    // Both points sit 0.03 mm inside, equally far from each limit; each verdict names a limit of the band, as
+    // GM prints it in inches: 0.005–0.009 in, spread 0.002 in (S: GM 1996) — never 0.13 / 25.4 = 0.0051.
     for (const v of [tight, loose]) {
-      expect([0.13 / MM_PER_IN, 0.23 / MM_PER_IN].some((l) => Math.abs(l - v!.limitValue) < 1e-12)).toBe(true);
+      expect([0.005, 0.009]).toContain(v!.limitValue);
+      expect(['0.005', '0.009']).toContain(v!.limitText);
     }
     expect(tight?.value).toBeCloseTo(0.16 / MM_PER_IN, 12);
     expect(loose?.value).toBeCloseTo(0.2 / MM_PER_IN, 12);
-    expect(spread?.limitValue).toBeCloseTo(0.05 / MM_PER_IN, 12);
+    expect(spread).toMatchObject({ limitValue: 0.002, limitText: '0.002' });
+    // Judged in mm, where it was read: 0.01 mm inside 0.05 mm, shown in inches (÷ 25.4, S: NIST SP 811)
     expect(spread?.margin).toBeCloseTo((0.05 - 0.04) / MM_PER_IN, 12);
+    expect(spread?.judgedAt).toBe('judged at the 0.01 mm graduation');
   });
 
   it('judges measured back-face runout against the runout limit in the reader’s unit', () => {
@@ -233,9 +239,8 @@ describe('summariseInspection: which measures are judged, in which unit', () => 
     const runout = summary.verdicts.find((v) => String(v.measure) === 'runout-measured');
     expect(runout).toMatchObject({ verdict: 'in-band', limit: 'max', unit: 'in' });
     expect(runout?.value).toBeCloseTo(0.02 / MM_PER_IN, 12); // ÷ 25.4, S: NIST SP 811, 2008, App. B
-    expect(runout?.limitValue).toBeCloseTo(0.076 / MM_PER_IN, 12); // S: Ford 1997, 0.076 mm (0.003 in)
-    // Ford prints 0.003 in beside 0.076 mm: the two agree to a tenth of a thousandth, not exactly (0.002992 in).
-    expect(runout?.limitValue).toBeCloseTo(0.003, 4);
+    // Ford prints 0.003 in beside 0.076 mm (S: Ford 1997): the inch reader sees the inch figure as printed.
+    expect(runout).toMatchObject({ limitValue: 0.003, limitText: '0.003' });
     expect(summary.runoutTir).toBeCloseTo(0.02 / MM_PER_IN, 12);
   });
 
@@ -259,9 +264,9 @@ describe('summariseInspection: which measures are judged, in which unit', () => 
     const preload = summary.verdicts.find((v) => v.measure.startsWith('pinion-preload'));
     expect(preload).toMatchObject({ measure: 'pinion-preload-new', verdict: 'in-band', unit: 'lbf-in' });
     expect(preload?.value).toBeCloseTo(3.1 / NM_PER_LBFIN, 10);
-    expect([2.7 / NM_PER_LBFIN, 3.6 / NM_PER_LBFIN].some((l) => Math.abs(l - preload!.limitValue) < 1e-9)).toBe(true);
-    // GM prints the new band as 24–32 lbf·in beside 2.7–3.6 N·m (S: GM, 7-1/2 in axle)
-    expect(2.7 / NM_PER_LBFIN).toBeCloseTo(24, 0);
+    // GM prints the new band as 24–32 lbf·in beside 2.7–3.6 N·m (S: GM, 7-1/2 in axle): shown as printed.
+    expect([24, 32]).toContain(preload!.limitValue);
+    expect(['24', '32']).toContain(preload!.limitText);
     expect(summary.torqueUnit).toBe('lbf-in');
   });
 
@@ -293,7 +298,7 @@ describe('summariseInspection: which measures are judged, in which unit', () => 
         MM_NM,
       ).verdicts.filter((v) => v.measure.startsWith('hub-'));
     // CP: effort unchanged between medium and full nut torque on a solid spacer
-    expect(hubs(true, false)).toEqual([
+    expect(hubs(true, false)).toMatchObject([
       { measure: 'hub-left', value: 1, verdict: 'in-band', limit: 'min', limitValue: 1, margin: 1, unit: 'check' },
       {
         measure: 'hub-right',
@@ -333,11 +338,8 @@ describe('summariseInspection: which measures are judged, in which unit', () => 
     expect(summary.verdicts.map((v) => v.verdict)).toEqual(['in-band', 'in-band', 'in-band']);
   });
 
-  // BUG (reported, not fixed): summariseInspection passes only min/max/maxSpread to analyseBacklash, so the
-  // backlash and spread verdicts use the engine's default near share (0.1) instead of profile.nearShare, while
-  // runout and preload in the same summary — and the sheet's live figures — use the profile's. Flip to `it`
-  // once fixed.
-  it.fails('counts a point near its limit by the profile’s own near share', () => {
+  // Fixed with issue 16: every measure is judged by one function with the profile's own near share.
+  it('counts a point near its limit by the profile’s own near share', () => {
     // nearShare 0.4 of the 0.13–0.23 mm band (S: GM 1996) is a 0.04 mm zone; 0.16 mm lies 0.03 mm above 0.13,
     // inside that zone (and well outside the 0.01 mm zone of a 0.1 share).
     const summary = summariseInspection(record(), { ...PROFILE, nearShare: 0.4 }, NO_GEOMETRY, MM_NM);
@@ -403,5 +405,48 @@ describe('summariseInspection: patterns, resolution, shims and runout', () => {
     const summary = summariseInspection(record(), PROFILE, NO_GEOMETRY, { lengthUnit: 'in', torqueUnit: 'N-m' });
     expect(summary.unit).toBe('in');
     expect(summary.torqueUnit).toBe('N-m');
+  });
+});
+
+describe('the inch inspection on the printed limits (issue 16)', () => {
+  // A new spare set, the team's default profile, a 0.001 in indicator: readings 0.005 / 0.006 / 0.007 / 0.006 in,
+  // back-face runout 0.003 in, used-bearing pinion torque 8 lbf·in — each on a printed limit: 0.005–0.009 in at the
+  // minimum point and 0.002 in variation (S: GM 1996), 0.003 in flange runout (S: Ford 1997), 8–12 lbf·in used
+  // (S: GM, 7-1/2 in axle). Stored as the sheet stores them: × 25.4 and × 0.1129848290276167 (S: NIST SP 811).
+  const inchRecord = record({
+    entry: { unit: 'in', resolution: '0.001in', torqueUnit: 'lbf-in' },
+    backlashMm: [0.005, 0.006, 0.007, 0.006].map((inch) => inch * MM_PER_IN),
+    runoutMm: { backFace: 0.003 * MM_PER_IN, radial: null },
+    preload: {
+      pinionNm: 8 * NM_PER_LBFIN,
+      bearings: 'used',
+      hubLeft: { unchanged: null, torqueNm: null },
+      hubRight: { unchanged: null, torqueNm: null },
+    },
+  });
+
+  it('judges every figure within, whichever unit the reader reads in, and recommends keep or watch', () => {
+    for (const reader of [IN_LBFIN, MM_NM]) {
+      for (const geometry of [NO_GEOMETRY, GEOMETRY_41_10]) {
+        const summary = summariseInspection(inchRecord, PROFILE, geometry, reader);
+        expect(summary.verdicts.filter((v) => v.verdict === 'out-of-band')).toEqual([]);
+        const advice = recommendAction({
+          runsSinceInstall: 0,
+          lifeLimitRuns: 50,
+          serviceIntervalRuns: 5,
+          verdicts: summary.verdicts,
+        });
+        expect(['keep', 'watch']).toContain(advice.action);
+        expect(advice.reasons.filter((r) => r.severity === 'critical')).toEqual([]);
+      }
+    }
+  });
+
+  it('says beside each length verdict that it was judged at the 0.001 in graduation', () => {
+    const summary = summariseInspection(inchRecord, PROFILE, NO_GEOMETRY, MM_NM);
+    const tight = summary.verdicts.find((v) => v.measure === 'backlash-min-point')!;
+    expect(tight.judgedAt).toBe('judged at the 0.001 in graduation');
+    // An mm reader sees the mm figure as printed: 0.13 mm (S: GM 1996)
+    expect(tight).toMatchObject({ limitText: '0.13', limitValue: 0.13, unit: 'mm' });
   });
 });

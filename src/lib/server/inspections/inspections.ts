@@ -47,7 +47,10 @@ async function profileValuesFor(teamId: string, row: Inspection): Promise<Tolera
 }
 
 /** The geometry of a gear set that an inspection's summary reads. */
-export type SetGeometry = Pick<Part, 'ringTeeth' | 'pinionTeeth' | 'pressureAngleDeg'>;
+export type SetGeometry = Pick<
+  Part,
+  'ringTeeth' | 'pinionTeeth' | 'pressureAngleDeg' | 'cutMethod' | 'spiralAngleDeg' | 'runoutK'
+>;
 
 /**
  * The inspection as the API answers it, from what was already read: the row, its set's geometry and
@@ -78,7 +81,14 @@ export function rowToInspectionView(
     summary: summariseInspection(
       data,
       values,
-      { ringTeeth: geometry.ringTeeth, pinionTeeth: geometry.pinionTeeth, pressureAngleDeg: geometry.pressureAngleDeg },
+      {
+        ringTeeth: geometry.ringTeeth,
+        pinionTeeth: geometry.pinionTeeth,
+        pressureAngleDeg: geometry.pressureAngleDeg,
+        cutMethod: geometry.cutMethod,
+        spiralAngleDeg: geometry.spiralAngleDeg,
+        runoutK: geometry.runoutK,
+      },
       units,
     ),
   };

@@ -1,3 +1,5 @@
+import { lengthFiguresToMm, type LengthFigures } from '../../analysis/published-limits';
+import { publishedLimitsOf } from '../../analysis/tolerance';
 import { and, asc, eq, inArray, type SQL } from 'drizzle-orm';
 import { getDb } from '../../../db/client';
 import { inspections, toleranceProfileVersions, type Inspection } from '../../../db/schema';
@@ -110,6 +112,9 @@ export function analyseFromRows(
     ringTeeth: set.ringTeeth ?? null,
     pinionTeeth: set.pinionTeeth ?? null,
     pressureAngleDeg: set.pressureAngleDeg ?? null,
+    cutMethod: set.cutMethod ?? 'unknown',
+    spiralAngleDeg: set.spiralAngleDeg ?? null,
+    runoutK: set.runoutK ?? null,
   };
   const analysed = rows.map((row) => {
     const kept = row.profileVersionId ? book.byVersion.get(row.profileVersionId) : undefined;
@@ -122,13 +127,18 @@ export function analyseFromRows(
       summary: reuse(made?.get(row.id), values) ?? summariseInspection(row.data, values, geometry, units),
     };
   });
-  const len = (mm: number) => mmToLength(mm, units.lengthUnit);
+  // The trend limits as published in the reader's unit where printed (0.005 in, never 0.00512).
+  const published = publishedLimitsOf(profile.values);
+  const limitIn = (figures: LengthFigures) =>
+    figures[units.lengthUnit] !== undefined
+      ? Number(figures[units.lengthUnit])
+      : mmToLength(lengthFiguresToMm(figures), units.lengthUnit);
   const analysis = analyseGearSet({
     inspections: analysed,
     limits: {
-      backlashMin: len(profile.values.backlashMin),
-      backlashMax: len(profile.values.backlashMax),
-      maxSpread: len(profile.values.maxSpread),
+      backlashMin: limitIn(published.backlashMin),
+      backlashMax: limitIn(published.backlashMax),
+      maxSpread: limitIn(published.maxSpread),
     },
     totalRuns: set.totalRuns,
     runsSinceInstall: set.runsSinceInstall,

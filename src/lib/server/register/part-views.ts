@@ -37,6 +37,9 @@ export function partToView(
       ratio,
       ratioLabel: ratio === null ? null : ratioToLabel(ratio),
       pressureAngleDeg: part.pressureAngleDeg ?? 20,
+      cutMethod: part.cutMethod,
+      spiralAngleDeg: part.spiralAngleDeg,
+      runoutK: part.runoutK,
     });
   }
   return view;

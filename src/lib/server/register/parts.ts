@@ -78,6 +78,9 @@ export async function updatePart(
     if (before.kind !== 'gear-set' && (changes.ringTeeth !== undefined || changes.pinionTeeth !== undefined)) {
       throw new HttpError(400, 'ringTeeth: only a gear set has tooth counts.', { ringTeeth: 'not a gear set' });
     }
+    // One way of giving k at a time: setting one clears the other.
+    if (typeof changes.spiralAngleDeg === 'number') changes = { ...changes, runoutK: null };
+    if (typeof changes.runoutK === 'number') changes = { ...changes, spiralAngleDeg: null };
     const ring = changes.ringTeeth ?? before.ringTeeth;
     const pinion = changes.pinionTeeth ?? before.pinionTeeth;
     if (before.kind === 'gear-set' && ring !== null && pinion !== null && ring <= pinion) {

@@ -1,0 +1,3 @@
+ALTER TABLE `parts` ADD `cut_method` text DEFAULT 'unknown' NOT NULL;--> statement-breakpoint
+ALTER TABLE `parts` ADD `spiral_angle_deg` real;--> statement-breakpoint
+ALTER TABLE `parts` ADD `runout_k` real;
