@@ -90,7 +90,7 @@ export function drawTighteningDiagram(input: DiagramInput): string {
   const bolts = layOutBolts(input.count, CIRCLE, c, c);
   const side: string[] = [];
   if (input.title) side.push(input.title);
-  side.push(`${input.count} bolts, cross order, bolt 1 at the top, clockwise.`);
+  side.push(`${input.count} bolts, cross order, bolt 1 at the top (thick ring), clockwise.`);
   input.passes.forEach((pass) =>
     side.push(
       `Pass ${pass.pass}: ${pass.percent} %${pass.value === null ? '' : ` (${formatTorque(pass.value, pass.unit as TorqueUnit)})`}`,
@@ -99,25 +99,32 @@ export function drawTighteningDiagram(input: DiagramInput): string {
   side.push(FINAL_CHECK_PASS);
   if (input.exampleNotice) side.push(input.exampleNotice);
   side.push(MAKER_FIGURES_NOTICE);
-  const sideLines = side.flatMap((line) => [...wrap(line, 44), '']);
-  const height = Math.max(SIZE, 24 + sideLines.length * 18);
+  const paragraphs = side.map((line) => wrap(line, 44));
+  const lineCount = paragraphs.reduce((sum, lines) => sum + lines.length + 1, 0);
+  const height = Math.max(SIZE, 24 + lineCount * 18);
+  let y = 24;
+  const notes = paragraphs.map((lines) => {
+    // One <text> per paragraph, its lines as <tspan>s, so a sentence reads whole to a screen reader.
+    const spans = lines.map(
+      (line, i) => `<tspan x="${SIZE + 16}" ${i === 0 ? `y="${y}"` : 'dy="18"'}>${escapeXml(line)}</tspan>`,
+    );
+    y += (lines.length + 1) * 18;
+    return `<text class="note">${spans.join('')}</text>`;
+  });
   const parts = [
     `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 720 ${height}" width="720" height="${height}" role="img" aria-labelledby="diagram-title">`,
     `<title id="diagram-title">Tightening order for ${input.count} bolts</title>`,
     `<rect width="720" height="${height}" fill="#fff"/>`,
     `<circle cx="${c}" cy="${c}" r="${CIRCLE}" fill="none" stroke="#000" stroke-width="1" stroke-dasharray="4 4"/>`,
-    `<path d="M ${c} ${c - CIRCLE - markRadius - 14} l -6 -8 h 12 z" fill="#000"/>`,
     `<g font-family="sans-serif" font-size="${fontSize}" font-weight="700" text-anchor="middle" dominant-baseline="central">`,
     ...bolts.map(
       (b) =>
-        `<circle cx="${b.x}" cy="${b.y}" r="${markRadius}" fill="#fff" stroke="#000" stroke-width="2"/>` +
+        `<circle cx="${b.x}" cy="${b.y}" r="${markRadius}" fill="#fff" stroke="#000" stroke-width="${b.bolt === 1 ? 4 : 2}"/>` +
         `<text class="bolt-place" data-bolt="${b.bolt}" x="${b.x}" y="${b.y}">${b.place}</text>`,
     ),
     '</g>',
     `<g font-family="sans-serif" font-size="14" fill="#000">`,
-    ...sideLines.map((line, i) =>
-      line ? `<text class="note" x="${SIZE + 16}" y="${24 + i * 18}">${escapeXml(line)}</text>` : '',
-    ),
+    ...notes,
     '</g>',
     '</svg>',
   ];

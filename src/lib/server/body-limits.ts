@@ -28,6 +28,15 @@ export const BODY_LIMITS: readonly BodyLimit[] = [
       fields: { file: `larger than ${MAX_PHOTO_BYTES / MB} MB` },
     },
   },
+  {
+    route: /^\/api\/(procedures|checklists)\/[^/]+\/steps\/[^/]+\/photos$/,
+    bytes: MAX_PHOTO_BYTES + MULTIPART_OVERHEAD_BYTES,
+    why: 'one photo or diagram of a step, at most 15 MB, as for inspection photos',
+    refusal: {
+      message: `file: a photo may be at most ${MAX_PHOTO_BYTES / MB} MB; send a smaller one.`,
+      fields: { file: `larger than ${MAX_PHOTO_BYTES / MB} MB` },
+    },
+  },
   { route: /^\/api\/runs\/import$/, bytes: 5 * MB, why: 'a run log as CSV (5,000 runs are about 0.4 MB)' },
   {
     route: /^\/(api\/imports\/team|team\/data)$/,

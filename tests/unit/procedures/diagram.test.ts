@@ -71,7 +71,9 @@ describe('the tightening diagram', () => {
     expect(svg).toContain('Pass 1: 30 % (15 lbf·ft)');
     expect(svg).toContain('Pass 2: 70 % (35 lbf·ft)');
     expect(svg).toContain('Pass 3: 100 % (50 lbf·ft)');
-    const words = [...svg.matchAll(/<text class="note"[^>]*>([^<]*)<\/text>/g)].map((m) => m[1]).join(' ');
+    const words = [...svg.matchAll(/<text class="note">(.*?)<\/text>/g)]
+      .map((m) => m[1]!.replace(/<tspan[^>]*>([^<]*)<\/tspan>/g, '$1 ').trim())
+      .join('\n');
     expect(words.replace(/&apos;/g, '’')).toContain(FINAL_CHECK_PASS);
     expect(words).toContain(MAKER_FIGURES_NOTICE);
   });
