@@ -61,3 +61,11 @@ export function isBoltPermutation(bolts: readonly number[], count: number): bool
 export function isOrderDeviation(tapped: readonly number[], sequence: readonly number[]): boolean {
   return tapped.some((bolt, i) => sequence[i] !== bolt);
 }
+
+/**
+ * A pass in words, its torque in the reader's unit.
+ * @example passToText({ pass: 1, percent: 30, value: 16.5, unit: 'lbf-ft' }) // 'Pass 1: 30 % — 16.5 lbf·ft'
+ */
+export function passToText(pass: PassTorque): string {
+  return `Pass ${pass.pass}: ${pass.percent} %${pass.value === null ? '' : ` — ${formatTorque(pass.value, pass.unit)}`}`;
+}
