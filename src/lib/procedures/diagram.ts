@@ -93,7 +93,7 @@ export function drawTighteningDiagram(input: DiagramInput): string {
   side.push(`${input.count} bolts, cross order, bolt 1 at the top (thick ring), clockwise.`);
   input.passes.forEach((pass) =>
     side.push(
-      `Pass ${pass.pass}: ${pass.percent} %${pass.value === null ? '' : ` (${formatTorque(pass.value, pass.unit as TorqueUnit)})`}`,
+      `Pass ${pass.pass}: ${pass.percent} %${pass.value === null ? '' : ` (${formatTorque(pass.value, pass.unit)})`}`,
     ),
   );
   side.push(FINAL_CHECK_PASS);

@@ -208,5 +208,7 @@ export const stepChangeSchema = z
       context.addIssue({ code: 'custom', path: ['valueUnit'], message: 'valueUnit: the unit of value.' });
   });
 export type StepChange = z.infer<typeof stepChangeSchema>;
+/** A step change as a client sends it. */
+export type StepChangeInput = z.input<typeof stepChangeSchema>;
 
 export const signOffSchema = z.object({ note: optionalText('note', 1000) }).strict();

@@ -67,7 +67,9 @@ export function sectionsToDisplay(
               description: group.description ?? null,
               figure: group.torque
                 ? `${formatTorque(group.torque.value, group.torque.unit)}${
-                    group.torque.unit === unit ? '' : ` (${formatTorque(groupToPassTorques(group, unit).at(-1)!.value!, unit)})`
+                    group.torque.unit === unit
+                      ? ''
+                      : ` (${formatTorque(groupToPassTorques(group, unit).at(-1)!.value!, unit)})`
                   }${example ? ` — ${EXAMPLE_FIGURE_NOTICE}` : ''}`
                 : null,
               figureUnit: group.torque?.unit ?? null,
