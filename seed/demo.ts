@@ -5,6 +5,7 @@ import { seedPeople } from './people';
 import { seedRegister } from './register';
 import { seedInspections } from './inspections';
 import { seedReviews } from './reviews';
+import { seedProcedures } from './procedures';
 
 /**
  * The demo scenario: an invented team, its people, and (as the product grows) its cars, gear sets,
@@ -21,5 +22,6 @@ export async function seedDemo(): Promise<{ seeded: boolean; reason?: string }> 
   // Inspections read the committed run log to know how many runs each set had at its teardown.
   await seedInspections(people, register);
   await seedReviews(people, register);
+  await seedProcedures(people, register);
   return { seeded: true };
 }

@@ -1,5 +1,4 @@
 import { computeTighteningSequence } from '../analysis/tightening-sequence';
-import type { TorqueUnit } from '../units';
 import { FINAL_CHECK_PASS, MAKER_FIGURES_NOTICE } from './cautions';
 import { formatTorque, type PassTorque } from './fasteners';
 
