@@ -24,6 +24,7 @@ import {
   type EditorStep,
 } from './editor-model';
 import { StepEditor } from './StepEditor';
+import { useHydrated } from '../shared/use-hydrated';
 
 export interface ProcedureEditorProps {
   /** Absent for a new procedure. */
@@ -55,6 +56,7 @@ export default function ProcedureEditor({ procedureId, initial }: ProcedureEdito
   const [fields, setFields] = useState<Record<string, string>>({});
   const [message, setMessage] = useState<string | null>(null);
   const [saving, setSaving] = useState(false);
+  const hydrated = useHydrated();
   const sensors = useSensors(
     useSensor(PointerSensor),
     useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
@@ -119,6 +121,7 @@ export default function ProcedureEditor({ procedureId, initial }: ProcedureEdito
     <form
       className="flex flex-col gap-4"
       data-testid="procedure-editor"
+      data-ready={hydrated ? 'true' : undefined}
       onSubmit={(event) => {
         event.preventDefault();
         void save();
