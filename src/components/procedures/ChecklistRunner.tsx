@@ -2,9 +2,10 @@ import { useCallback, useEffect, useRef, useState } from 'react';
 import { convertTorque, formatTorque, passToText } from '../../lib/procedures/fasteners';
 import type { StepChangeInput as StepChange } from '../../lib/procedures/schemas';
 import type { SectionDisplay, StepDisplay } from '../../lib/procedures/step-display';
-import type { StepRecordView } from '../../lib/procedures/views';
+import type { StepPhotoView, StepRecordView } from '../../lib/procedures/views';
 import { TORQUE_UNITS, torqueUnitToLabel, type LengthUnit, type TorqueUnit } from '../../lib/units';
 import { BoltCircle } from './BoltCircle';
+import { StepPhotos } from './StepPhotos';
 import {
   emptyDraft,
   loadCopy,
@@ -24,6 +25,7 @@ export interface ChecklistRunnerProps {
   lengthUnit: LengthUnit;
   canRecord: boolean;
   gearSetId: string | null;
+  photos: StepPhotoView[];
 }
 
 const newKey = () => crypto.randomUUID();
@@ -182,6 +184,8 @@ export default function ChecklistRunner(props: ChecklistRunnerProps) {
                 error={errors[step.id]}
                 canRecord={props.canRecord}
                 gearSetId={props.gearSetId}
+                photos={props.photos.filter((photo) => photo.stepId === step.id)}
+                uploadUrl={`/api/checklists/${checklistId}/steps/${step.id}/photos`}
                 onDraft={(change) => setDraft(step.id, change)}
                 onFinish={(status) => finish(step, status)}
               />
@@ -203,6 +207,8 @@ interface StepProps {
   error: string | undefined;
   canRecord: boolean;
   gearSetId: string | null;
+  photos: StepPhotoView[];
+  uploadUrl: string;
   onDraft: (change: Partial<StepDraft>) => void;
   onFinish: (status: 'done' | 'skipped') => void;
 }
@@ -217,6 +223,8 @@ function RunnerStep({
   error,
   canRecord,
   gearSetId,
+  photos,
+  uploadUrl,
   onDraft,
   onFinish,
 }: StepProps) {
@@ -328,6 +336,7 @@ function RunnerStep({
           />
         </label>
       )}
+      <StepPhotos uploadUrl={uploadUrl} stepNumber={step.number} initial={photos} canAdd={canRecord} />
       {canRecord && !state && (
         <>
           <label className="mb-2 flex flex-col gap-1 font-semibold">

@@ -77,6 +77,7 @@ export interface ChecklistListItem {
   assemblyId: string | null;
   gearSetId: string | null;
   startedAt: string;
+  completedAt: string | null;
   signedOffAt: string | null;
   stepsRecorded: number;
   stepsTotal: number;

@@ -8,6 +8,7 @@ import {
 
 // NIST SP 811 (2008), Appendix B (exact from 1 in = 25.4 mm, 1 lb = 0.45359237 kg, g = 9.80665 m/s²):
 // 1 lbf·ft = 1.3558179483314004 N·m, 1 lbf·in = 0.1129848290276167 N·m (TRADE.md, Units).
+// eslint-disable-next-line no-loss-of-precision -- every digit NIST prints, as units.ts keeps it
 const NIST_SP_811_NM_PER_LBFFT = 1.3558179483314004;
 const NIST_SP_811_NM_PER_LBFIN = 0.1129848290276167;
 

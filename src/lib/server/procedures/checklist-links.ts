@@ -49,9 +49,7 @@ export async function listGearSetChecklists(teamId: string, gearSetId: string): 
 }
 
 /** Assemblies with a checklist in progress, for the board. */
-export async function listRebuildsInProgress(
-  teamId: string,
-): Promise<
+export async function listRebuildsInProgress(teamId: string): Promise<
   {
     checklistId: string;
     assemblyId: string;
@@ -83,4 +81,25 @@ export async function listRebuildsInProgress(
         ]
       : [];
   });
+}
+
+// An inspection is often dated to the day of the teardown: a checklist started that day still counts.
+const SAME_DAY_MS = 24 * 3600 * 1000;
+
+/**
+ * The rebuild checklists an inspection was part of: the set's checklists (or its assembly's while it
+ * was installed) that were open when the set was inspected. This is how an inspection opened from a
+ * checklist's backlash step links back to it.
+ */
+export async function listChecklistsOfInspection(
+  teamId: string,
+  gearSetId: string,
+  inspectedAt: string,
+): Promise<ChecklistListItem[]> {
+  const at = Date.parse(inspectedAt);
+  return (await listGearSetChecklists(teamId, gearSetId)).filter(
+    (c) =>
+      Date.parse(c.startedAt) - SAME_DAY_MS <= at &&
+      (c.completedAt === null || Date.parse(c.completedAt) + SAME_DAY_MS >= at),
+  );
 }

@@ -199,6 +199,7 @@ export async function listChecklists(
     assemblyId: checklist.assemblyId,
     gearSetId: checklist.gearSetId,
     startedAt: checklist.startedAt.toISOString(),
+    completedAt: checklist.completedAt?.toISOString() ?? null,
     signedOffAt: checklist.signedOffAt?.toISOString() ?? null,
     stepsRecorded: counts.get(checklist.id) ?? 0,
     stepsTotal: listSteps(version.sections).length,
