@@ -1,11 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Secret, TOTP } from 'otpauth';
 import { signedInClient, type ApiClient } from '../helpers/api-client';
 import { cameraJpeg, fetchPhoto, METADATA_MARKERS } from '../helpers/images';
 import { newKey } from '../helpers/inspections';
 import { createProcedure, procedureBody, startChecklist, stepIdsByTitle, uploadStepPhoto } from '../helpers/procedures';
 import { startServer, type RunningServer } from '../helpers/server';
 import { SmtpFake } from '../helpers/smtp-fake';
-import { makeTeamOfFour, type TeamOfFour } from '../helpers/team';
+import { joinByInvitation, makeTeamOfFour, type TeamOfFour } from '../helpers/team';
 
 let server: RunningServer;
 let smtp: SmtpFake;
@@ -330,5 +331,36 @@ describe('checklists', () => {
     expect(uploaded.status).toBe(201);
     expect((await team.viewer.get(`/api/checklists/${id}`)).body.photos).toHaveLength(1);
     expect((await uploadStepPhoto(team.viewer, path, await cameraJpeg(), 'image/jpeg')).status).toBe(403);
+  });
+});
+
+describe('sign-off in a team that requires a second factor', () => {
+  /** The code an authenticator app would show now (RFC 6238, through otpauth). */
+  const codeFor = (secret: string) =>
+    new TOTP({ secret: Secret.fromBase32(secret), algorithm: 'SHA1', digits: 6, period: 30 }).generate();
+
+  it('holds a crew chief without one back from signing off, as for decisions, until they turn it on', async () => {
+    const owner = await signedInClient(server.baseUrl, { team: 'Strict Procedure Crew' });
+    const chief = await joinByInvitation(server.baseUrl, smtp, owner.client, 'crew-chief');
+    const tech = await joinByInvitation(server.baseUrl, smtp, owner.client, 'technician');
+    const setId = (await owner.client.post('/api/gear-sets', { serial: 'SF-1', ringTeeth: 41, pinionTeeth: 10 })).body
+      .id;
+    const made = await createProcedure(owner.client);
+    const id = await startChecklist(tech.client, { procedureId: made.id, gearSetId: setId });
+    for (const stepId of Object.values(stepIdsByTitle(made)))
+      expect((await patchStep(tech.client, id, stepId, { status: 'skipped', reason: 'Test run' })).status).toBe(200);
+    expect((await tech.client.post(`/api/checklists/${id}/complete`)).status).toBe(200);
+
+    const ownerSetup = (await owner.client.post('/api/account/second-factor')).body;
+    await owner.client.post('/api/account/second-factor/confirm', { code: codeFor(ownerSetup.secret) });
+    expect((await owner.client.put('/api/team/second-factor', { required: true })).status).toBe(200);
+    const held = await chief.client.post(`/api/checklists/${id}/sign-off`, {});
+    expect(held.status).toBe(403);
+    expect(held.body.error.message).toContain('second factor');
+    const setup = (await chief.client.post('/api/account/second-factor')).body;
+    await chief.client.post('/api/account/second-factor/confirm', { code: codeFor(setup.secret) });
+    const signed = await chief.client.post(`/api/checklists/${id}/sign-off`, {});
+    expect(signed.status).toBe(200);
+    expect(signed.body.status).toBe('signed-off');
   });
 });
