@@ -13,7 +13,7 @@ import type { SeededRegister } from './register';
  * every figure shows "example figure — use the part maker's". RE-01's set-up with GS-4101 in May is
  * completed and signed off; RE-02's teardown for GS-4102's review is in progress.
  */
-const SOURCE = 'invented for the demo (use the part maker’s sheet)';
+const SOURCE = 'the demo’s invented example (use the part maker’s sheet)';
 
 const TEARDOWN: ProcedureContent = {
   name: 'Rear-end teardown and inspection',

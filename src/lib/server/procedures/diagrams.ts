@@ -32,7 +32,7 @@ export async function drawStepDiagram(
   const group = step.fasteners;
   if (!group?.sequence) throw new HttpError(404, 'This step has no tightening order, so no diagram.');
   const figure = group.torque
-    ? `Team figure: ${formatTorque(group.torque.value, group.torque.unit)} (${group.torqueSource ?? 'source not given'})`
+    ? `Team figure: ${formatTorque(group.torque.value, group.torque.unit)}, from ${group.torqueSource ?? 'a source not given'}`
     : undefined;
   return drawTighteningDiagram({
     count: group.count,
