@@ -15,6 +15,7 @@ import {
 } from '@dnd-kit/sortable';
 import { useState } from 'react';
 import type { ProcedureSection } from '../../lib/procedures/model';
+import type { StepPhotoView } from '../../lib/procedures/views';
 import {
   newSection,
   newStep,
@@ -36,6 +37,7 @@ export interface ProcedureEditorProps {
     notes: string | null;
     sections: ProcedureSection[];
   };
+  photos?: StepPhotoView[];
 }
 
 /** Where a field path of the server's 400 points: the step it belongs to, as "section.step". */
@@ -45,7 +47,7 @@ function stepOfField(path: string): string | null {
 }
 
 /** The procedure editor: sections of steps, each list sortable by drag and by keyboard (dnd-kit). */
-export default function ProcedureEditor({ procedureId, initial }: ProcedureEditorProps) {
+export default function ProcedureEditor({ procedureId, initial, photos = [] }: ProcedureEditorProps) {
   const [state, setState] = useState<EditorState>(() => ({
     name: initial?.name ?? '',
     purpose: initial?.purpose ?? '',
@@ -184,6 +186,10 @@ export default function ProcedureEditor({ procedureId, initial }: ProcedureEdito
                     step={step}
                     label={`${s + 1}.${i + 1}`}
                     error={stepErrors.get(`${s}.${i}`)}
+                    photoUploadUrl={
+                      procedureId && step.id ? `/api/procedures/${procedureId}/steps/${step.id}/photos` : null
+                    }
+                    photos={photos.filter((photo) => photo.stepId === step.id)}
                     onChange={(change) => updateStep(s, step.key, change)}
                     onRemove={() =>
                       updateSection(s, (current) => ({

@@ -2,12 +2,17 @@ import { useSortable } from '@dnd-kit/sortable';
 import { CSS } from '@dnd-kit/utilities';
 import { COMPOUND_KINDS, STEP_RECORDS } from '../../lib/procedures/model';
 import { TORQUE_UNITS, torqueUnitToLabel, type TorqueUnit } from '../../lib/units';
+import type { StepPhotoView } from '../../lib/procedures/views';
 import type { EditorStep } from './editor-model';
+import { StepPhotos } from './StepPhotos';
 
 interface Props {
   step: EditorStep;
   label: string;
   error: string | undefined;
+  /** Where a photo or diagram of this step is sent; null until the step is saved once. */
+  photoUploadUrl: string | null;
+  photos: StepPhotoView[];
   onChange: (change: Partial<EditorStep>) => void;
   onRemove: () => void;
 }
@@ -20,7 +25,7 @@ const RECORD_LABELS = {
 } as const;
 
 /** One step in the editor: a sortable item whose handle moves it by drag or by keyboard. */
-export function StepEditor({ step, label, error, onChange, onRemove }: Props) {
+export function StepEditor({ step, label, error, photoUploadUrl, photos, onChange, onRemove }: Props) {
   const { attributes, listeners, setNodeRef, setActivatorNodeRef, transform, transition, isDragging } = useSortable({
     id: step.key,
   });
@@ -185,6 +190,13 @@ export function StepEditor({ step, label, error, onChange, onRemove }: Props) {
           )}
           <p className="text-sm md:col-span-3">The figure is the part maker's; Lashline never supplies one.</p>
         </fieldset>
+      )}
+      {photoUploadUrl ? (
+        <div className="mt-3">
+          <StepPhotos uploadUrl={photoUploadUrl} stepNumber={label} initial={photos} canAdd />
+        </div>
+      ) : (
+        <p className="mt-3 text-sm text-ink-soft">Photos and diagrams can be added once the step is saved.</p>
       )}
       {error && (
         <p className="field-error mt-2" role="alert">
