@@ -6,6 +6,7 @@ import { seedRegister, type SeededRegister } from './register';
 import { seedInspections } from './inspections';
 import { seedReviews } from './reviews';
 import { seedSeason } from './season';
+import { seedProcedures } from './procedures';
 
 /**
  * The demo scenario: an invented team, its people, and (as the product grows) its cars, gear sets,
@@ -24,6 +25,7 @@ export async function seedDemo(
   // Inspections read the committed run log to know how many runs each set had at its teardown.
   await seedInspections(people, register);
   await seedReviews(people, register);
+  await seedProcedures(people, register);
   // A season more of the same team (seed/season.ts), for measuring the screens as data grows.
   if (options.season) await seedSeason(people, register);
   return { seeded: true, demo: { people, register } };

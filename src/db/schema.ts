@@ -4,6 +4,8 @@ import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from
 import type { ToleranceProfile } from '../lib/analysis/tolerance';
 import type { InspectionData } from '../lib/inspections/record';
 import type { NoticeKind } from '../lib/notices/compose';
+import type { AppliedTorque, ProcedureSection } from '../lib/procedures/model';
+import { CHECKLIST_STATUSES } from '../lib/procedures/checklist-rules';
 import type { TeamSettings } from '../lib/register/team-settings';
 import { ROLES } from '../lib/roles';
 import { PART_KINDS, PART_STATUSES } from '../lib/register/kinds';
@@ -547,3 +549,171 @@ export const emailTokens = sqliteTable(
     index('email_tokens_user_idx').on(table.userId),
   ],
 );
+
+// ---------------------------------------------------------------------------------------------
+// Procedures and checklists (issue 18)
+
+/** A team's procedure; its content lives in versions, and `currentVersion` is the one new checklists follow. */
+export const procedures = sqliteTable(
+  'procedures',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    currentVersion: integer('current_version').notNull().default(1),
+    archivedAt: integer('archived_at', { mode: 'timestamp_ms' }),
+    /** Set on the demo's procedures, whose torque figures are invented and shown as examples. */
+    example: integer('example', { mode: 'boolean' }).notNull().default(false),
+    createdBy: text('created_by').references(() => users.id),
+    createdAt: createdAt(),
+    updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull(),
+  },
+  (table) => [index('procedures_team_idx').on(table.teamId)],
+);
+
+/** One version of a procedure, never changed once written; `sections` holds its sections and steps. */
+export const procedureVersions = sqliteTable(
+  'procedure_versions',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    procedureId: text('procedure_id')
+      .notNull()
+      .references(() => procedures.id, { onDelete: 'cascade' }),
+    version: integer('version').notNull(),
+    name: text('name').notNull(),
+    purpose: text('purpose'),
+    appliesTo: text('applies_to'),
+    notes: text('notes'),
+    sections: text('sections', { mode: 'json' }).$type<ProcedureSection[]>().notNull(),
+    createdBy: text('created_by').references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (table) => [uniqueIndex('procedure_version_idx').on(table.procedureId, table.version)],
+);
+
+/** A checklist at a rebuild: the procedure version it follows, on an assembly or a gear set (or both). */
+export const checklists = sqliteTable(
+  'checklists',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    procedureId: text('procedure_id')
+      .notNull()
+      .references(() => procedures.id),
+    procedureVersionId: text('procedure_version_id')
+      .notNull()
+      .references(() => procedureVersions.id),
+    // A deleted assembly or part leaves its checklists in place, unlinked.
+    assemblyId: text('assembly_id').references(() => assemblies.id, { onDelete: 'set null' }),
+    gearSetId: text('gear_set_id').references(() => parts.id, { onDelete: 'set null' }),
+    status: text('status', { enum: CHECKLIST_STATUSES }).notNull().default('in-progress'),
+    startedBy: text('started_by')
+      .notNull()
+      .references(() => users.id),
+    startedAt: integer('started_at', { mode: 'timestamp_ms' }).notNull(),
+    completedBy: text('completed_by').references(() => users.id),
+    completedAt: integer('completed_at', { mode: 'timestamp_ms' }),
+    signedOffBy: text('signed_off_by').references(() => users.id),
+    signedOffAt: integer('signed_off_at', { mode: 'timestamp_ms' }),
+    signOffNote: text('sign_off_note'),
+  },
+  (table) => [
+    index('checklists_team_idx').on(table.teamId, table.status),
+    index('checklists_assembly_idx').on(table.assemblyId),
+    index('checklists_gear_set_idx').on(table.gearSetId),
+    index('checklists_procedure_idx').on(table.procedureId),
+  ],
+);
+
+/** The state of one step of a checklist: the later change wins (by the time it was made on its device). */
+export const checklistSteps = sqliteTable(
+  'checklist_steps',
+  {
+    checklistId: text('checklist_id')
+      .notNull()
+      .references(() => checklists.id, { onDelete: 'cascade' }),
+    stepId: text('step_id').notNull(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    status: text('status', { enum: ['done', 'skipped'] }).notNull(),
+    reason: text('reason'),
+    torqueApplied: text('torque_applied', { mode: 'json' }).$type<AppliedTorque[]>(),
+    boltsInOrder: text('bolts_in_order', { mode: 'json' }).$type<number[]>(),
+    orderDeviation: integer('order_deviation', { mode: 'boolean' }).notNull().default(false),
+    value: real('value'),
+    valueUnit: text('value_unit'),
+    note: text('note'),
+    by: text('by')
+      .notNull()
+      .references(() => users.id),
+    /** When the change was made on the device. */
+    at: integer('at', { mode: 'timestamp_ms' }).notNull(),
+    receivedAt: integer('received_at', { mode: 'timestamp_ms' }).notNull(),
+  },
+  (table) => [primaryKey({ columns: [table.checklistId, table.stepId] })],
+);
+
+/** Every step change received, once per Idempotency-Key: a change sent twice is stored once. */
+export const checklistStepChanges = sqliteTable(
+  'checklist_step_changes',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    checklistId: text('checklist_id')
+      .notNull()
+      .references(() => checklists.id, { onDelete: 'cascade' }),
+    stepId: text('step_id').notNull(),
+    idempotencyKey: text('idempotency_key'),
+    body: text('body', { mode: 'json' }).notNull(),
+    applied: integer('applied', { mode: 'boolean' }).notNull(),
+    by: text('by')
+      .notNull()
+      .references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (table) => [
+    uniqueIndex('checklist_change_key_idx').on(table.teamId, table.idempotencyKey),
+    index('checklist_change_idx').on(table.checklistId, table.stepId),
+  ],
+);
+
+/** Photos and diagrams of a procedure's step, or of a checklist's step; re-encoded like inspection photos. */
+export const stepPhotos = sqliteTable(
+  'step_photos',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    procedureId: text('procedure_id').references(() => procedures.id, { onDelete: 'cascade' }),
+    checklistId: text('checklist_id').references(() => checklists.id, { onDelete: 'cascade' }),
+    stepId: text('step_id').notNull(),
+    storageKey: text('storage_key').notNull(),
+    thumbnailKey: text('thumbnail_key').notNull(),
+    contentType: text('content_type').notNull(),
+    width: integer('width').notNull(),
+    height: integer('height').notNull(),
+    bytes: integer('bytes').notNull(),
+    createdBy: text('created_by').references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (table) => [
+    index('step_photos_procedure_idx').on(table.procedureId, table.stepId),
+    index('step_photos_checklist_idx').on(table.checklistId, table.stepId),
+  ],
+);
+
+export type Procedure = typeof procedures.$inferSelect;
+export type ProcedureVersion = typeof procedureVersions.$inferSelect;
+export type Checklist = typeof checklists.$inferSelect;
+export type ChecklistStep = typeof checklistSteps.$inferSelect;
+export type StepPhoto = typeof stepPhotos.$inferSelect;

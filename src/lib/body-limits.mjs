@@ -29,6 +29,15 @@ export const BODY_CAPS = [
       fields: { file: 'larger than 15 MB' },
     },
   },
+  {
+    route: /^\/api\/(procedures|checklists)\/[^/]+\/steps\/[^/]+\/photos$/,
+    bytes: 15 * MB + 64 * KB,
+    why: 'one photo or diagram of a step, at most 15 MB, as for inspection photos',
+    refusal: {
+      message: 'file: a photo may be at most 15 MB; send a smaller one.',
+      fields: { file: 'larger than 15 MB' },
+    },
+  },
   { route: /^\/api\/runs\/import$/, bytes: 5 * MB, why: 'a run log as CSV (5,000 runs are about 0.4 MB)' },
   {
     route: /^\/(api\/imports\/team|team\/data)$/,

@@ -30,6 +30,9 @@ export const PERMISSIONS = [
   'reviews:decide',
   'audit:read',
   'outbox:read',
+  'procedures:edit',
+  'checklists:record',
+  'checklists:sign-off',
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
 
@@ -41,6 +44,7 @@ const TECHNICIAN: readonly Permission[] = [
   'inspections:record',
   'reviews:open',
   'reviews:comment',
+  'checklists:record',
 ];
 const CREW_CHIEF: readonly Permission[] = [
   ...TECHNICIAN,
@@ -51,6 +55,8 @@ const CREW_CHIEF: readonly Permission[] = [
   'specs:edit',
   'reviews:decide',
   'audit:read',
+  'procedures:edit',
+  'checklists:sign-off',
 ];
 const OWNER: readonly Permission[] = PERMISSIONS;
 
@@ -95,4 +101,7 @@ export const PERMISSION_LABELS: Record<Permission, string> = {
   'reviews:decide': 'Decide keep, re-shim or retire',
   'audit:read': 'Read the audit trail',
   'outbox:read': 'See the mail outbox',
+  'procedures:edit': 'Write, duplicate and archive procedures',
+  'checklists:record': 'Start and fill in checklists at a rebuild',
+  'checklists:sign-off': 'Sign off checklists, and change them after sign-off',
 };

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ApiClient, signedInClient } from '../helpers/api-client';
 import { uploadPhoto } from '../helpers/images';
 import { createInspection, draftBody, newKey } from '../helpers/inspections';
+import { procedureBody } from '../helpers/procedures';
 import { freshSerial, makeTeamRecords, recordsToParams, smallPng, type TeamRecords } from '../helpers/records';
 import { fillPattern, listApiEndpoints } from '../helpers/routes';
 import { findFreePort, startServer, type RunningServer } from '../helpers/server';
@@ -89,6 +90,24 @@ const MATRIX: Record<string, Rule> = {
     other: NOT_FOUND_FOR(MANAGERS),
     fresh: () => freshRecord('/api/cars', { name: freshSerial('Car') }),
   },
+  'GET /api/checklists': { own: MEMBER, other: null },
+  'POST /api/checklists': {
+    own: RECORDERS,
+    other: NOT_FOUND_FOR(RECORDERS),
+    body: (ids) => ({ procedureId: ids.procedureId, gearSetId: ids.gearSetId }),
+  },
+  'GET /api/checklists/[id]': { own: MEMBER, other: NOT_FOUND },
+  // The matrix's checklist stays open: the 10-bolt step is ticked again and again, never completed.
+  'PATCH /api/checklists/[id]/steps/[stepId]': {
+    own: RECORDERS,
+    other: NOT_FOUND_FOR(RECORDERS),
+    body: () => ({ status: 'done', boltsInOrder: [1, 6, 3, 8, 5, 10, 2, 7, 4, 9] }),
+    headers: () => ({ 'idempotency-key': newKey() }),
+  },
+  'POST /api/checklists/[id]/steps/[stepId]/photos': { own: RECORDERS, other: NOT_FOUND_FOR(RECORDERS) },
+  // Open steps answer 409, which counts as allowed here; procedures.test.ts completes one for real.
+  'POST /api/checklists/[id]/complete': { own: RECORDERS, other: NOT_FOUND_FOR(RECORDERS) },
+  'POST /api/checklists/[id]/sign-off': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS) },
   'GET /api/exports/gear-sets/[id].csv': { own: MEMBER, other: NOT_FOUND },
   'GET /api/exports/inspections/[id].csv': { own: MEMBER, other: NOT_FOUND },
   'GET /api/exports/team.json': { own: OWNER_ONLY, other: null },
@@ -186,6 +205,22 @@ const MATRIX: Record<string, Rule> = {
   'POST /api/password-resets/confirm': { own: ANYONE, other: null },
   'GET /api/photos/[id]': { own: MEMBER, other: NOT_FOUND },
   'GET /api/photos/[id]/thumbnail': { own: MEMBER, other: NOT_FOUND },
+  'GET /api/procedures': { own: MEMBER, other: null },
+  'POST /api/procedures': { own: MANAGERS, other: null, body: () => procedureBody('Matrix procedure') },
+  'GET /api/procedures/[id]': { own: MEMBER, other: NOT_FOUND },
+  'PUT /api/procedures/[id]': {
+    own: MANAGERS,
+    other: NOT_FOUND_FOR(MANAGERS),
+    body: (ids) => procedureBody('Matrix procedure', ids.procedureStepId),
+  },
+  'POST /api/procedures/[id]/archive': {
+    own: MANAGERS,
+    other: NOT_FOUND_FOR(MANAGERS),
+    body: () => ({ archived: false }),
+  },
+  'POST /api/procedures/[id]/duplicate': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS) },
+  'POST /api/procedures/[id]/steps/[stepId]/photos': { own: MANAGERS, other: NOT_FOUND_FOR(MANAGERS) },
+  'GET /api/procedures/[id]/steps/[stepId]/diagram.svg': { own: MEMBER, other: NOT_FOUND },
   'GET /api/reports/retirements': { own: MEMBER, other: null },
   'GET /api/reviews': { own: MEMBER, other: null },
   'POST /api/reviews': {
@@ -219,6 +254,8 @@ const MATRIX: Record<string, Rule> = {
     fresh: async () => freshRecord('/api/runs', { carId: own.carId, at: runAt() }),
   },
   'POST /api/runs/import': { own: RECORDERS, other: null },
+  'GET /api/step-photos/[id]': { own: MEMBER, other: NOT_FOUND },
+  'GET /api/step-photos/[id]/thumbnail': { own: MEMBER, other: NOT_FOUND },
   'GET /api/team/second-factor': { own: MEMBER, other: null },
   'PUT /api/team/second-factor': { own: OWNER_ONLY, other: null },
   'GET /api/team/settings': { own: MEMBER, other: null },

@@ -1,6 +1,7 @@
 import type { ApiClient } from './api-client';
 import { uploadPhoto } from './images';
 import { createInspection } from './inspections';
+import { createProcedure, startChecklist, stepIdsByTitle, uploadStepPhoto } from './procedures';
 import sharp from 'sharp';
 
 /**
@@ -23,6 +24,11 @@ export interface TeamRecords {
   memberId: string;
   /** An open invitation, to nobody in particular. */
   invitationId: string;
+  /** A procedure by `manager`, its 10-bolt step (with a tightening order), a checklist on it by `author`, a step photo. */
+  procedureId: string;
+  procedureStepId: string;
+  checklistId: string;
+  stepPhotoId: string;
 }
 
 let serial = 0;
@@ -77,7 +83,21 @@ export async function makeTeamRecords(
   const profiles = await manager.get<{ items: { profileId: string }[] }>('/api/tolerance-profiles');
   const profileId = profiles.body.items[0]?.profileId;
   if (!profileId) throw new Error(`no tolerance profile: ${JSON.stringify(profiles.body)}`);
+  const procedure = await createProcedure(manager);
+  const procedureStepId = stepIdsByTitle(procedure)['Ring gear bolts']!;
+  const checklistId = await startChecklist(author, { procedureId: procedure.id, assemblyId, gearSetId });
+  const stepPhoto = await uploadStepPhoto(
+    manager,
+    `/api/procedures/${procedure.id}/steps/${procedureStepId}/photos`,
+    await smallPng(),
+  );
+  if (stepPhoto.status !== 201)
+    throw new Error(`making a step photo: ${stepPhoto.status} ${JSON.stringify(stepPhoto.body)}`);
   return {
+    procedureId: procedure.id,
+    procedureStepId,
+    checklistId,
+    stepPhotoId: stepPhoto.body.id as string,
     teamId: ids.teamId,
     memberId: ids.memberId,
     carId,
@@ -109,7 +129,15 @@ export function recordsToParams(records: TeamRecords, pattern: string): Record<s
     ['/runs/', records.runId],
     ['/teams/', records.teamId],
     ['/invitations/', records.invitationId],
+    ['/procedures/', records.procedureId],
+    ['/checklists/', records.checklistId],
+    ['/step-photos/', records.stepPhotoId],
   ];
   const id = byPrefix.find(([prefix]) => path.startsWith(prefix))?.[1];
-  return { ...(id === undefined ? {} : { id }), photoId: records.photoId, userId: records.memberId };
+  return {
+    ...(id === undefined ? {} : { id }),
+    photoId: records.photoId,
+    userId: records.memberId,
+    stepId: records.procedureStepId,
+  };
 }

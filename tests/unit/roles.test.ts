@@ -20,6 +20,9 @@ const EXPECTED: Record<Permission, Record<Role, boolean>> = {
   'reviews:decide': { owner: true, 'crew-chief': true, technician: false, viewer: false },
   'audit:read': { owner: true, 'crew-chief': true, technician: false, viewer: false },
   'outbox:read': { owner: true, 'crew-chief': false, technician: false, viewer: false },
+  'procedures:edit': { owner: true, 'crew-chief': true, technician: false, viewer: false },
+  'checklists:record': { owner: true, 'crew-chief': true, technician: true, viewer: false },
+  'checklists:sign-off': { owner: true, 'crew-chief': true, technician: false, viewer: false },
 };
 
 describe('the role matrix', () => {

@@ -30,6 +30,9 @@ const ALLOWED: Readonly<Record<Permission, readonly Role[]>> = {
   'reviews:decide': ['owner', 'crew-chief'],
   'audit:read': ['owner', 'crew-chief'],
   'outbox:read': ['owner'],
+  'procedures:edit': ['owner', 'crew-chief'],
+  'checklists:record': ['owner', 'crew-chief', 'technician'],
+  'checklists:sign-off': ['owner', 'crew-chief'],
 };
 
 const user = {
