@@ -207,7 +207,9 @@ describe('GET /api/analysis/tightening-sequence', () => {
     it(`gives the legacy cross order for ${bolts} bolts`, async () => {
       const { status, body } = await member.get(`/api/analysis/tightening-sequence?bolts=${bolts}`);
       expect(status).toBe(200);
-      expect(body).toEqual({ bolts: Number(bolts), sequence });
+      expect(body).toMatchObject({ bolts: Number(bolts), sequence });
+      // Every answer that gives an order carries the caution that the part maker's figures govern.
+      expect(body.caution).toMatch(/part maker’s figures, sequence and passes/);
     });
   }
 });

@@ -244,6 +244,14 @@ function Sheet({ props, boot, store }: { props: SheetProps; boot: BootResult; st
                 used oil under local rules.
               </li>
               <li>Torque values come from the part maker; Lashline shows the team’s own figures, not specs.</li>
+              <li>Right after a run the housing and the oil are hot: let them cool before opening the housing.</li>
+              <li>
+                Wear eye protection when turning the gears for a pattern check and when using a parts cleaner or
+                compressed air.
+              </li>
+              <li>Work with solvents, cleaners and curing sealants in a ventilated space.</li>
+              <li>Keep hands clear of the gear mesh when turning the gears for a pattern check.</li>
+              <li>The part maker’s figures, the sanctioning body’s rules and local codes govern the work.</li>
             </ul>
           </aside>
           <SetupSection

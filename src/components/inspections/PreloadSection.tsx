@@ -63,8 +63,9 @@ export function PreloadSection({ context, disabled }: { context: SheetContext; d
       )}
       <h3 className="mt-5 mb-1 font-bold">Hub check (solid spacer)</h3>
       <p className="mb-3 text-sm text-ink-soft">
-        Does the turning effort stay the same from medium to full nut torque? It should when the spacer length is right
-        (common practice).
+        Tighten the hub nut the rest of the way to the hub maker’s torque, by the hub maker’s procedure, and compare the
+        hub’s turning effort before and after. With a spacer of the right length it stays as it was; an effort that
+        rises points to a spacer that is short (common practice). The figures and the procedure are the hub maker’s.
       </p>
       <fieldset disabled={disabled} className="grid gap-4 md:grid-cols-2">
         <legend className="sr-only">Hub check on each side</legend>
