@@ -1,10 +1,13 @@
 // The board as its read model hands it to the page: plain shapes, no database.
 
+import type { LatestDecisionView } from '../reviews/latest-decision';
 import type { BoardFilter, BoardRow } from './board';
 
 /** A board row with what its sparkline draws: mean backlash at each inspection, and the band. */
 export interface BoardEntry extends BoardRow {
   spark: { points: { runs: number; value: number }[]; band: { min: number; max: number } | null };
+  /** The set's latest decision and its re-inspection point, or null when none was made. */
+  decision: LatestDecisionView | null;
 }
 
 export interface BoardView {

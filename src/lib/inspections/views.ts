@@ -2,6 +2,7 @@
 // database. The use-cases in lib/server/inspections build them; anything in the browser may import them.
 
 import type { DEFAULT_PROFILE_SOURCES, ToleranceProfile } from '../analysis/tolerance';
+import type { LatestDecisionView } from '../reviews/latest-decision';
 import type { ComparisonShape } from '../charts/comparison';
 import type { GearSetChartInput } from '../charts/gear-set-input';
 import type { PartHistoryEntry, PartView } from '../register/views';
@@ -72,6 +73,8 @@ export interface GearSetPageView {
   chartInput: GearSetChartInput;
   /** The set's open review, if it has one. */
   openReviewId: string | null;
+  /** The set's latest decision and its re-inspection point, or null when none was made. */
+  decision: LatestDecisionView | null;
   renderedAt: number;
 }
 
@@ -95,6 +98,8 @@ export interface PartPageView {
   /** Where it is, naming the car as well as the assembly. */
   where: string;
   serviceIntervalRuns: number;
+  /** A gear set's latest decision and its re-inspection point, or null. */
+  decision: LatestDecisionView | null;
   history: PartHistoryEntry[];
   inspections: InspectionView[];
 }

@@ -8,6 +8,7 @@ import { analyseBoardSets } from './board-analyses';
 import { readerUnitsOf } from '../inspections/inspections';
 import { readPartViews } from '../register/part-views';
 import { readTeamSettings } from '../register/team-settings';
+import { decisionOf, readLatestDecisions } from '../reviews/read-decisions';
 
 /** Rows shown before "show more": the board's HTML stays small however many sets a team has. */
 export const BOARD_FIRST_ROWS = 20;
@@ -25,10 +26,11 @@ const SUMMARY_ORDER = ['retire', 're-shim', 'watch', 'keep'] as const;
 export async function readBoard(access: TeamAccess, params: URLSearchParams): Promise<BoardView> {
   const teamId = access.team.id;
   const units = readerUnitsOf(access);
-  const [register, book, settings] = await Promise.all([
+  const [register, book, settings, decisions] = await Promise.all([
     readPartViews(teamId, { kind: 'gear-set' }),
     readProfileBook(teamId),
     readTeamSettings(teamId),
+    readLatestDecisions(teamId),
   ]);
   const carNames = new Map(register.places.cars.map((c) => [c.id, c.name]));
   const assemblyCar = new Map(register.places.assemblies.map((a) => [a.id, a.carId]));
@@ -52,6 +54,7 @@ export async function readBoard(access: TeamAccess, params: URLSearchParams): Pr
     return {
       ...toBoardRow(set, analysis, carOf, carName),
       spark: { points: mean?.points.map((p) => ({ runs: p.runs, value: p.value })) ?? [], band },
+      decision: decisionOf(decisions, set.id, set.totalRuns),
     };
   });
   const sorted = sortBoardRows(entries);

@@ -1,3 +1,4 @@
+import { decisionOf, readLatestDecisions } from '../reviews/read-decisions';
 import { and, asc, count, eq, max, sql, sum } from 'drizzle-orm';
 import { getDb } from '../../../db/client';
 import { inspections, reviews, type Inspection, type Part } from '../../../db/schema';
@@ -34,7 +35,7 @@ export async function readGearSet(access: TeamAccess, gearSetId: string): Promis
   const units = readerUnitsOf(access);
   const db = await getDb();
   const ofThisSet = and(eq(inspections.teamId, teamId), eq(inspections.gearSetId, gearSetId));
-  const [register, fingerprint, book, settings, openReview] = await Promise.all([
+  const [register, fingerprint, book, settings, openReview, decisions] = await Promise.all([
     readPartViews(teamId, { ids: [gearSetId] }),
     // Every edit bumps updated_at and the revision, every submission or deleted draft the counts.
     db
@@ -54,6 +55,7 @@ export async function readGearSet(access: TeamAccess, gearSetId: string): Promis
       .from(reviews)
       .where(and(eq(reviews.teamId, teamId), eq(reviews.gearSetId, gearSetId), eq(reviews.status, 'open')))
       .get(),
+    readLatestDecisions(teamId, gearSetId),
   ]);
   const set = register.parts[0];
   const setRow = register.rows.get(gearSetId);
@@ -104,6 +106,7 @@ export async function readGearSet(access: TeamAccess, gearSetId: string): Promis
     car,
     serviceIntervalRuns: settings.serviceIntervalRuns,
     openReviewId: openReview?.id ?? null,
+    decision: decisionOf(decisions, set.id, set.totalRuns),
     renderedAt,
   };
 }

@@ -1,3 +1,4 @@
+import { decisionOf, readLatestDecisions } from '../reviews/read-decisions';
 import { and, asc, desc, eq } from 'drizzle-orm';
 import { getDb } from '../../../db/client';
 import { inspections, installationEvents, users } from '../../../db/schema';
@@ -19,7 +20,7 @@ export async function readPartPage(access: TeamAccess, partId: string): Promise<
   const teamId = access.team.id;
   const units = readerUnitsOf(access);
   const db = await getDb();
-  const [register, settings, events, rows, book] = await Promise.all([
+  const [register, settings, events, rows, book, decisions] = await Promise.all([
     readPartViews(teamId, { ids: [partId] }),
     readTeamSettings(teamId),
     db
@@ -40,6 +41,7 @@ export async function readPartPage(access: TeamAccess, partId: string): Promise<
       .where(and(eq(inspections.teamId, teamId), eq(inspections.gearSetId, partId)))
       .orderBy(asc(inspections.inspectedAt), asc(inspections.createdAt)),
     readProfileBook(teamId),
+    readLatestDecisions(teamId, partId),
   ]);
   const part = register.parts[0];
   const row = register.rows.get(partId);
@@ -58,6 +60,7 @@ export async function readPartPage(access: TeamAccess, partId: string): Promise<
     part,
     where: locationToText(part.location, listsToPlaceLookup(assemblies, cars)),
     serviceIntervalRuns: settings.serviceIntervalRuns,
+    decision: decisionOf(decisions, part.id, part.totalRuns),
     history: events.map(({ event, actorName }) => ({
       id: event.id,
       action: event.action,
