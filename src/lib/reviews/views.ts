@@ -32,7 +32,16 @@ export interface SnapshotPhoto {
 /** A review with its evidence (in the reader's units) and its comments, oldest first. */
 export interface ReviewDetail extends ReviewView {
   snapshot: { takenAt: string; gearSet: PartView; photos: SnapshotPhoto[]; analysis: unknown };
-  comments: { id: string; body: string; authorId: string; authorName: string; mentions: string[]; createdAt: string }[];
+  comments: {
+    id: string;
+    body: string;
+    authorId: string;
+    authorName: string;
+    mentions: string[];
+    createdAt: string;
+    /** "Told: Sam." and any @name that matched nobody, or null when the comment mentions no one. */
+    mentionNote: string | null;
+  }[];
 }
 
 /** The review page: the review and the reasons a retirement may give. */

@@ -1,6 +1,7 @@
+import { mentionNote, mentionNoteText } from '../../reviews/mention-notes';
 import { and, asc, eq } from 'drizzle-orm';
 import { getDb } from '../../../db/client';
-import { reviewComments, reviews, users, type Review } from '../../../db/schema';
+import { memberships, reviewComments, reviews, users, type Review } from '../../../db/schema';
 import { DECISION_LABELS } from '../../reviews/schemas';
 import type { ReviewDetail, ReviewPageView, ReviewView } from '../../reviews/views';
 import type { TeamAccess } from '../guard';
@@ -35,13 +36,13 @@ interface StoredSnapshot {
 }
 
 /**
- * A review with its snapshot in the reader's units and its comments, in two queries however many
+ * A review with its snapshot in the reader's units and its comments, in three queries however many
  * comments or reviews there are; both filter by the team. 404 for an unknown review or another team's.
  */
 export async function readReview(access: TeamAccess, reviewId: string): Promise<ReviewDetail> {
   const teamId = access.team.id;
   const db = await getDb();
-  const [row, comments] = await Promise.all([
+  const [row, comments, members] = await Promise.all([
     db
       .select()
       .from(reviews)
@@ -60,6 +61,12 @@ export async function readReview(access: TeamAccess, reviewId: string): Promise<
       .innerJoin(users, eq(users.id, reviewComments.authorId))
       .where(and(eq(reviewComments.reviewId, reviewId), eq(reviewComments.teamId, teamId)))
       .orderBy(asc(reviewComments.createdAt)),
+    // The team's members, to say under each comment who its mentions reached and which reached nobody.
+    db
+      .select({ id: users.id, name: users.name, email: users.email })
+      .from(memberships)
+      .innerJoin(users, eq(users.id, memberships.userId))
+      .where(eq(memberships.teamId, teamId)),
   ]);
   if (!row) throw new HttpError(404, 'No such review in this team.');
   const snapshot = row.snapshot as StoredSnapshot;
@@ -71,7 +78,11 @@ export async function readReview(access: TeamAccess, reviewId: string): Promise<
       photos: snapshot.photos,
       analysis: snapshot.analyses[`${access.user.lengthUnit}|${access.user.torqueUnit}`],
     },
-    comments: comments.map((c) => ({ ...c, createdAt: c.createdAt.toISOString() })),
+    comments: comments.map((c) => ({
+      ...c,
+      createdAt: c.createdAt.toISOString(),
+      mentionNote: mentionNoteText(mentionNote(c.body, c.mentions ?? [], members)),
+    })),
   };
 }
 
