@@ -33,3 +33,18 @@ describe('a mention in a review comment', () => {
     expect(note).toContain('@nobodyhere matched nobody in the team');
   });
 });
+
+describe('the Team data page for each role', () => {
+  it('tells a viewer once what they can do there, and offers the owner the export', async () => {
+    const viewerPage = await (await team.viewer.request('/team/data')).text();
+    expect(viewerPage.match(/data-testid="data-role-note"/g)).toHaveLength(1);
+    expect(viewerPage).toContain('Exporting the whole team is for its owner');
+    expect(viewerPage).not.toContain('Download the team archive');
+    expect(viewerPage).not.toMatch(/Not for your role/);
+    expect(viewerPage).toContain('id="archive"');
+
+    const ownerPage = await (await team.owner.request('/team/data')).text();
+    expect(ownerPage).toContain('Download the team archive');
+    expect(ownerPage).not.toContain('data-role-note');
+  });
+});
