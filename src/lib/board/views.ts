@@ -30,4 +30,6 @@ export interface BoardView {
   };
   /** The same board with every row shown, when some are left out; null when nothing is. */
   showAllHref: string | null;
+  /** What was typed in the board's serial search (`?q=`), or '' when nothing. */
+  serialQuery: string;
 }

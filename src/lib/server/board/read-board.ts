@@ -63,8 +63,14 @@ export async function readBoard(access: TeamAccess, params: URLSearchParams): Pr
     register.places.cars.map((c) => c.id),
   );
   const showAll = params.get('all') === '1';
+  // A serial search narrows the main list: a crew looking for one set among a season's hundred.
+  const serialQuery = (params.get('q') ?? '').trim().slice(0, 64);
+  const bySerial = (row: { serial: string }) =>
+    !serialQuery || row.serial.toLowerCase().includes(serialQuery.toLowerCase());
   // Spares have their own list below; the main one shows them only when the filter asks for spares.
-  const matching = filterBoardRows(sorted, filter).filter((r) => filter.status || r.status !== 'spare');
+  const matching = filterBoardRows(sorted, filter)
+    .filter((r) => filter.status || r.status !== 'spare')
+    .filter(bySerial);
   const spares = splitSpares(filterBoardRows(sorted, { car: null, status: null }));
   const rows = showAll ? matching : matching.slice(0, BOARD_FIRST_ROWS);
   const ready = showAll ? spares.ready : spares.ready.slice(0, BOARD_FIRST_SPARES);
@@ -83,7 +89,11 @@ export async function readBoard(access: TeamAccess, params: URLSearchParams): Pr
       moreReady: spares.ready.length - ready.length,
       notReady: spares.notReady.map((n) => ({ serial: n.row.serial, href: n.row.href, why: n.why })),
     },
-    showAllHref: hidden > 0 ? `${boardFilterHref(filter)}${filter.car || filter.status ? '&' : '?'}all=1` : null,
+    showAllHref:
+      hidden > 0
+        ? `${boardFilterHref(filter)}${filter.car || filter.status ? '&' : '?'}all=1${serialQuery ? `&q=${encodeURIComponent(serialQuery)}` : ''}`
+        : null,
+    serialQuery,
   };
 }
 
