@@ -239,6 +239,11 @@ const MATRIX: Record<string, Rule> = {
     other: NOT_FOUND_FOR(MANAGERS),
     body: () => ({ decision: 'keep', reason: 'Pattern is fine', reinspectAfterRuns: 20 }),
   },
+  'POST /api/reviews/[id]/correction': {
+    own: MANAGERS,
+    other: NOT_FOUND_FOR(MANAGERS),
+    body: () => ({ decision: 'keep', reason: 'Corrected', reinspectAfterRuns: 20 }),
+  },
   'GET /api/runs': { own: MEMBER, other: null },
   'POST /api/runs': {
     own: RECORDERS,

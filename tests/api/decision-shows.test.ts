@@ -69,4 +69,54 @@ describe('the latest decision where the set is shown', () => {
       await tech.post('/api/runs', { carId, at: new Date(Date.UTC(2026, 2, 3, 10, i)).toISOString() });
     for (const path of pages) expect(await decisionLine(path), path).toContain('re-inspection due now (at 49)');
   });
+
+  it('lets a crew chief correct the latest decision: the new one supersedes it, both stay, the set follows', async () => {
+    const { chief, tech } = team;
+    const setId = (await chief.post('/api/gear-sets', { serial: 'DS-2', ringTeeth: 41, pinionTeeth: 10 })).body.id;
+    const first = (await tech.post('/api/reviews', { gearSetId: setId })).body.id;
+    await chief.post(`/api/reviews/${first}/decision`, { decision: 'retire', reason: 'Heat damage' });
+    expect((await chief.get(`/api/parts/${setId}`)).body.status).toBe('retired');
+
+    // Not for a technician; and a decision must be chosen, naming the field, with nothing written.
+    expect((await tech.post(`/api/reviews/${first}/correction`, { decision: 'keep', reason: 'x' })).status).toBe(403);
+    const bad = await chief.post(`/api/reviews/${first}/correction`, { reason: 'No choice' });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields).toHaveProperty('decision');
+    expect((await chief.get(`/api/reviews?gearSetId=${setId}`)).body.items).toHaveLength(1);
+
+    const corrected = await chief.post(`/api/reviews/${first}/correction`, {
+      decision: 'keep',
+      reason: 'The discolouring was the paint, not heat',
+      reinspectAfterRuns: 10,
+    });
+    expect(corrected.status).toBe(201);
+    expect(corrected.body).toMatchObject({ status: 'decided', decision: 'keep' });
+    expect(corrected.body.notes).toMatch(/Supersedes the decision of 20\d\d-\d\d-\d\d \(Retire\)/);
+    // A retired set comes back only this way: on the shelf again, since it left its assembly when retired.
+    expect((await chief.get(`/api/parts/${setId}`)).body.status).toBe('spare');
+    const history = (await chief.get(`/api/reviews?gearSetId=${setId}`)).body.items as { decision: string }[];
+    expect(history.map((r) => r.decision).sort()).toEqual(['keep', 'retire']);
+    expect(await decisionLine(`/gear-sets/${setId}`)).toContain('Decision: Keep in service');
+
+    // Only the latest decision can be corrected.
+    const again = await chief.post(`/api/reviews/${first}/correction`, { decision: 'retire', reason: 'x' });
+    expect(again.status).toBe(409);
+
+    // The review page's form does the same, and lands on the new decision.
+    const form = await chief.request(`/reviews/${corrected.body.id}`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/x-www-form-urlencoded' },
+      body: new URLSearchParams({
+        intent: 'correct',
+        decision: 'reshim',
+        reason: 'Lash wider',
+        reinspectAfterRuns: '4',
+      }),
+    });
+    expect(form.status).toBe(303);
+    const landed = form.headers.get('location') ?? '';
+    expect(landed).toMatch(/^\/reviews\/[\w-]+$/);
+    expect(landed).not.toBe(`/reviews/${corrected.body.id}`);
+    expect(await decisionLine(`/parts/${setId}`)).toContain('Decision: Re-shim and re-inspect');
+  });
 });
