@@ -37,11 +37,17 @@ export function deltaToText(value: number, unit: LengthUnit, resolution: Indicat
   return `${value > 0 ? '+' : '−'}${text}`;
 }
 
-/** The graduation of a resolution in the reader's unit. */
+/**
+ * The graduation of a resolution in the reader's unit, as the charts step their ticks and domains. A
+ * graduation converted to the other unit is no round number (0.001 in is 0.0254 mm, whose multiples read
+ * 0.102, 0.152, 0.203): there the step is the largest power of ten not above it, the rule the digits follow.
+ * @example resolutionStep('0.001in', 'mm') // 0.01
+ */
 export function resolutionStep(resolution: IndicatorResolutionId, unit: LengthUnit): number {
   const found = findResolution(resolution);
   if (!found) return unit === 'in' ? 0.001 : 0.01;
-  return found.unit === unit ? found.step : mmToLength(found.mm, unit);
+  if (found.unit === unit) return found.step;
+  return Number((10 ** Math.floor(Math.log10(mmToLength(found.mm, unit)) + 1e-9)).toPrecision(1));
 }
 
 /** Decimals for a resolution in the reader's unit. */
@@ -56,7 +62,9 @@ export function decimalsFor(resolution: IndicatorResolutionId, unit: LengthUnit)
  */
 export function coarsestResolution(ids: readonly IndicatorResolutionId[], unit: LengthUnit): IndicatorResolutionId {
   if (ids.length === 0) return FALLBACK_RESOLUTION[unit];
-  return ids.reduce((a, b) => (resolutionStep(b, unit) > resolutionStep(a, unit) ? b : a));
+  // Compared as the dials' true graduations: the rounded chart steps of two dials can be equal.
+  const graduation = (id: IndicatorResolutionId) => findResolution(id)?.mm ?? 0;
+  return ids.reduce((a, b) => (graduation(b) > graduation(a) ? b : a));
 }
 
 /**

@@ -1,9 +1,10 @@
-import { describe, expect, it } from 'vitest';
+import { resolutionStep, describe, expect, it } from 'vitest';
 import {
   coarsestResolution,
   deltaToText,
   isoToDayText,
   lengthToText,
+  resolutionStep,
   stepTicks,
   valueDomain,
 } from '../../../src/lib/charts/format';
@@ -27,6 +28,20 @@ describe('chart number formats', () => {
     expect(coarsestResolution(['0.0005in', '0.001in'], 'in')).toBe('0.001in');
     expect(coarsestResolution(['0.002mm', '0.0001in'], 'mm')).toBe('0.0001in');
     expect(coarsestResolution([], 'mm')).toBe('0.01mm');
+  });
+
+  it('steps a graduation read in the other unit by the largest power of ten not above it (TRADE.md digits rule, CP)', () => {
+    // 0.001 in = 0.0254 mm (NIST SP 811: 1 in = 25.4 mm exactly): its multiples would read 0.102, 0.152, 0.203 mm.
+    expect(resolutionStep('0.001in', 'mm')).toBe(0.01);
+    expect(resolutionStep('0.0005in', 'mm')).toBe(0.01);
+    expect(resolutionStep('0.0001in', 'mm')).toBe(0.001);
+    // 0.01 mm = 0.000394 in and 0.002 mm = 0.0000787 in.
+    expect(resolutionStep('0.01mm', 'in')).toBe(0.0001);
+    expect(resolutionStep('0.002mm', 'in')).toBe(0.00001);
+    // In its own unit a dial keeps its graduation.
+    expect(resolutionStep('0.0005in', 'in')).toBe(0.0005);
+    // Ticks of an inch dial read in mm are round millimetres (0.102, 0.152, 0.203 before).
+    expect(stepTicks(0.09, 0.21, resolutionStep('0.001in', 'mm'))).toEqual([0.1, 0.12, 0.14, 0.16, 0.18, 0.2]);
   });
 
   it('puts ticks on whole graduations', () => {
