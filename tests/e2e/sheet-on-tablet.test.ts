@@ -70,4 +70,25 @@ describe('the sheet on a tablet', () => {
     expect(await when.inputValue()).toMatch(/^\d{4}-\d\d-\d\d \d\d:\d\d$/);
     await page.close();
   });
+
+  it('takes a digital indicator that types each reading and Enter: every position filled in order, no touch between', async () => {
+    const page = await browser.newPage({ viewport: { width: 800, height: 1280 } });
+    await signInOnPage(page, server.baseUrl, 'tech@lashline.test');
+    await page.goto(`${server.baseUrl}/inspections/new`);
+    await page.getByTestId('reading-1').waitFor();
+    const count = await page
+      .locator('[data-testid^="reading-"]')
+      .evaluateAll((inputs) => inputs.filter((i) => /^reading-\d+$/.test(i.getAttribute('data-testid') ?? '')).length);
+    expect(count).toBeGreaterThanOrEqual(4);
+    const readings = Array.from({ length: count }, (_, i) => (0.0085 + i * 0.0005).toFixed(4));
+    await page.getByTestId('reading-1').focus();
+    // As a USB indicator sends it: the digits and Enter, as keystrokes, one reading after another.
+    for (const reading of readings) {
+      await page.keyboard.type(reading);
+      await page.keyboard.press('Enter');
+    }
+    for (let i = 0; i < count; i += 1)
+      expect(await page.getByTestId(`reading-${i + 1}`).inputValue(), `position ${i + 1}`).toBe(readings[i]);
+    await page.close();
+  });
 });
