@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { signedInClient, uniqueEmail } from '../helpers/api-client';
+import { ApiClient, signedInClient, uniqueEmail } from '../helpers/api-client';
 import { startServer, type RunningServer } from '../helpers/server';
 import { SmtpFake, type ReceivedMail } from '../helpers/smtp-fake';
 import { makeTeamOfFour, type TeamOfFour } from '../helpers/team';
@@ -121,5 +121,27 @@ describe('removing a member from the members page', () => {
     );
     expect(await removed.text()).toContain(`${tech.name} was removed from Tidy Invites.`);
     expect([401, 403]).toContain((await team.tech.get('/api/members')).status);
+  });
+});
+
+describe('the invitation page', () => {
+  it('names the team, the role and who invited; fills the address into sign-up; a used link says so with no Accept', async () => {
+    const email = uniqueEmail('page');
+    await team.owner.post('/api/invitations', { email, role: 'technician' });
+    const token = tokenIn(await mailNumber(email, 1));
+    const ownerName = (await team.owner.get('/api/account')).body.name as string;
+
+    const stranger = new ApiClient(server.baseUrl);
+    const page = await (await stranger.request(`/invitations/accept?token=${token}`)).text();
+    expect(page).toContain(`${ownerName} invited ${email} to join Tidy Invites as technician.`);
+    const signUp = /href="(\/sign-up\?[^"]+)"/.exec(page)?.[1]?.replace(/&amp;|&#38;/g, '&') ?? '';
+    const signUpPage = await (await stranger.request(signUp)).text();
+    expect(signUpPage).toContain(`value="${email}"`);
+
+    const person = await signedInClient(server.baseUrl, { email });
+    expect((await person.client.post('/api/invitations/accept', { token })).status).toBe(200);
+    const used = await (await person.client.request(`/invitations/accept?token=${token}`)).text();
+    expect(used).toContain('This invitation was already used');
+    expect(used).not.toContain('Accept the invitation');
   });
 });

@@ -276,3 +276,35 @@ export async function listOpenInvitations(
     .orderBy(desc(invitations.createdAt));
   return rows.map((row) => ({ ...row, expiresAt: row.expiresAt.toISOString() }));
 }
+
+/** What an invitation link is, as its page tells the person who follows it. */
+export interface InvitationDescription {
+  state: 'open' | 'used' | 'expired' | 'unknown';
+  teamName?: string;
+  role?: Role;
+  inviterName?: string;
+  email?: string;
+}
+
+/** Describes the invitation behind a link without using it: the team, the role, who invited, and its state. */
+export async function describeInvitation(token: string, now = new Date()): Promise<InvitationDescription> {
+  if (!token) return { state: 'unknown' };
+  const db = await getDb();
+  const row = await db
+    .select({
+      email: invitations.email,
+      role: invitations.role,
+      expiresAt: invitations.expiresAt,
+      acceptedAt: invitations.acceptedAt,
+      teamName: teams.name,
+      inviterName: users.name,
+    })
+    .from(invitations)
+    .innerJoin(teams, eq(teams.id, invitations.teamId))
+    .innerJoin(users, eq(users.id, invitations.invitedBy))
+    .where(eq(invitations.tokenHash, hashToken(token)))
+    .get();
+  if (!row) return { state: 'unknown' };
+  const state = row.acceptedAt ? 'used' : row.expiresAt.getTime() < now.getTime() ? 'expired' : 'open';
+  return { state, teamName: row.teamName, role: row.role, inviterName: row.inviterName, email: row.email };
+}

@@ -1,4 +1,4 @@
-import { resolutionStep, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import {
   coarsestResolution,
   deltaToText,
