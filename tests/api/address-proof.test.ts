@@ -1,8 +1,8 @@
-import { createClient, type Client } from '@libsql/client';
+import type { Client } from '@libsql/client';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ApiClient, TEST_PASSWORD, signedInClient, uniqueEmail } from '../helpers/api-client';
 import { draftBody, submitInspection } from '../helpers/inspections';
-import { startServer, type RunningServer } from '../helpers/server';
+import { startServer, type RunningServer, openDatabase } from '../helpers/server';
 import { SmtpFake, type ReceivedMail } from '../helpers/smtp-fake';
 import { joinByInvitation, verifyAddressByMail } from '../helpers/team';
 
@@ -20,7 +20,7 @@ beforeAll(async () => {
   smtp = await SmtpFake.create();
   await smtp.start();
   server = await startServer({ env: { SMTP_PORT: String(smtp.port) } });
-  database = createClient({ url: server.databaseUrl });
+  database = await openDatabase(server.databaseUrl);
 }, 60_000);
 afterAll(async () => {
   database?.close();

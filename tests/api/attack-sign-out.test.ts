@@ -1,7 +1,6 @@
-import { createClient } from '@libsql/client';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ApiClient, TEST_PASSWORD, signedInClient } from '../helpers/api-client';
-import { startServer, type RunningServer } from '../helpers/server';
+import { startServer, type RunningServer, openDatabase } from '../helpers/server';
 
 /**
  * The review's finding 6: a session cookie copied before sign-out still answered 200 afterwards.
@@ -17,7 +16,7 @@ afterAll(() => server?.stop());
 
 /** Moves the person's sessions back in time, as if `hoursAgo` had passed since they were last used / made. */
 async function ageSessions(userId: string, column: 'last_seen_at' | 'created_at', hoursAgo: number): Promise<void> {
-  const db = createClient({ url: server.databaseUrl });
+  const db = await openDatabase(server.databaseUrl);
   try {
     const changed = await db.execute({
       sql: `UPDATE sessions SET ${column} = ? WHERE user_id = ?`,
@@ -60,7 +59,7 @@ describe('sign-out, attacked', () => {
     expect((await idle.client.get('/api/account')).status).toBe(401);
     expect((await recent.client.get('/api/account')).status).toBe(200);
     // The request above moved its last-seen time on: it is good for another 12 hours.
-    const db = createClient({ url: server.databaseUrl });
+    const db = await openDatabase(server.databaseUrl);
     try {
       const row = (
         await db.execute({ sql: 'SELECT last_seen_at FROM sessions WHERE user_id = ?', args: [recent.userId] })

@@ -1,11 +1,11 @@
 import { randomUUID } from 'node:crypto';
-import { createClient, type Client } from '@libsql/client';
+import type { Client } from '@libsql/client';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { signedInClient, type ApiClient } from '../helpers/api-client';
 import { uploadPhoto } from '../helpers/images';
 import { draftBody, submitInspection } from '../helpers/inspections';
 import { smallPng } from '../helpers/records';
-import { startServer, type RunningServer } from '../helpers/server';
+import { startServer, type RunningServer, openDatabase } from '../helpers/server';
 
 /**
  * Issue 15 §2: every query that reaches a row through an id also filters by team. Rows of one team that
@@ -31,7 +31,7 @@ async function insert(table: string, row: Record<string, unknown>): Promise<void
 
 beforeAll(async () => {
   server = await startServer();
-  database = createClient({ url: server.databaseUrl });
+  database = await openDatabase(server.databaseUrl);
   const v = await signedInClient(server.baseUrl, { team: 'Filter Victims' });
   victim = v.client;
   a.team = v.teamId!;

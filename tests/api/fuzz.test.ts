@@ -1,6 +1,6 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { createClient, type Client } from '@libsql/client';
+import type { Client } from '@libsql/client';
 import fc from 'fast-check';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -18,7 +18,7 @@ import { noiseImage, pngBomb, pngHeaderBomb, uploadPhoto } from '../helpers/imag
 import { draftBody } from '../helpers/inspections';
 import { makeTeamRecords, recordsToParams, type TeamRecords } from '../helpers/records';
 import { listApiRoutes, patternParams } from '../helpers/routes';
-import { findFreePort, startServer, type RunningServer } from '../helpers/server';
+import { findFreePort, startServer, type RunningServer, openDatabase } from '../helpers/server';
 
 /**
  * Property-based fuzzing of every route file under src/pages/api, with every method it exports:
@@ -256,7 +256,7 @@ beforeAll(async () => {
     memberId: stranger.userId,
   });
   profileValues = (await owner.get('/api/tolerance-profiles')).body.items[0].values;
-  database = createClient({ url: server.databaseUrl });
+  database = await openDatabase(server.databaseUrl);
   tables = (
     await database.execute(
       "SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' ORDER BY name",

@@ -1,8 +1,7 @@
-import { createClient } from '@libsql/client';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { signedInClient, type ApiClient } from '../helpers/api-client';
 import { draftBody, newKey, submitInspection } from '../helpers/inspections';
-import { startServer, type RunningServer } from '../helpers/server';
+import { startServer, type RunningServer, openDatabase } from '../helpers/server';
 import { SmtpFake } from '../helpers/smtp-fake';
 import { makeTeamOfFour, type TeamOfFour } from '../helpers/team';
 
@@ -38,7 +37,7 @@ function post(client: ApiClient, path: string, body: unknown, key: string | null
 }
 
 async function countInspections(): Promise<number> {
-  const db = createClient({ url: server.databaseUrl });
+  const db = await openDatabase(server.databaseUrl);
   const n = Number((await db.execute('SELECT count(*) AS n FROM inspections')).rows[0]?.n);
   db.close();
   return n;
@@ -121,7 +120,7 @@ describe('the inspection sheet API', () => {
     expect((await team.tech.patch(`/api/inspections/${id}`, { notes: 'changed by tech' })).status).toBe(403);
     const byChief = await team.chief.patch(`/api/inspections/${id}`, { notes: 'corrected by chief' });
     expect(byChief.status).toBe(200);
-    const db = createClient({ url: server.databaseUrl });
+    const db = await openDatabase(server.databaseUrl);
     const rows = await db.execute({
       sql: "SELECT before, after FROM audit_events WHERE record_type = 'inspection' AND record_id = ? AND action = 'update'",
       args: [id],

@@ -1,6 +1,5 @@
 import { existsSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
-import { createClient } from '@libsql/client';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ApiClient, signedInClient } from '../helpers/api-client';
@@ -18,7 +17,7 @@ import {
 } from '../helpers/images';
 import { createInspection } from '../helpers/inspections';
 import { sendStreamedBody } from '../helpers/streamed-body';
-import { startServer, type RunningServer } from '../helpers/server';
+import { startServer, type RunningServer, openDatabase } from '../helpers/server';
 import { SmtpFake } from '../helpers/smtp-fake';
 import { makeTeamOfFour, type TeamOfFour } from '../helpers/team';
 
@@ -49,7 +48,7 @@ afterAll(async () => {
 });
 
 async function sql(statement: string): Promise<unknown[][]> {
-  const db = createClient({ url: server.databaseUrl });
+  const db = await openDatabase(server.databaseUrl);
   try {
     return (await db.execute(statement)).rows.map((row) => Array.from({ length: row.length }, (_, i) => row[i]));
   } finally {

@@ -1,8 +1,7 @@
-import { createClient } from '@libsql/client';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { ApiClient } from '../helpers/api-client';
 import { signedInClient } from '../helpers/api-client';
-import { startServer, type RunningServer } from '../helpers/server';
+import { startServer, type RunningServer, openDatabase } from '../helpers/server';
 import { SmtpFake } from '../helpers/smtp-fake';
 import { makeTeamOfFour, type TeamOfFour } from '../helpers/team';
 
@@ -282,7 +281,7 @@ describe('bad input on the register routes', () => {
   ];
 
   async function rowCounts(): Promise<number[]> {
-    const db = createClient({ url: server.databaseUrl });
+    const db = await openDatabase(server.databaseUrl);
     const counts: number[] = [];
     for (const table of ['cars', 'assemblies', 'parts', 'installation_events', 'runs'])
       counts.push(Number((await db.execute(`SELECT count(*) AS n FROM ${table}`)).rows[0]?.n));

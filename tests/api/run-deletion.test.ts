@@ -1,7 +1,6 @@
-import { createClient } from '@libsql/client';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { ApiClient } from '../helpers/api-client';
-import { startServer, type RunningServer } from '../helpers/server';
+import { startServer, type RunningServer, openDatabase } from '../helpers/server';
 import { SmtpFake } from '../helpers/smtp-fake';
 import { makeTeamOfFour, type TeamOfFour } from '../helpers/team';
 
@@ -33,7 +32,7 @@ async function logRun(client: ApiClient): Promise<string> {
 }
 
 async function sql(statement: string, args: string[] = []) {
-  const db = createClient({ url: server.databaseUrl });
+  const db = await openDatabase(server.databaseUrl);
   try {
     return (await db.execute({ sql: statement, args })).rows;
   } finally {

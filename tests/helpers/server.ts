@@ -1,4 +1,5 @@
 import { spawn, type ChildProcess } from 'node:child_process';
+import { createClient, type Client } from '@libsql/client';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
@@ -135,4 +136,14 @@ export async function startServer(options: ServerOptions = {}): Promise<RunningS
       if (!options.dataDir) rmSync(dataDir, { recursive: true, force: true });
     },
   };
+}
+
+/**
+ * A direct handle on a test server's database file, for what a test must see or set behind the API's back.
+ * It waits for the server's own writes (busy timeout) instead of failing with SQLITE_BUSY.
+ */
+export async function openDatabase(databaseUrl: string): Promise<Client> {
+  const db = createClient({ url: databaseUrl });
+  await db.execute('PRAGMA busy_timeout = 10000');
+  return db;
 }
