@@ -46,7 +46,53 @@ export async function addPhoto(
   inspection: Pick<Inspection, 'id'>,
   upload: { bytes: Uint8Array; side: PhotoSide },
 ): Promise<CreatedPhotoView> {
-  const { full, thumbnail } = await encodePhoto(upload.bytes);
+  const photo = await storeEncodedPhoto(upload.bytes, async (tx, encoded) => {
+    const [row] = await tx
+      .insert(inspectionPhotos)
+      .values({
+        id: randomUUID(),
+        teamId: access.team.id,
+        inspectionId: inspection.id,
+        side: upload.side,
+        ...encoded,
+        createdBy: access.user.id,
+      })
+      .returning();
+    if (!row) throw new Error('insert returned no row');
+    await recordAudit(tx, {
+      teamId: access.team.id,
+      actorId: access.user.id,
+      action: 'create',
+      recordType: 'inspection-photo',
+      recordId: row.id,
+      after: row,
+    });
+    return row;
+  });
+  return { ...photoToView(photo), contentType: photo.contentType };
+}
+
+/** What a photo row keeps of its re-encoded image and where its bytes are. */
+export interface EncodedPhotoColumns {
+  storageKey: string;
+  thumbnailKey: string;
+  contentType: string;
+  width: number;
+  height: number;
+  bytes: number;
+}
+
+/**
+ * The one pipeline for every uploaded photo (inspections, procedure and checklist steps): re-encodes
+ * the bytes, stores the image and its thumbnail, then writes the caller's row (and its audit entry) in
+ * one transaction. The bytes go before the row and are removed again if the row cannot be written, so a
+ * row always has its bytes.
+ */
+export async function storeEncodedPhoto<Row>(
+  bytes: Uint8Array,
+  writeRow: (tx: Transaction, encoded: EncodedPhotoColumns) => Promise<Row>,
+): Promise<Row> {
+  const { full, thumbnail } = await encodePhoto(bytes);
   const storage = await getObjectStorage();
   const storageKey = `${randomUUID()}.jpg`;
   const thumbnailKey = `${randomUUID()}.jpg`;
@@ -56,35 +102,16 @@ export async function addPhoto(
     stored.push(storageKey);
     await storage.put(thumbnailKey, thumbnail.bytes, thumbnail.contentType);
     stored.push(thumbnailKey);
-    const photo = await write(async (tx) => {
-      const [row] = await tx
-        .insert(inspectionPhotos)
-        .values({
-          id: randomUUID(),
-          teamId: access.team.id,
-          inspectionId: inspection.id,
-          side: upload.side,
-          storageKey,
-          thumbnailKey,
-          contentType: full.contentType,
-          width: full.width,
-          height: full.height,
-          bytes: full.bytes.byteLength,
-          createdBy: access.user.id,
-        })
-        .returning();
-      if (!row) throw new Error('insert returned no row');
-      await recordAudit(tx, {
-        teamId: access.team.id,
-        actorId: access.user.id,
-        action: 'create',
-        recordType: 'inspection-photo',
-        recordId: row.id,
-        after: row,
-      });
-      return row;
-    });
-    return { ...photoToView(photo), contentType: photo.contentType };
+    return await write((tx) =>
+      writeRow(tx, {
+        storageKey,
+        thumbnailKey,
+        contentType: full.contentType,
+        width: full.width,
+        height: full.height,
+        bytes: full.bytes.byteLength,
+      }),
+    );
   } catch (error) {
     await removeObjects(stored);
     throw error;

@@ -1,11 +1,9 @@
-import source from '../../components/procedures/checklist-worker.js?raw';
+import { offlineShellWorker } from '../../lib/server/offline-shell-worker';
 
-/** The checklist runner's service worker, scoped to /checklists/ by its address (see inspections/sw.js.ts). */
+/** The checklist runner's service worker, scoped to /checklists/ by its address. */
 export const GET = (): Response =>
-  new Response(source, {
-    headers: {
-      'Content-Type': 'text/javascript; charset=utf-8',
-      'Content-Security-Policy': "default-src 'self'; frame-ancestors 'none'",
-      'Cache-Control': 'no-cache',
-    },
+  offlineShellWorker({
+    name: 'checklist',
+    pages: /^\/checklists\/[^/]+$/,
+    missing: 'Offline, and this checklist has not been opened on this device before.',
   });

@@ -1,15 +1,9 @@
-import source from '../../components/inspections/sheet-worker.js?raw';
+import { offlineShellWorker } from '../../lib/server/offline-shell-worker';
 
-/**
- * The inspection sheet's service worker. Served from here rather than public/ so that it carries a
- * policy letting it fetch from Lashline itself (the static files get `default-src 'none'`, which
- * would stop the worker's every fetch), and so that its scope is /inspections/ by its own address.
- */
+/** The inspection sheet's service worker, scoped to /inspections/ by its address. */
 export const GET = (): Response =>
-  new Response(source, {
-    headers: {
-      'Content-Type': 'text/javascript; charset=utf-8',
-      'Content-Security-Policy': "default-src 'self'; frame-ancestors 'none'",
-      'Cache-Control': 'no-cache',
-    },
+  offlineShellWorker({
+    name: 'sheet',
+    pages: /^\/inspections\/(new|[^/]+\/edit)$/,
+    missing: 'Offline, and this sheet has not been opened on this device before.',
   });

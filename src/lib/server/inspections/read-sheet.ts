@@ -51,53 +51,36 @@ export async function readSheet(
   };
 }
 
-/** Only what the sheet reads of an inspection (not the canonical copy or the summary). */
+/** What the sheet reads of an inspection: not the canonical copy or the summary, which it never shows. */
+const SHEET_FIELDS = [
+  'id',
+  'status',
+  'createdBy',
+  'revision',
+  'gearSetId',
+  'assemblyId',
+  'inspectedAt',
+  'runsAtInspection',
+  'runsChangeReason',
+  'technicianId',
+  'unit',
+  'resolution',
+  'torqueUnit',
+  'readings',
+  'runout',
+  'pinion',
+  'carrierShims',
+  'preload',
+  'patterns',
+  'condition',
+  'notes',
+] as const satisfies readonly (keyof InspectionView)[];
+
 function viewToLite(view: InspectionView): InspectionViewLite {
-  const {
-    id,
-    status,
-    createdBy,
-    revision,
-    gearSetId,
-    assemblyId,
-    inspectedAt,
-    runsAtInspection,
-    runsChangeReason,
-    technicianId,
-    unit,
-    resolution,
-    torqueUnit,
-    readings,
-    runout,
-    pinion,
-    carrierShims,
-    preload,
-    patterns,
-    condition,
-    notes,
-  } = view;
+  const lite = Object.fromEntries(SHEET_FIELDS.map((field) => [field, view[field]])) as Pick<
+    InspectionView,
+    (typeof SHEET_FIELDS)[number]
+  >;
   // The record keeps a finding as text; the sheet offers the known ones.
-  return {
-    id,
-    status,
-    createdBy,
-    revision,
-    gearSetId,
-    assemblyId,
-    inspectedAt,
-    runsAtInspection,
-    runsChangeReason,
-    technicianId,
-    unit,
-    resolution,
-    torqueUnit,
-    readings,
-    runout,
-    pinion,
-    carrierShims,
-    preload,
-    patterns,
-    condition: condition as InspectionViewLite['condition'],
-    notes,
-  };
+  return { ...lite, condition: view.condition as InspectionViewLite['condition'] };
 }

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
-import { getDb, write } from '../../../db/client';
+import { getDb } from '../../../db/client';
 import { stepPhotos, type StepPhoto } from '../../../db/schema';
 import { MAX_PHOTO_BYTES } from '../../photos/upload-rules';
 import type { StepPhotoView } from '../../procedures/views';
@@ -8,8 +8,7 @@ import { recordAudit } from '../audit';
 import { bodyLimitFor } from '../body-limits';
 import type { TeamAccess } from '../guard';
 import { HttpError, readBodyBytes, tooLargeFor } from '../http';
-import { encodePhoto } from '../photo-image';
-import { removeObjects } from '../photos';
+import { storeEncodedPhoto } from '../photos';
 import { getObjectStorage, type StoredObject } from '../storage';
 
 /**
@@ -57,50 +56,31 @@ export async function addStepPhoto(
   stepId: string,
   bytes: Uint8Array,
 ): Promise<StepPhotoView> {
-  const { full, thumbnail } = await encodePhoto(bytes);
-  const storage = await getObjectStorage();
-  const storageKey = `${randomUUID()}.jpg`;
-  const thumbnailKey = `${randomUUID()}.jpg`;
-  const stored: string[] = [];
-  try {
-    await storage.put(storageKey, full.bytes, full.contentType);
-    stored.push(storageKey);
-    await storage.put(thumbnailKey, thumbnail.bytes, thumbnail.contentType);
-    stored.push(thumbnailKey);
-    const photo = await write(async (tx) => {
-      const [row] = await tx
-        .insert(stepPhotos)
-        .values({
-          id: randomUUID(),
-          teamId: access.team.id,
-          procedureId: 'procedureId' in owner ? owner.procedureId : null,
-          checklistId: 'checklistId' in owner ? owner.checklistId : null,
-          stepId,
-          storageKey,
-          thumbnailKey,
-          contentType: full.contentType,
-          width: full.width,
-          height: full.height,
-          bytes: full.bytes.byteLength,
-          createdBy: access.user.id,
-        })
-        .returning();
-      if (!row) throw new Error('insert returned no row');
-      await recordAudit(tx, {
+  const photo = await storeEncodedPhoto(bytes, async (tx, encoded) => {
+    const [row] = await tx
+      .insert(stepPhotos)
+      .values({
+        id: randomUUID(),
         teamId: access.team.id,
-        actorId: access.user.id,
-        action: 'create',
-        recordType: 'step-photo',
-        recordId: row.id,
-        after: row,
-      });
-      return row;
+        procedureId: 'procedureId' in owner ? owner.procedureId : null,
+        checklistId: 'checklistId' in owner ? owner.checklistId : null,
+        stepId,
+        ...encoded,
+        createdBy: access.user.id,
+      })
+      .returning();
+    if (!row) throw new Error('insert returned no row');
+    await recordAudit(tx, {
+      teamId: access.team.id,
+      actorId: access.user.id,
+      action: 'create',
+      recordType: 'step-photo',
+      recordId: row.id,
+      after: row,
     });
-    return stepPhotoToView(photo);
-  } catch (error) {
-    await removeObjects(stored);
-    throw error;
-  }
+    return row;
+  });
+  return stepPhotoToView(photo);
 }
 
 /** The stored bytes of one of the team's step photos (404 for anyone else's). */
